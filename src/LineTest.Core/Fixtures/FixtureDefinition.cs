@@ -1,0 +1,33 @@
+namespace LineTest.Core.Fixtures;
+
+/// <summary>
+/// A fixture: the physical holder and wiring at a station — the temperature source, its slots,
+/// which meter channel and unit port each slot uses, the reference thermometer, and the source's safe range.
+/// Loaded from one JSON file in <c>fixtures/</c>.
+/// </summary>
+public sealed record FixtureDefinition
+{
+    /// <summary>Stable fixture id, stored with every run.</summary>
+    public required string Id { get; init; }
+
+    /// <summary>Human-readable name shown on the operator screen.</summary>
+    public string? Name { get; init; }
+
+    /// <summary><c>simulator</c> for the built-in rig, <c>serial</c> for real instruments.</summary>
+    public string Rig { get; init; } = "simulator";
+
+    /// <summary>The temperature source (dry block, bath or chamber).</summary>
+    public required SourceDefinition Source { get; init; }
+
+    /// <summary>The reference thermometer and its readout.</summary>
+    public required ReferenceDefinition Reference { get; init; }
+
+    /// <summary>The DC voltmeter with its channel scanner.</summary>
+    public required MeterDefinition Meter { get; init; }
+
+    /// <summary>The slots, each holding one unit.</summary>
+    public required IReadOnlyList<SlotDefinition> Slots { get; init; }
+
+    /// <summary>Physical parameters used only by the built-in simulator.</summary>
+    public SimulationDefinition? Simulation { get; init; }
+}

@@ -1,0 +1,20 @@
+namespace LineTest.Core.Fixtures;
+
+/// <summary>One position of a fixture that holds one unit, and its wiring.</summary>
+public sealed record SlotDefinition
+{
+    /// <summary>Slot number, 1-based, as printed on the fixture.</summary>
+    public required int Slot { get; init; }
+
+    /// <summary>Meter channel that reads the unit's analog output.</summary>
+    public required int OutputChannel { get; init; }
+
+    /// <summary>Meter channel across the slot's supply shunt.</summary>
+    public required int SupplyChannel { get; init; }
+
+    /// <summary>Supply shunt resistance, Ω; supply current = shunt volts / this.</summary>
+    public double SupplyShuntOhms { get; init; } = 10;
+
+    /// <summary>The unit's own serial link.</summary>
+    public PortDefinition? UnitPort { get; init; }
+}
