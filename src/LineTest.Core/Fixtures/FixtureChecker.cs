@@ -1,0 +1,92 @@
+using System.Globalization;
+using LineTest.Core.Definitions;
+
+namespace LineTest.Core.Fixtures;
+
+/// <summary>Checks that a parsed fixture makes physical sense; finds every problem, each at its JSON path.</summary>
+public static class FixtureChecker
+{
+    /// <summary>Checks <paramref name="fixture"/>.</summary>
+    public static ProblemList Check(FixtureDefinition fixture)
+    {
+        ArgumentNullException.ThrowIfNull(fixture);
+        var problems = new ProblemList();
+        problems.AddIf(string.IsNullOrWhiteSpace(fixture.Id), "$.id", "the id must not be empty");
+        problems.AddIf(fixture.Rig is not ("simulator" or "serial"), "$.rig", $"unknown rig '{fixture.Rig}' (known: simulator, serial)");
+        CheckSource(fixture.Source, problems);
+        CheckSlots(fixture, problems);
+        var meter = fixture.Meter;
+        problems.AddIf(!(meter.RangeVolts > 0), "$.meter.rangeVolts", "the meter range must be positive");
+        problems.AddIf(meter.AccuracyPercentOfReading < 0, "$.meter.accuracyPercentOfReading", "cannot be negative");
+        problems.AddIf(meter.AccuracyOffsetVolts < 0, "$.meter.accuracyOffsetVolts", "cannot be negative");
+        problems.AddIf(!(meter.ResolutionVolts > 0), "$.meter.resolutionVolts", "the resolution must be positive");
+        problems.AddIf(!(meter.IntegrationPlc > 0), "$.meter.integrationPlc", "the integration time must be positive");
+        var reference = fixture.Reference;
+        problems.AddIf(reference.CertificateExpandedUncertaintyC < 0, "$.reference.certificateExpandedUncertaintyC", "cannot be negative");
+        problems.AddIf(!(reference.CertificateCoverageFactor > 0), "$.reference.certificateCoverageFactor", "must be positive");
+        problems.AddIf(!(reference.ReadoutResolution > 0), "$.reference.readoutResolution", "must be positive");
+        if (fixture.Rig == "serial")
+        {
+            problems.AddIf(fixture.Source.Port is null, "$.source", "a serial rig needs the source's port");
+            problems.AddIf(reference.Port is null, "$.reference", "a serial rig needs the reference readout's port");
+            problems.AddIf(meter.Port is null, "$.meter", "a serial rig needs the meter's port");
+        }
+
+        if (fixture.Simulation is { } sim)
+        {
+            problems.AddIf(!(sim.UnitLagTimeConstantSeconds > 0), "$.simulation.unitLagTimeConstantSeconds", "must be positive");
+            problems.AddIf(sim.DefectRate is < 0 or > 1, "$.simulation.defectRate", "must be between 0 and 1");
+            problems.AddIf(sim.SlotOffsetsC.Count > fixture.Slots.Count, "$.simulation.slotOffsetsC", "more offsets than slots");
+        }
+
+        return problems;
+    }
+
+    private static void CheckSource(SourceDefinition source, ProblemList problems)
+    {
+        problems.AddIf(source.Kind is not ("dry-block" or "bath" or "chamber"), "$.source.kind",
+            $"unknown source kind '{source.Kind}' (known: dry-block, bath, chamber)");
+        if (source.SafeMinC >= source.SafeMaxC)
+        {
+            problems.Add("$.source.safeMinC", $"the safe minimum ({F(source.SafeMinC)} °C) must be below the safe maximum ({F(source.SafeMaxC)} °C)");
+        }
+        else if (source.StandbyC < source.SafeMinC || source.StandbyC > source.SafeMaxC)
+        {
+            problems.Add("$.source.standbyC", $"standby {F(source.StandbyC)} °C is outside the safe range {F(source.SafeMinC)} … {F(source.SafeMaxC)} °C");
+        }
+
+        problems.AddIf(!(source.RampUpCPerMinute > 0), "$.source.rampUpCPerMinute", "the heating rate must be positive");
+        problems.AddIf(!(source.RampDownCPerMinute > 0), "$.source.rampDownCPerMinute", "the cooling rate must be positive");
+        problems.AddIf(!(source.SettlingTimeConstantSeconds > 0), "$.source.settlingTimeConstantSeconds", "the time constant must be positive");
+    }
+
+    private static void CheckSlots(FixtureDefinition fixture, ProblemList problems)
+    {
+        problems.AddIf(fixture.Slots.Count == 0, "$.slots", "a fixture needs at least one slot");
+        var numbers = new HashSet<int>();
+        var channels = new Dictionary<int, int>();
+        for (var i = 0; i < fixture.Slots.Count; i++)
+        {
+            var slot = fixture.Slots[i];
+            var path = $"$.slots[{i}]";
+            problems.AddIf(slot.Slot < 1, $"{path}.slot", "slot numbers start at 1");
+            problems.AddIf(!numbers.Add(slot.Slot), $"{path}.slot", $"slot {slot.Slot} is defined twice");
+            foreach (var (channel, key) in new[] { (slot.OutputChannel, "outputChannel"), (slot.SupplyChannel, "supplyChannel") })
+            {
+                if (channels.TryGetValue(channel, out var other))
+                {
+                    problems.Add($"{path}.{key}", $"meter channel {channel} is already wired to slot {other}");
+                }
+                else
+                {
+                    channels[channel] = slot.Slot;
+                }
+            }
+
+            problems.AddIf(!(slot.SupplyShuntOhms > 0), $"{path}.supplyShuntOhms", "the shunt resistance must be positive");
+            problems.AddIf(fixture.Rig == "serial" && slot.UnitPort is null, $"{path}.unitPort", "a serial rig needs each slot's unit port");
+        }
+    }
+
+    private static string F(double value) => value.ToString("0.###", CultureInfo.InvariantCulture);
+}

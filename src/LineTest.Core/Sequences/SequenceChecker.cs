@@ -1,0 +1,310 @@
+using System.Globalization;
+using System.Text.RegularExpressions;
+using LineTest.Core.Definitions;
+using LineTest.Core.Fixtures;
+using LineTest.Core.Trims;
+
+namespace LineTest.Core.Sequences;
+
+/// <summary>
+/// Checks that a parsed sequence makes sense, alone and against a fixture. Finds every problem, not only the
+/// first, each at its JSON path.
+/// </summary>
+public static class SequenceChecker
+{
+    private static readonly string[] CurrentUnits = ["A", "mA", "uA"];
+    private static readonly string[] VoltageUnits = ["V", "mV", "uV"];
+    private static readonly string[] TemperatureDifferenceUnits = ["degC", "K"];
+
+    /// <summary>Checks <paramref name="sequence"/>; with a fixture, also that every setpoint is inside its safe range.</summary>
+    public static ProblemList Check(SequenceDefinition sequence, FixtureDefinition? fixture)
+    {
+        ArgumentNullException.ThrowIfNull(sequence);
+        var problems = new ProblemList();
+        problems.AddIf(string.IsNullOrWhiteSpace(sequence.Id), "$.id", "the id must not be empty");
+        problems.AddIf(sequence.Revision < 1, "$.revision", $"the revision must be 1 or more, not {sequence.Revision}");
+        problems.AddIf(string.IsNullOrWhiteSpace(sequence.Product), "$.product", "the product must not be empty");
+        CheckSerialPattern(sequence.SerialPattern, problems);
+        CheckStability(sequence.Stability, problems);
+        CheckSoak(sequence.Soak, problems);
+        var setpoints = CheckSetpoints(sequence.Setpoints, fixture, problems);
+        CheckTrim(sequence.Trim, problems);
+        CheckSteps(sequence, setpoints, problems);
+        return problems;
+    }
+
+    private static void CheckSerialPattern(string pattern, ProblemList problems)
+    {
+        if (string.IsNullOrWhiteSpace(pattern))
+        {
+            problems.Add("$.serialPattern", "the serial pattern must not be empty");
+            return;
+        }
+
+        try
+        {
+            _ = new Regex(pattern, RegexOptions.None, TimeSpan.FromSeconds(1));
+        }
+        catch (ArgumentException ex)
+        {
+            problems.Add("$.serialPattern", $"not a valid regular expression: {ex.Message}");
+        }
+    }
+
+    private static void CheckStability(StabilitySettings s, ProblemList problems)
+    {
+        Positive(s.BandC, "$.stability.bandC", problems);
+        Positive(s.MaxDriftCPerMinute, "$.stability.maxDriftCPerMinute", problems);
+        Positive(s.WindowSeconds, "$.stability.windowSeconds", problems);
+        Positive(s.SampleIntervalSeconds, "$.stability.sampleIntervalSeconds", problems);
+        Positive(s.TimeoutSeconds, "$.stability.timeoutSeconds", problems);
+        problems.AddIf(s.SampleIntervalSeconds > 0 && s.WindowSeconds > 0 && s.WindowSeconds < 2 * s.SampleIntervalSeconds,
+            "$.stability.windowSeconds", "the window must hold at least three readings (two sample intervals or more)");
+        problems.AddIf(s.TimeoutSeconds > 0 && s.TimeoutSeconds <= s.WindowSeconds,
+            "$.stability.timeoutSeconds", "the timeout must be longer than the stability window");
+    }
+
+    private static void CheckSoak(SoakSettings s, ProblemList problems)
+    {
+        problems.AddIf(s.MinimumSeconds < 0, "$.soak.minimumSeconds", "the minimum soak cannot be negative");
+        Positive(s.MaxDriftCPerMinute, "$.soak.maxDriftCPerMinute", problems);
+        Positive(s.WindowSeconds, "$.soak.windowSeconds", problems);
+        Positive(s.SampleIntervalSeconds, "$.soak.sampleIntervalSeconds", problems);
+        Positive(s.TimeoutSeconds, "$.soak.timeoutSeconds", problems);
+        problems.AddIf(s.SampleIntervalSeconds > 0 && s.WindowSeconds > 0 && s.WindowSeconds < 2 * s.SampleIntervalSeconds,
+            "$.soak.windowSeconds", "the window must hold at least three readings (two sample intervals or more)");
+        problems.AddIf(s.TimeoutSeconds > 0 && s.TimeoutSeconds < Math.Max(s.MinimumSeconds, s.WindowSeconds),
+            "$.soak.timeoutSeconds", "the timeout must be at least the minimum soak and the window");
+    }
+
+    private static HashSet<string> CheckSetpoints(IReadOnlyList<SetpointDefinition> setpoints, FixtureDefinition? fixture, ProblemList problems)
+    {
+        var names = new HashSet<string>(StringComparer.Ordinal);
+        problems.AddIf(setpoints.Count == 0, "$.setpoints", "at least one setpoint is needed");
+        for (var i = 0; i < setpoints.Count; i++)
+        {
+            var sp = setpoints[i];
+            var path = $"$.setpoints[{i}]";
+            if (string.IsNullOrWhiteSpace(sp.Name))
+            {
+                problems.Add($"{path}.name", "the setpoint name must not be empty");
+            }
+            else if (!names.Add(sp.Name))
+            {
+                problems.Add($"{path}.name", $"setpoint '{sp.Name}' is defined twice");
+            }
+
+            if (!double.IsFinite(sp.Celsius))
+            {
+                problems.Add($"{path}.celsius", "the temperature must be a finite number");
+            }
+            else if (fixture is not null && (sp.Celsius < fixture.Source.SafeMinC || sp.Celsius > fixture.Source.SafeMaxC))
+            {
+                problems.Add($"{path}.celsius",
+                    $"{F(sp.Celsius)} °C is outside the safe range of fixture '{fixture.Id}' ({F(fixture.Source.SafeMinC)} … {F(fixture.Source.SafeMaxC)} °C)");
+            }
+        }
+
+        return names;
+    }
+
+    private static void CheckTrim(TrimDefinition? trim, ProblemList problems)
+    {
+        if (trim is null)
+        {
+            return;
+        }
+
+        switch (trim.Method)
+        {
+            case "dac":
+                if (trim.Dac is null)
+                {
+                    problems.Add("$.trim", "method 'dac' needs a 'dac' object with gain, offset and target");
+                }
+                else
+                {
+                    CheckDac(trim.Dac, problems);
+                }
+
+                break;
+            default:
+                problems.Add("$.trim.method", $"unknown trim method '{trim.Method}' (known: dac)");
+                break;
+        }
+    }
+
+    private static void CheckDac(DacTrimSpec dac, ProblemList problems)
+    {
+        CheckDacChannel(dac.Gain, "$.trim.dac.gain", problems);
+        CheckDacChannel(dac.Offset, "$.trim.dac.offset", problems);
+        problems.AddIf(dac.Target.SlopeVoltsPerC == 0 || !double.IsFinite(dac.Target.SlopeVoltsPerC),
+            "$.trim.dac.target.slopeVoltsPerC", "the target slope must be a non-zero number");
+    }
+
+    private static void CheckDacChannel(DacChannelSpec channel, string path, ProblemList problems)
+    {
+        problems.AddIf(channel.Min >= channel.Max, $"{path}.min", $"min ({channel.Min}) must be below max ({channel.Max})");
+        problems.AddIf(channel.Nominal < channel.Min || channel.Nominal > channel.Max, $"{path}.nominal",
+            $"nominal code {channel.Nominal} is outside {channel.Min} … {channel.Max}");
+        problems.AddIf(channel.Step == 0 || !double.IsFinite(channel.Step), $"{path}.step", "the step must be a non-zero number");
+        problems.AddIf(string.IsNullOrWhiteSpace(channel.Register), $"{path}.register", "the register name must not be empty");
+    }
+
+    private static void CheckSteps(SequenceDefinition sequence, HashSet<string> setpoints, ProblemList problems)
+    {
+        problems.AddIf(sequence.Steps.Count == 0, "$.steps", "at least one step is needed");
+        string? settledAt = null;
+        var measured = new HashSet<string>(StringComparer.Ordinal);
+        var readingNames = new Dictionary<string, int>(StringComparer.Ordinal);
+        var trimmed = false;
+        for (var i = 0; i < sequence.Steps.Count; i++)
+        {
+            var step = sequence.Steps[i];
+            var path = $"$.steps[{i}]";
+            if (step.Name is { } name)
+            {
+                if (string.IsNullOrWhiteSpace(name))
+                {
+                    problems.Add($"{path}.name", "the step name must not be empty when given");
+                }
+                else if (readingNames.TryGetValue(name, out var first))
+                {
+                    problems.Add($"{path}.name", $"step name '{name}' is already used by step {first + 1}");
+                }
+                else
+                {
+                    readingNames[name] = i;
+                }
+            }
+
+            switch (step)
+            {
+                case SettleStep settle:
+                    if (RequireSetpoint(settle.Setpoint, setpoints, $"{path}.setpoint", problems))
+                    {
+                        settledAt = settle.Setpoint;
+                    }
+
+                    break;
+                case MeasureStep measure:
+                    RequireSettled(measure.Setpoint, settledAt, setpoints, path, problems);
+                    Samples(measure.Samples, path, problems);
+                    if (measure.OutputLimits is { } outputLimits)
+                    {
+                        CheckLimits(outputLimits, $"{path}.outputLimits", VoltageUnits, problems);
+                    }
+
+                    measured.Add(measure.Setpoint);
+                    break;
+                case VerifyStep verify:
+                    RequireSettled(verify.Setpoint, settledAt, setpoints, path, problems);
+                    Samples(verify.Samples, path, problems);
+                    CheckLimits(verify.Limits, $"{path}.limits", TemperatureDifferenceUnits, problems);
+                    problems.AddIf(sequence.Trim is not null && !trimmed, path,
+                        "a verify step must come after the trim step (it confirms the trim)");
+                    break;
+                case SupplyCurrentStep supply:
+                    Samples(supply.Samples, path, problems);
+                    CheckLimits(supply.Limits, $"{path}.limits", CurrentUnits, problems);
+                    break;
+                case TrimStep trim:
+                    trimmed = true;
+                    CheckTrimStep(sequence, trim, path, setpoints, measured, problems);
+                    break;
+                case PromptStep prompt:
+                    problems.AddIf(string.IsNullOrWhiteSpace(prompt.Text), $"{path}.text", "the prompt text must not be empty");
+                    break;
+                case IdentifyStep:
+                    break;
+                default:
+                    problems.Add($"{path}.kind", $"step kind '{step.Kind}' is not supported by this checker");
+                    break;
+            }
+        }
+    }
+
+    private static void CheckTrimStep(
+        SequenceDefinition sequence, TrimStep trim, string path, HashSet<string> setpoints, HashSet<string> measured, ProblemList problems)
+    {
+        problems.AddIf(sequence.Trim is null, path, "a trim step needs the sequence's 'trim' object (method and parameters)");
+        problems.AddIf(trim.Points.Count < 2, $"{path}.points", "a trim needs calibration points from two setpoints or more");
+        var distinct = new HashSet<string>(StringComparer.Ordinal);
+        for (var p = 0; p < trim.Points.Count; p++)
+        {
+            var point = trim.Points[p];
+            var pointPath = $"{path}.points[{p}]";
+            if (RequireSetpoint(point, setpoints, pointPath, problems))
+            {
+                problems.AddIf(!measured.Contains(point), pointPath,
+                    $"setpoint '{point}' has no measure step before this trim step");
+                problems.AddIf(!distinct.Add(point), pointPath, $"setpoint '{point}' is listed twice");
+            }
+        }
+
+        for (var p = 0; p < trim.PredictAt.Count; p++)
+        {
+            RequireSetpoint(trim.PredictAt[p], setpoints, $"{path}.predictAt[{p}]", problems);
+        }
+    }
+
+    private static bool RequireSetpoint(string name, HashSet<string> setpoints, string path, ProblemList problems)
+    {
+        if (setpoints.Contains(name))
+        {
+            return true;
+        }
+
+        var known = setpoints.Count == 0 ? "none defined" : string.Join(", ", setpoints.Order(StringComparer.Ordinal));
+        problems.Add(path, $"setpoint '{name}' does not exist (known: {known})");
+        return false;
+    }
+
+    private static void RequireSettled(string setpoint, string? settledAt, HashSet<string> setpoints, string path, ProblemList problems)
+    {
+        if (RequireSetpoint(setpoint, setpoints, $"{path}.setpoint", problems) && settledAt != setpoint)
+        {
+            problems.Add($"{path}.setpoint",
+                settledAt is null
+                    ? $"no settle step brings the source to '{setpoint}' before this step"
+                    : $"the source is settled at '{settledAt}' here, not at '{setpoint}'");
+        }
+    }
+
+    private static void Samples(int samples, string path, ProblemList problems) =>
+        problems.AddIf(samples < 1, $"{path}.samples", $"samples must be 1 or more, not {samples}");
+
+    private static void CheckLimits(LimitDefinition limits, string path, string[] allowedUnits, ProblemList problems)
+    {
+        if (!UnitsOfMeasure.IsKnown(limits.Unit))
+        {
+            problems.Add($"{path}.unit",
+                $"unknown unit of measure '{limits.Unit}' (known: {string.Join(", ", UnitsOfMeasure.Symbols)})");
+        }
+        else if (!allowedUnits.Contains(limits.Unit, StringComparer.Ordinal))
+        {
+            problems.Add($"{path}.unit", $"unit '{limits.Unit}' does not fit this reading (use {string.Join(", ", allowedUnits)})");
+        }
+
+        problems.AddIf(limits.Low is null && limits.High is null, path, "give a low limit, a high limit or both");
+        problems.AddIf(limits.Low is { } lo && !double.IsFinite(lo), $"{path}.low", "the low limit must be a finite number");
+        problems.AddIf(limits.High is { } hi && !double.IsFinite(hi), $"{path}.high", "the high limit must be a finite number");
+        if (limits.Low is { } low && limits.High is { } high && low > high)
+        {
+            problems.Add($"{path}.low", $"the low limit ({F(low)}) is above the high limit ({F(high)})");
+        }
+
+        if (limits.Rule is not ("simple" or "guarded"))
+        {
+            problems.Add($"{path}.rule", $"unknown decision rule '{limits.Rule}' (known: simple, guarded)");
+        }
+
+        problems.AddIf(limits.GuardBandFactor < 0 || !double.IsFinite(limits.GuardBandFactor), $"{path}.guardBandFactor",
+            "the guard-band factor must be zero or more");
+    }
+
+    private static void Positive(double value, string path, ProblemList problems) =>
+        problems.AddIf(!(value > 0) || !double.IsFinite(value), path, $"must be a positive number, not {F(value)}");
+
+    private static string F(double value) => value.ToString("0.###", CultureInfo.InvariantCulture);
+}
