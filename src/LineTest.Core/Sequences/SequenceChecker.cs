@@ -29,6 +29,10 @@ public static class SequenceChecker
         CheckSoak(sequence.Soak, problems);
         var setpoints = CheckSetpoints(sequence.Setpoints, fixture, problems);
         CheckTrim(sequence.Trim, problems);
+        problems.AddIf(sequence.Soak.OutputVoltsPerC is null && sequence.Trim?.Dac is null, "$.soak",
+            "give soak.outputVoltsPerC (the unit's output sensitivity) so the soak can judge the unit's drift in °C");
+        problems.AddIf(sequence.Soak.OutputVoltsPerC is { } sens && (sens == 0 || !double.IsFinite(sens)), "$.soak.outputVoltsPerC",
+            "the output sensitivity must be a non-zero number");
         CheckSteps(sequence, setpoints, problems);
         return problems;
     }

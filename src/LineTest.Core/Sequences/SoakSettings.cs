@@ -18,6 +18,12 @@ public sealed record SoakSettings
     /// <summary>Interval between unit readings while soaking, seconds.</summary>
     public double SampleIntervalSeconds { get; init; } = 5;
 
+    /// <summary>
+    /// Output sensitivity used to express a unit's drift in °C, volts per °C. Optional when the sequence's trim
+    /// declares a target slope (that slope is used).
+    /// </summary>
+    public double? OutputVoltsPerC { get; init; }
+
     /// <summary>Give up (verdict error for the unit) when it has not followed after this long, seconds.</summary>
     public required double TimeoutSeconds { get; init; }
 }

@@ -18,6 +18,13 @@ public sealed record StabilitySettings
     /// <summary>Interval between reference readings while waiting, seconds.</summary>
     public double SampleIntervalSeconds { get; init; } = 5;
 
+    /// <summary>
+    /// Largest allowed difference between the window's mean reference temperature and the setpoint, °C.
+    /// A source's own control sensor and the reference never agree exactly, so stability is judged around the
+    /// reference's own mean; this bound catches a source that settled somewhere else.
+    /// </summary>
+    public double MaxOffsetFromSetpointC { get; init; } = 1.0;
+
     /// <summary>Give up (verdict error) when not stable after this long, seconds.</summary>
     public required double TimeoutSeconds { get; init; }
 }

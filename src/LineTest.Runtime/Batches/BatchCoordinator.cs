@@ -1,0 +1,713 @@
+using System.Globalization;
+using LineTest.Core.Fixtures;
+using LineTest.Core.Results;
+using LineTest.Core.Sequences;
+using LineTest.Core.Stability;
+using LineTest.Rig.Instruments;
+using LineTest.Runtime.Judging;
+using LineTest.Runtime.Logging;
+using Microsoft.Extensions.Logging;
+
+namespace LineTest.Runtime.Batches;
+
+/// <summary>
+/// Runs one batch: the units loaded in a fixture go through the sequence together, because they share one
+/// temperature source. Settle steps are batch-wide; other steps run unit by unit (measurements interleave the
+/// reference with every unit in rounds). A unit that fails or errors drops out without stopping the others; a lost
+/// source, reference or meter, a source that never settles, a cancel or a failed result write stops the batch and
+/// sends the source to standby. Every run is handed to the <see cref="IRunSink"/> the moment it ends.
+/// </summary>
+/// <remarks>
+/// One logical flow of control: the coordinator awaits one thing at a time, so the unit state machines (Stateless,
+/// not thread-safe) are only touched here, and the simulator's virtual clock can jump from wait to wait.
+/// </remarks>
+public sealed class BatchCoordinator
+{
+    private readonly RigInstruments _rig;
+    private readonly FixtureDefinition _fixture;
+    private readonly Func<double, double> _referenceToCelsius;
+    private readonly TimeProvider _time;
+    private readonly IRunSink _sink;
+    private readonly IOperatorChannel _operator;
+    private readonly IBatchObserver _observer;
+    private readonly ILogger _logger;
+    private readonly InstrumentTiming _timing;
+
+    /// <summary>Creates a coordinator for one fixture's instruments.</summary>
+    /// <param name="rig">The fixture's instruments.</param>
+    /// <param name="fixture">The fixture definition (wiring, safe range, standby).</param>
+    /// <param name="referenceToCelsius">Converts the reference readout's raw value to °C; returns NaN when it cannot.</param>
+    /// <param name="time">Clock for every wait (virtual in the simulator).</param>
+    /// <param name="sink">Stores each run the moment it ends.</param>
+    /// <param name="operatorChannel">Shows prompts.</param>
+    /// <param name="observer">Live progress, or null.</param>
+    /// <param name="logger">Logger.</param>
+    /// <param name="timing">Instrument pacing, or null for defaults.</param>
+    public BatchCoordinator(
+        RigInstruments rig,
+        FixtureDefinition fixture,
+        Func<double, double> referenceToCelsius,
+        TimeProvider time,
+        IRunSink sink,
+        IOperatorChannel operatorChannel,
+        IBatchObserver? observer,
+        ILogger logger,
+        InstrumentTiming? timing = null)
+    {
+        ArgumentNullException.ThrowIfNull(rig);
+        ArgumentNullException.ThrowIfNull(fixture);
+        ArgumentNullException.ThrowIfNull(referenceToCelsius);
+        ArgumentNullException.ThrowIfNull(time);
+        ArgumentNullException.ThrowIfNull(sink);
+        ArgumentNullException.ThrowIfNull(operatorChannel);
+        ArgumentNullException.ThrowIfNull(logger);
+        _rig = rig;
+        _fixture = fixture;
+        _referenceToCelsius = referenceToCelsius;
+        _time = time;
+        _sink = sink;
+        _operator = operatorChannel;
+        _observer = observer ?? NullBatchObserver.Instance;
+        _logger = logger;
+        _timing = timing ?? new InstrumentTiming();
+    }
+
+    /// <summary>Runs the batch to its end. Throws <see cref="RunStorageException"/> when a run could not be stored.</summary>
+    public async Task<BatchOutcome> RunAsync(BatchRequest request, CancellationToken cancellationToken)
+    {
+        ArgumentNullException.ThrowIfNull(request);
+        var batch = new BatchState(request, _time.GetUtcNow());
+        foreach (var load in request.Loads)
+        {
+            if (_fixture.Slots.All(s => s.Slot != load.Slot))
+            {
+                throw new ArgumentException($"Slot {load.Slot} does not exist in fixture '{_fixture.Id}'.", nameof(request));
+            }
+
+            var unit = new UnitContext(load, batch.Started);
+            foreach (var register in RegistersOf(request.Sequence))
+            {
+                unit.Registers[register.Name] = register.Nominal;
+            }
+
+            unit.Machine.Transitioned += (from, to, trigger) =>
+                RuntimeLog.Transition(_logger, unit.Serial, unit.Slot, from.ToString(), to.ToString(), trigger.ToString());
+            batch.Units.Add(unit);
+            Notify(batch, unit);
+        }
+
+        RuntimeLog.BatchStarted(_logger, batch.Id, batch.Units.Count, request.Sequence.Id, request.Sequence.Revision);
+        string? aborted = null;
+        try
+        {
+            var steps = request.Sequence.Steps;
+            for (var i = 0; i < steps.Count; i++)
+            {
+                cancellationToken.ThrowIfCancellationRequested();
+                if (batch.Active.Count == 0)
+                {
+                    break;
+                }
+
+                foreach (var unit in batch.Active)
+                {
+                    unit.StepIndex = i;
+                    unit.CurrentStep = steps[i].DisplayName;
+                }
+
+                await RunStepAsync(batch, steps[i], cancellationToken).ConfigureAwait(false);
+                await EndRejectedAsync(batch).ConfigureAwait(false);
+            }
+
+            foreach (var unit in batch.Active)
+            {
+                if (unit.FirstFailingReading is not null)
+                {
+                    unit.Machine.Reject(unit.FirstFailureReason ?? unit.FirstFailingReading);
+                }
+                else
+                {
+                    unit.Machine.Complete();
+                }
+
+                await FinishAsync(batch, unit).ConfigureAwait(false);
+            }
+        }
+        catch (OperationCanceledException) when (cancellationToken.IsCancellationRequested)
+        {
+            aborted = "cancelled";
+            await EndAllAsync(batch, u => u.Machine.Cancel("cancelled before the test was complete")).ConfigureAwait(false);
+        }
+        catch (BatchFaultException ex)
+        {
+            aborted = ex.Message;
+            await EndAllAsync(batch, u => u.Machine.Fault(ex.Message)).ConfigureAwait(false);
+        }
+        catch (RunStorageException ex)
+        {
+            aborted = ex.Message;
+            RuntimeLog.BatchAborted(_logger, batch.Id, ex.Message);
+            await StandbyAsync(ex.Message).ConfigureAwait(false);
+            throw;
+        }
+
+        if (aborted is not null)
+        {
+            RuntimeLog.BatchAborted(_logger, batch.Id, aborted);
+            await StandbyAsync(aborted).ConfigureAwait(false);
+        }
+
+        var runs = batch.Units.Select(u => u.Record!).ToList();
+        return new BatchOutcome(batch.Id, runs, batch.SetpointHistory, batch.Started, _time.GetUtcNow(), aborted);
+    }
+
+    /// <summary>Sends the source to standby, logging (never throwing) if that fails.</summary>
+    public async Task StandbyAsync(string why)
+    {
+        try
+        {
+            using var timeout = new CancellationTokenSource(TimeSpan.FromSeconds(30));
+            await _rig.Source.GoToStandbyAsync(timeout.Token).ConfigureAwait(false);
+            RuntimeLog.Standby(_logger, _fixture.Source.StandbyC, why);
+            _observer.SourceChanged(_fixture.Source.StandbyC, null, "standby");
+        }
+        catch (Exception ex) when (ex is InstrumentFaultException or OperationCanceledException or IOException or TimeoutException)
+        {
+            RuntimeLog.StandbyFailed(_logger, ex.Message);
+        }
+    }
+
+    private static IEnumerable<(string Name, long Nominal)> RegistersOf(SequenceDefinition sequence)
+    {
+        if (sequence.Trim?.Dac is { } dac)
+        {
+            yield return (dac.Gain.Register, dac.Gain.Nominal);
+            yield return (dac.Offset.Register, dac.Offset.Nominal);
+        }
+    }
+
+    private async Task RunStepAsync(BatchState batch, StepDefinition step, CancellationToken ct)
+    {
+        switch (step)
+        {
+            case SettleStep settle:
+                await SettleAsync(batch, settle, ct).ConfigureAwait(false);
+                break;
+            case MeasureStep measure:
+                await MeasureAsync(batch, measure, ct).ConfigureAwait(false);
+                break;
+            case VerifyStep verify:
+                await VerifyAsync(batch, verify, ct).ConfigureAwait(false);
+                break;
+            case PromptStep prompt:
+                foreach (var unit in batch.Active)
+                {
+                    unit.Machine.BeginPrompt();
+                    Notify(batch, unit);
+                }
+
+                await _operator.PromptAsync(prompt.Text, prompt.Confirm, ct).ConfigureAwait(false);
+                break;
+            default:
+                foreach (var unit in batch.Active)
+                {
+                    try
+                    {
+                        await RunUnitStepAsync(batch, unit, step, ct).ConfigureAwait(false);
+                    }
+                    catch (UnitFaultException ex)
+                    {
+                        RuntimeLog.UnitFault(_logger, unit.Serial, unit.Slot, ex.Message);
+                        unit.Machine.Fault(ex.Message);
+                        await FinishAsync(batch, unit).ConfigureAwait(false);
+                    }
+                }
+
+                break;
+        }
+    }
+
+    private async Task RunUnitStepAsync(BatchState batch, UnitContext unit, StepDefinition step, CancellationToken ct)
+    {
+        switch (step)
+        {
+            case IdentifyStep:
+                unit.Machine.BeginIdentify();
+                Notify(batch, unit);
+                await IdentifyAsync(batch, unit, ct).ConfigureAwait(false);
+                break;
+            case SupplyCurrentStep supply:
+                unit.Machine.BeginSupplyCheck();
+                Notify(batch, unit);
+                await SupplyCurrentAsync(unit, supply, ct).ConfigureAwait(false);
+                break;
+            case TrimStep trim:
+                unit.Machine.BeginTrim();
+                Notify(batch, unit);
+                await new DacTrimExecutor(this).RunAsync(batch.Request.Sequence, trim, unit, ct).ConfigureAwait(false);
+                break;
+            default:
+                throw new InvalidOperationException($"Step kind '{step.Kind}' has no executor.");
+        }
+    }
+
+    private async Task IdentifyAsync(BatchState batch, UnitContext unit, CancellationToken ct)
+    {
+        var identity = await LinkAsync(unit, (link, token) => link.IdentifyAsync(token), ct).ConfigureAwait(false);
+        unit.Firmware = identity.Firmware;
+        if (!string.Equals(identity.Serial, unit.Serial, StringComparison.Ordinal))
+        {
+            throw new UnitFaultException(
+                $"the unit in slot {unit.Slot} reports serial '{identity.Serial}' but '{unit.Serial}' was scanned: check the unit is in the right slot");
+        }
+
+        if (!string.Equals(identity.Product, batch.Request.Sequence.Product, StringComparison.Ordinal))
+        {
+            throw new UnitFaultException(
+                $"the unit in slot {unit.Slot} is a '{identity.Product}', but sequence '{batch.Request.Sequence.Id}' tests '{batch.Request.Sequence.Product}'");
+        }
+    }
+
+    private async Task SupplyCurrentAsync(UnitContext unit, SupplyCurrentStep step, CancellationToken ct)
+    {
+        var slot = SlotOf(unit);
+        var amps = new double[step.Samples];
+        for (var i = 0; i < step.Samples; i++)
+        {
+            var volts = await ReadMeterAsync(slot.SupplyChannel, ct).ConfigureAwait(false);
+            amps[i] = volts / slot.SupplyShuntOhms;
+        }
+
+        var mean = amps.Average();
+        var typeA = StandardError(amps);
+        var meterA = MeterStandardUncertaintyVolts(mean * slot.SupplyShuntOhms) / slot.SupplyShuntOhms;
+        var u = Math.Sqrt(typeA * typeA + meterA * meterA);
+        var unitSymbol = step.Limits.Unit;
+        var reading = ReadingJudge.Judge(step.DisplayName, UnitsOfMeasure.FromBase(mean, unitSymbol), step.Limits,
+            UnitsOfMeasure.FromBase(u, unitSymbol)) with
+        { Step = step.DisplayName, Samples = step.Samples, At = _time.GetUtcNow() };
+        unit.Add(reading);
+    }
+
+    private async Task SettleAsync(BatchState batch, SettleStep step, CancellationToken ct)
+    {
+        var sequence = batch.Request.Sequence;
+        var setpoint = sequence.Setpoints.First(s => s.Name == step.Setpoint);
+        var source = _fixture.Source;
+        if (setpoint.Celsius < source.SafeMinC || setpoint.Celsius > source.SafeMaxC)
+        {
+            // The checker refuses such sequences; this guard protects against a fixture swapped after the check.
+            throw new BatchFaultException(
+                $"setpoint '{setpoint.Name}' ({F(setpoint.Celsius)} °C) is outside the safe range of fixture '{_fixture.Id}' ({F(source.SafeMinC)} … {F(source.SafeMaxC)} °C); nothing was sent to the source");
+        }
+
+        foreach (var unit in batch.Active)
+        {
+            unit.Machine.AwaitSource();
+            Notify(batch, unit);
+        }
+
+        var commanded = _time.GetUtcNow();
+        await SourceAsync(token => _rig.Source.SetSetpointAsync(setpoint.Celsius, token), ct).ConfigureAwait(false);
+        _observer.SourceChanged(setpoint.Celsius, null, "ramping");
+        var stability = sequence.Stability;
+        var window = new StabilityWindow(stability.WindowSeconds, stability.BandC, stability.MaxDriftCPerMinute);
+        StabilityVerdict verdict;
+        while (true)
+        {
+            var elapsed = (_time.GetUtcNow() - commanded).TotalSeconds;
+            var wait = stability.SampleIntervalSeconds - _timing.ReferenceReadSeconds;
+            if (wait > 0)
+            {
+                await DelayAsync(wait, ct).ConfigureAwait(false);
+            }
+
+            var celsius = await ReadReferenceAsync(ct).ConfigureAwait(false);
+            elapsed = (_time.GetUtcNow() - commanded).TotalSeconds;
+            window.Add(elapsed, celsius);
+            verdict = window.Evaluate();
+            _observer.SourceChanged(setpoint.Celsius, celsius, "settling");
+            if (verdict.IsStable && Math.Abs(verdict.Mean!.Value - setpoint.Celsius) <= stability.MaxOffsetFromSetpointC)
+            {
+                break;
+            }
+
+            if (elapsed > stability.TimeoutSeconds)
+            {
+                var why = verdict.IsStable
+                    ? $"the reference settled at {F(verdict.Mean!.Value)} °C, more than {F(stability.MaxOffsetFromSetpointC)} °C from the setpoint"
+                    : verdict.Why;
+                throw new BatchFaultException(
+                    $"the source did not become stable at '{setpoint.Name}' ({F(setpoint.Celsius)} °C) within {F(stability.TimeoutSeconds)} s ({why})");
+            }
+        }
+
+        var stableAt = _time.GetUtcNow();
+        var secondsToStable = (stableAt - commanded).TotalSeconds;
+        RuntimeLog.SourceStable(_logger, setpoint.Name, setpoint.Celsius, verdict.Mean!.Value, secondsToStable);
+        _observer.SourceChanged(setpoint.Celsius, verdict.Mean, "stable");
+        foreach (var unit in batch.Active)
+        {
+            unit.Machine.SourceStable();
+            Notify(batch, unit);
+        }
+
+        var soakSeconds = await SoakAsync(batch, sequence, ct).ConfigureAwait(false);
+        var record = new SetpointRecord(setpoint.Name, setpoint.Celsius, verdict.Mean, secondsToStable, soakSeconds, stableAt);
+        batch.SetpointHistory.Add(record);
+        foreach (var unit in batch.Active)
+        {
+            unit.Setpoints.Add(record);
+        }
+    }
+
+    private async Task<double> SoakAsync(BatchState batch, SequenceDefinition sequence, CancellationToken ct)
+    {
+        var soak = sequence.Soak;
+        var start = _time.GetUtcNow();
+        if (soak.MinimumSeconds > 0)
+        {
+            await DelayAsync(soak.MinimumSeconds, ct).ConfigureAwait(false);
+        }
+
+        var sensitivity = Math.Abs(soak.OutputVoltsPerC ?? sequence.Trim?.Dac?.Target.SlopeVoltsPerC ?? 0.01);
+        var windows = batch.Active.ToDictionary(
+            u => u,
+            _ => new StabilityWindow(soak.WindowSeconds, double.PositiveInfinity, soak.MaxDriftCPerMinute));
+        while (windows.Count > 0)
+        {
+            var elapsed = (_time.GetUtcNow() - start).TotalSeconds;
+            if (elapsed > soak.TimeoutSeconds)
+            {
+                foreach (var (unit, window) in windows)
+                {
+                    var drift = window.Evaluate().DriftPerMinute;
+                    var reason = $"the unit in slot {unit.Slot} did not follow the block within {F(soak.TimeoutSeconds)} s"
+                        + (drift is { } d ? $" (still drifting {F(d)} °C/min)" : string.Empty) + ": check the unit is seated in its well";
+                    RuntimeLog.UnitFault(_logger, unit.Serial, unit.Slot, reason);
+                    unit.Machine.Fault(reason);
+                    await FinishAsync(batch, unit).ConfigureAwait(false);
+                }
+
+                break;
+            }
+
+            var roundStart = _time.GetUtcNow();
+            foreach (var (unit, window) in windows.ToList())
+            {
+                if (unit.IsFinished)
+                {
+                    windows.Remove(unit);
+                    continue;
+                }
+
+                var volts = await ReadMeterAsync(SlotOf(unit).OutputChannel, ct).ConfigureAwait(false);
+                window.Add((_time.GetUtcNow() - start).TotalSeconds, volts / sensitivity);
+                if (window.Evaluate().IsStable)
+                {
+                    windows.Remove(unit);
+                }
+            }
+
+            var spent = (_time.GetUtcNow() - roundStart).TotalSeconds;
+            if (windows.Count > 0 && soak.SampleIntervalSeconds > spent)
+            {
+                await DelayAsync(soak.SampleIntervalSeconds - spent, ct).ConfigureAwait(false);
+            }
+        }
+
+        return (_time.GetUtcNow() - start).TotalSeconds;
+    }
+
+    private async Task MeasureAsync(BatchState batch, MeasureStep step, CancellationToken ct)
+    {
+        var units = batch.Active;
+        foreach (var unit in units)
+        {
+            unit.Machine.BeginMeasure();
+            Notify(batch, unit);
+        }
+
+        var (references, outputs) = await SampleRoundsAsync(units, step.Samples, ct).ConfigureAwait(false);
+        var refMean = references.Average();
+        var refU = ReferenceStandardUncertaintyC(references);
+        var now = _time.GetUtcNow();
+        foreach (var unit in units)
+        {
+            var samples = outputs[unit];
+            var mean = samples.Average();
+            var u = Math.Sqrt(Square(StandardError(samples)) + Square(MeterStandardUncertaintyVolts(mean)));
+            unit.CalibrationPoints[step.Setpoint] = (refMean, mean);
+            unit.Add(ReadingJudge.Record($"{step.DisplayName}.reference", refMean, "degC", refU) with
+            { Step = step.DisplayName, Setpoint = step.Setpoint, Samples = step.Samples, At = now });
+            var output = step.OutputLimits is { } limits
+                ? ReadingJudge.Judge($"{step.DisplayName}.output", UnitsOfMeasure.FromBase(mean, limits.Unit), limits, UnitsOfMeasure.FromBase(u, limits.Unit))
+                : ReadingJudge.Record($"{step.DisplayName}.output", mean, "V", u);
+            unit.Add(output with { Step = step.DisplayName, Setpoint = step.Setpoint, Samples = step.Samples, At = now });
+        }
+    }
+
+    private async Task VerifyAsync(BatchState batch, VerifyStep step, CancellationToken ct)
+    {
+        var units = batch.Active;
+        foreach (var unit in units)
+        {
+            unit.Machine.BeginVerify();
+            Notify(batch, unit);
+        }
+
+        var (references, outputs) = await SampleRoundsAsync(units, step.Samples, ct).ConfigureAwait(false);
+        var target = batch.Request.Sequence.Trim?.Dac?.Target;
+        var slope = target?.SlopeVoltsPerC ?? batch.Request.Sequence.Soak.OutputVoltsPerC ?? 0.01;
+        var offset = target?.OffsetVolts ?? 0;
+        var refU = ReferenceStandardUncertaintyC(references);
+        var now = _time.GetUtcNow();
+        foreach (var unit in units)
+        {
+            var volts = outputs[unit];
+            var errors = new double[volts.Length];
+            for (var i = 0; i < volts.Length; i++)
+            {
+                errors[i] = (volts[i] - offset) / slope - references[i];
+            }
+
+            var meanError = errors.Average();
+            var meanVolts = volts.Average();
+            var meterC = MeterStandardUncertaintyVolts(meanVolts) / Math.Abs(slope);
+            var u = Math.Sqrt(Square(StandardError(errors)) + Square(meterC) + Square(refU));
+            var reading = ReadingJudge.Judge(step.DisplayName, meanError, step.Limits, u) with
+            { Step = step.DisplayName, Setpoint = step.Setpoint, Samples = step.Samples, At = now };
+            unit.Add(ReadingJudge.Record($"{step.DisplayName}.reference", references.Average(), "degC", refU) with
+            { Step = step.DisplayName, Setpoint = step.Setpoint, Samples = step.Samples, At = now });
+            unit.Add(reading);
+        }
+    }
+
+    /// <summary>Reads the reference and then every unit's output, <paramref name="samples"/> rounds.</summary>
+    private async Task<(double[] References, Dictionary<UnitContext, double[]> Outputs)> SampleRoundsAsync(
+        IReadOnlyList<UnitContext> units, int samples, CancellationToken ct)
+    {
+        var references = new double[samples];
+        var outputs = units.ToDictionary(u => u, _ => new double[samples]);
+        for (var i = 0; i < samples; i++)
+        {
+            references[i] = await ReadReferenceAsync(ct).ConfigureAwait(false);
+            foreach (var unit in units)
+            {
+                outputs[unit][i] = await ReadMeterAsync(SlotOf(unit).OutputChannel, ct).ConfigureAwait(false);
+            }
+        }
+
+        return (references, outputs);
+    }
+
+    internal async Task<T> LinkAsync<T>(UnitContext unit, Func<IUnitLink, CancellationToken, Task<T>> call, CancellationToken ct)
+    {
+        if (!_rig.UnitLinks.TryGetValue(unit.Slot, out var link))
+        {
+            throw new UnitFaultException($"slot {unit.Slot} has no unit link in fixture '{_fixture.Id}'");
+        }
+
+        await DelayAsync(_timing.UnitExchangeSeconds, ct).ConfigureAwait(false);
+        try
+        {
+            return await call(link, ct).ConfigureAwait(false);
+        }
+        catch (InstrumentFaultException ex)
+        {
+            var what = ex.Kind switch
+            {
+                InstrumentFaultKind.NoAnswer => "the unit does not answer on its link",
+                InstrumentFaultKind.GarbageReply => "the unit's reply could not be understood",
+                InstrumentFaultKind.PortLost => "the unit's port was lost",
+                InstrumentFaultKind.InstrumentError => "the unit reported an error",
+                _ => "the unit link failed",
+            };
+            throw new UnitFaultException($"{what} (slot {unit.Slot}): {ex.Message}", ex);
+        }
+    }
+
+    internal Task LinkAsync(UnitContext unit, Func<IUnitLink, CancellationToken, Task> call, CancellationToken ct) =>
+        LinkAsync<bool>(unit, async (link, token) =>
+        {
+            await call(link, token).ConfigureAwait(false);
+            return true;
+        }, ct);
+
+    internal Task DelayAsync(double seconds, CancellationToken ct) =>
+        seconds <= 0 ? Task.CompletedTask : Task.Delay(TimeSpan.FromSeconds(seconds), _time, ct);
+
+    internal double StoreSeconds => _timing.UnitStoreSeconds;
+
+    internal DateTimeOffset Now => _time.GetUtcNow();
+
+    private async Task<double> ReadReferenceAsync(CancellationToken ct)
+    {
+        await DelayAsync(_timing.ReferenceReadSeconds, ct).ConfigureAwait(false);
+        double raw;
+        try
+        {
+            raw = await _rig.Reference.ReadRawAsync(ct).ConfigureAwait(false);
+        }
+        catch (InstrumentFaultException ex)
+        {
+            throw new BatchFaultException($"reference thermometer lost: {ex.Message}", ex);
+        }
+
+        var celsius = _referenceToCelsius(raw);
+        if (!double.IsFinite(celsius))
+        {
+            throw new BatchFaultException(
+                $"the reference readout gave {F(raw)}, which is not a temperature the reference sensor can have: check the reference probe and its wiring");
+        }
+
+        return celsius;
+    }
+
+    private async Task<double> ReadMeterAsync(int channel, CancellationToken ct)
+    {
+        await DelayAsync(_timing.MeterReadSeconds, ct).ConfigureAwait(false);
+        try
+        {
+            var volts = await _rig.Meter.ReadDcVoltsAsync(channel, ct).ConfigureAwait(false);
+            if (!double.IsFinite(volts))
+            {
+                throw new BatchFaultException($"the meter returned a non-numeric reading on channel {channel}");
+            }
+
+            return volts;
+        }
+        catch (InstrumentFaultException ex)
+        {
+            throw new BatchFaultException($"voltmeter lost: {ex.Message}", ex);
+        }
+    }
+
+    private async Task SourceAsync(Func<CancellationToken, Task> call, CancellationToken ct)
+    {
+        try
+        {
+            await call(ct).ConfigureAwait(false);
+        }
+        catch (InstrumentFaultException ex)
+        {
+            throw new BatchFaultException($"temperature source lost: {ex.Message}", ex);
+        }
+    }
+
+    /// <summary>Standard uncertainty of the meter for a reading, from its specification as a rectangular half-width (JCGM 100:2008 §4.3.7).</summary>
+    private double MeterStandardUncertaintyVolts(double volts)
+    {
+        var meter = _fixture.Meter;
+        var halfWidth = meter.AccuracyPercentOfReading / 100.0 * Math.Abs(volts) + meter.AccuracyOffsetVolts;
+        var resolution = meter.ResolutionVolts / (2 * Math.Sqrt(3));
+        return Math.Sqrt(Square(halfWidth / Math.Sqrt(3)) + Square(resolution));
+    }
+
+    /// <summary>Reference standard uncertainty: certificate U/k and Type A of the mean (JCGM 100:2008 §4.2, §4.3).</summary>
+    private double ReferenceStandardUncertaintyC(double[] references)
+    {
+        var reference = _fixture.Reference;
+        var certificate = reference.CertificateExpandedUncertaintyC / reference.CertificateCoverageFactor;
+        return Math.Sqrt(Square(certificate) + Square(StandardError(references)));
+    }
+
+    /// <summary>Type A standard uncertainty of the mean, s/√n (JCGM 100:2008 §4.2.3); zero for a single sample.</summary>
+    private static double StandardError(double[] samples)
+    {
+        if (samples.Length < 2)
+        {
+            return 0;
+        }
+
+        var mean = samples.Average();
+        var ss = samples.Sum(x => Square(x - mean));
+        return Math.Sqrt(ss / (samples.Length - 1) / samples.Length);
+    }
+
+    private static double Square(double x) => x * x;
+
+    private SlotDefinition SlotOf(UnitContext unit) => _fixture.Slots.First(s => s.Slot == unit.Slot);
+
+    private async Task EndRejectedAsync(BatchState batch)
+    {
+        if (!batch.Request.Sequence.StopOnFail)
+        {
+            return;
+        }
+
+        foreach (var unit in batch.Active)
+        {
+            if (unit.FirstFailingReading is not null)
+            {
+                unit.Machine.Reject(unit.FirstFailureReason ?? unit.FirstFailingReading);
+                await FinishAsync(batch, unit).ConfigureAwait(false);
+            }
+        }
+    }
+
+    private async Task EndAllAsync(BatchState batch, Action<UnitContext> end)
+    {
+        foreach (var unit in batch.Active)
+        {
+            end(unit);
+            await FinishAsync(batch, unit).ConfigureAwait(false);
+        }
+    }
+
+    internal async Task FinishAsync(BatchState batch, UnitContext unit)
+    {
+        var request = batch.Request;
+        var verdict = unit.Machine.State switch
+        {
+            Core.Units.UnitState.Passed => Verdict.Pass,
+            Core.Units.UnitState.Failed => Verdict.Fail,
+            _ => Verdict.Error,
+        };
+        var record = new RunRecord
+        {
+            Id = Guid.CreateVersion7(_time.GetUtcNow()),
+            Serial = unit.Serial,
+            Product = request.Sequence.Product,
+            SequenceId = request.Sequence.Id,
+            SequenceRevision = request.Sequence.Revision,
+            SequenceSha256 = request.SequenceSha256,
+            Station = request.Station,
+            Fixture = _fixture.Id,
+            Slot = unit.Slot,
+            Operator = request.Operator,
+            Lot = request.Lot,
+            BatchId = batch.Id,
+            Mode = request.Mode,
+            StartedUtc = unit.Started,
+            EndedUtc = _time.GetUtcNow(),
+            Verdict = verdict,
+            Reason = verdict == Verdict.Pass ? null : unit.Machine.Reason,
+            FirstFailingReading = unit.FirstFailingReading,
+            Readings = unit.Readings.ToList(),
+            Trim = unit.Trim,
+            Setpoints = unit.Setpoints.ToList(),
+            Firmware = unit.Firmware,
+        };
+        unit.Record = record;
+        try
+        {
+            await _sink.RunEndedAsync(record, CancellationToken.None).ConfigureAwait(false);
+        }
+        catch (Exception ex) when (ex is not OperationCanceledException)
+        {
+            RuntimeLog.StoreFailed(_logger, unit.Serial, ex.Message);
+            throw new RunStorageException($"the run of {unit.Serial} could not be stored: {ex.Message}", ex);
+        }
+
+        RuntimeLog.RunEnded(_logger, record.Serial, record.Slot, verdict.ToWord(), record.Reason, record.Id,
+            record.SequenceId, record.SequenceRevision, record.Station, record.BatchId);
+        Notify(batch, unit);
+        _observer.UnitFinished(record);
+    }
+
+    private void Notify(BatchState batch, UnitContext unit) =>
+        _observer.UnitChanged(unit.Slot, unit.Serial, unit.Machine.State, unit.CurrentStep, unit.StepIndex, batch.Request.Sequence.Steps.Count);
+
+    private static string F(double value) => value.ToString("0.###", CultureInfo.InvariantCulture);
+}

@@ -1,0 +1,27 @@
+using LineTest.Core.Results;
+
+namespace LineTest.Runtime.Batches;
+
+/// <summary>The state of one running batch.</summary>
+internal sealed class BatchState
+{
+    public BatchState(BatchRequest request, DateTimeOffset started)
+    {
+        Request = request;
+        Started = started;
+        Id = request.BatchId ?? $"B{started:yyyyMMdd'T'HHmmss}-{Guid.NewGuid().ToString("N")[..6]}";
+    }
+
+    public BatchRequest Request { get; }
+
+    public DateTimeOffset Started { get; }
+
+    public string Id { get; }
+
+    public List<UnitContext> Units { get; } = [];
+
+    public List<SetpointRecord> SetpointHistory { get; } = [];
+
+    /// <summary>Units still in progress, in slot order (a fresh list each time: callers may end units while iterating).</summary>
+    public IReadOnlyList<UnitContext> Active => Units.Where(u => !u.IsFinished).OrderBy(u => u.Slot).ToList();
+}

@@ -1,0 +1,61 @@
+using LineTest.Core.Results;
+using LineTest.Core.Units;
+
+namespace LineTest.Runtime.Batches;
+
+/// <summary>Everything the coordinator knows about one unit during its run. Touched only by the coordinator's loop.</summary>
+internal sealed class UnitContext
+{
+    public UnitContext(SlotLoad load, DateTimeOffset started)
+    {
+        Load = load;
+        Started = started;
+    }
+
+    public SlotLoad Load { get; }
+
+    public int Slot => Load.Slot;
+
+    public string Serial => Load.Serial;
+
+    public UnitStateMachine Machine { get; } = new();
+
+    public DateTimeOffset Started { get; }
+
+    public List<Reading> Readings { get; } = [];
+
+    public List<SetpointRecord> Setpoints { get; } = [];
+
+    /// <summary>Calibration points by setpoint name: mean reference °C and mean unit output.</summary>
+    public Dictionary<string, (double ReferenceC, double Output)> CalibrationPoints { get; } = new(StringComparer.Ordinal);
+
+    /// <summary>Trim register values currently in the unit (nominal until written).</summary>
+    public Dictionary<string, long> Registers { get; } = new(StringComparer.Ordinal);
+
+    public TrimRecord? Trim { get; set; }
+
+    public string? Firmware { get; set; }
+
+    public string? FirstFailingReading { get; set; }
+
+    public string? FirstFailureReason { get; set; }
+
+    public string CurrentStep { get; set; } = "loaded";
+
+    public int StepIndex { get; set; }
+
+    public RunRecord? Record { get; set; }
+
+    public bool IsFinished => Machine.IsFinished;
+
+    /// <summary>Adds a reading; remembers the first failing one.</summary>
+    public void Add(Reading reading)
+    {
+        Readings.Add(reading);
+        if (reading.Verdict != Verdict.Pass && FirstFailingReading is null)
+        {
+            FirstFailingReading = reading.Name;
+            FirstFailureReason = reading.Note ?? ReadingText.Describe(reading);
+        }
+    }
+}
