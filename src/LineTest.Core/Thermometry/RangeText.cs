@@ -1,0 +1,32 @@
+using System.Globalization;
+
+namespace LineTest.Core.Thermometry;
+
+/// <summary>Formats numbers and ranges in the failure messages of the sensors (invariant culture).</summary>
+internal static class RangeText
+{
+    public static string Number(double value) =>
+        double.IsFinite(value) ? value.ToString("0.####", CultureInfo.InvariantCulture) : value.ToString(CultureInfo.InvariantCulture);
+
+    public static string Unit(string rawUnit) => rawUnit switch
+    {
+        RawUnits.Ohm => "Ω",
+        RawUnits.Celsius => "°C",
+        _ => rawUnit,
+    };
+
+    public static ConversionResult TemperatureOutOfRange(IReferenceSensor sensor, double celsius) =>
+        ConversionResult.Failure(
+            $"temperature {Number(celsius)} °C is outside the valid range {Number(sensor.MinC)} … {Number(sensor.MaxC)} °C of {sensor.Name}");
+
+    public static ConversionResult RawOutOfRange(IReferenceSensor sensor, string quantity, double raw, double rawLow, double rawHigh)
+    {
+        var unit = Unit(sensor.RawUnit);
+        return ConversionResult.Failure(
+            $"{quantity} {Number(raw)} {unit} is outside the valid range {Number(rawLow)} … {Number(rawHigh)} {unit} " +
+            $"({Number(sensor.MinC)} … {Number(sensor.MaxC)} °C) of {sensor.Name}");
+    }
+
+    public static ConversionResult NotANumber(IReferenceSensor sensor, string quantity) =>
+        ConversionResult.Failure($"{quantity} is not a finite number; {sensor.Name} needs a value in {Unit(sensor.RawUnit)}");
+}
