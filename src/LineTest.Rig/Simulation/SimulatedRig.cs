@@ -1,0 +1,182 @@
+using LineTest.Core.Fixtures;
+using LineTest.Rig.Instruments;
+
+namespace LineTest.Rig.Simulation;
+
+/// <summary>
+/// The built-in simulated rig of one fixture: a dry block, a reference readout in its reference well, a scanning
+/// voltmeter wired to every slot's output and supply shunt, and a unit link per slot. Units are loaded and unloaded
+/// by the caller (the simulated operator); instrument faults can be injected on demand.
+/// </summary>
+/// <remarks>
+/// Everything is repeatable for a given seed and sequence of calls: each component draws from its own
+/// <see cref="Random"/> seeded from <c>seed</c>. The rig never waits on a timer; all dynamics are computed from
+/// the <see cref="TimeProvider"/>'s clock, normally a <see cref="VirtualTimeProvider"/>.
+/// </remarks>
+public sealed class SimulatedRig
+{
+    /// <summary>Room temperature, °C: where a freshly loaded unit's sensor starts, and where a block without heating drifts.</summary>
+    public const double DefaultAmbientC = 23.0;
+
+    private readonly IReadOnlyDictionary<int, SimulatedSlot> _slots;
+    private readonly Dictionary<int, SimulatedUnitLink> _links;
+
+    /// <summary>Builds the rig of <paramref name="fixture"/>.</summary>
+    /// <param name="fixture">The fixture; its <see cref="FixtureDefinition.Simulation"/> (or the defaults) gives the physics.</param>
+    /// <param name="seed">Seed for every noise source of the rig.</param>
+    /// <param name="timeProvider">The clock, normally a <see cref="VirtualTimeProvider"/>.</param>
+    /// <param name="celsiusToRaw">The reference sensor's raw quantity as a function of °C (e.g. its Callendar–Van Dusen resistance).</param>
+    public SimulatedRig(FixtureDefinition fixture, int seed, TimeProvider timeProvider, Func<double, double> celsiusToRaw)
+    {
+        ArgumentNullException.ThrowIfNull(fixture);
+        ArgumentNullException.ThrowIfNull(timeProvider);
+        ArgumentNullException.ThrowIfNull(celsiusToRaw);
+        ValidateWiring(fixture);
+
+        Fixture = fixture;
+        Simulation = fixture.Simulation ?? new SimulationDefinition();
+        TimeProvider = timeProvider;
+        var seeds = new Random(seed);
+        Block = new SimulatedDryBlock(fixture.Source, Simulation, timeProvider, seeds.Next());
+        Reference = new SimulatedReferenceReadout(Block, celsiusToRaw, fixture.Reference.ReadoutResolution, timeProvider, seeds.Next());
+        _slots = fixture.Slots.ToDictionary(s => s.Slot, s => new SimulatedSlot(s, Block, timeProvider));
+        Meter = new SimulatedVoltmeter(fixture.Meter, _slots.Values, seeds.Next());
+        _links = _slots.ToDictionary(p => p.Key, p => new SimulatedUnitLink(p.Value));
+        Instruments = new RigInstruments(Block, Reference, Meter, _links.ToDictionary(p => p.Key, p => (IUnitLink)p.Value));
+    }
+
+    /// <summary>The fixture the rig was built from.</summary>
+    public FixtureDefinition Fixture { get; }
+
+    /// <summary>The simulation parameters in use (the fixture's, or the defaults).</summary>
+    public SimulationDefinition Simulation { get; }
+
+    /// <summary>The rig's clock.</summary>
+    public TimeProvider TimeProvider { get; }
+
+    /// <summary>The dry block (also the rig's temperature source).</summary>
+    public SimulatedDryBlock Block { get; }
+
+    /// <summary>The reference readout.</summary>
+    public SimulatedReferenceReadout Reference { get; }
+
+    /// <summary>The voltmeter.</summary>
+    public SimulatedVoltmeter Meter { get; }
+
+    /// <summary>Each slot's unit link, keyed by slot number.</summary>
+    public IReadOnlyDictionary<int, SimulatedUnitLink> UnitLinks => _links;
+
+    /// <summary>The instruments as the runtime sees them.</summary>
+    public RigInstruments Instruments { get; }
+
+    /// <summary>Puts <paramref name="unit"/> into <paramref name="slot"/>; its sensor starts at <see cref="DefaultAmbientC"/>.</summary>
+    /// <exception cref="ArgumentOutOfRangeException">The fixture has no such slot.</exception>
+    /// <exception cref="InvalidOperationException">The slot is occupied, or the unit is already in another slot.</exception>
+    public void Load(int slot, SimulatedUnit unit)
+    {
+        ArgumentNullException.ThrowIfNull(unit);
+        var target = SlotOf(slot);
+        foreach (var other in _slots.Values)
+        {
+            if (ReferenceEquals(other.Unit, unit))
+            {
+                throw new InvalidOperationException($"Unit {unit.Serial} is already in slot {other.Definition.Slot}.");
+            }
+        }
+
+        target.Load(unit, DefaultAmbientC);
+    }
+
+    /// <summary>Takes the unit out of <paramref name="slot"/> and returns it (null if the slot was empty).</summary>
+    public SimulatedUnit? Unload(int slot) => SlotOf(slot).Unload();
+
+    /// <summary>The unit in <paramref name="slot"/>, or null.</summary>
+    public SimulatedUnit? UnitIn(int slot) => SlotOf(slot).Unit;
+
+    /// <summary>
+    /// Injects a fault. Command-counted faults hold from the (<see cref="RigFault.AfterCommands"/> + 1)-th command to
+    /// the affected instrument on; a heater fault and a reference drift start now. Faults stay until
+    /// <see cref="ClearFaults"/>.
+    /// </summary>
+    public void InjectFault(RigFault fault)
+    {
+        ArgumentNullException.ThrowIfNull(fault);
+        switch (fault.Kind)
+        {
+            case RigFaultKind.MeterSilent or RigFaultKind.MeterGarbage or RigFaultKind.MeterPortLost:
+                Meter.ArmFault(fault);
+                break;
+            case RigFaultKind.SourceSilent or RigFaultKind.SourceHeaterFault:
+                Block.ArmFault(fault);
+                break;
+            case RigFaultKind.ReferenceSilent or RigFaultKind.ReferenceDrift:
+                Reference.ArmFault(fault);
+                break;
+            case RigFaultKind.UnitSilent or RigFaultKind.UnitGarbage:
+                var slot = SlotOf(fault.Slot ?? throw new ArgumentException("A unit fault needs a slot.", nameof(fault)));
+                lock (slot.Gate)
+                {
+                    slot.LinkFaults.Arm(fault);
+                }
+
+                break;
+            default:
+                throw new ArgumentOutOfRangeException(nameof(fault), fault.Kind, "Unknown fault kind.");
+        }
+    }
+
+    /// <summary>Removes every injected fault (a heater fault is repaired; the block holds its present course until the next setpoint).</summary>
+    public void ClearFaults()
+    {
+        Meter.ClearFaults();
+        Block.ClearFaults();
+        Reference.ClearFaults();
+        foreach (var slot in _slots.Values)
+        {
+            lock (slot.Gate)
+            {
+                slot.LinkFaults.Clear();
+            }
+        }
+    }
+
+    private static void ValidateWiring(FixtureDefinition fixture)
+    {
+        ArgumentNullException.ThrowIfNull(fixture.Source);
+        ArgumentNullException.ThrowIfNull(fixture.Reference);
+        ArgumentNullException.ThrowIfNull(fixture.Meter);
+        ArgumentNullException.ThrowIfNull(fixture.Slots);
+        var slotNumbers = new HashSet<int>();
+        var channels = new Dictionary<int, string>();
+        foreach (var slot in fixture.Slots)
+        {
+            if (slot.Slot < 1 || !slotNumbers.Add(slot.Slot))
+            {
+                throw new ArgumentException($"Fixture '{fixture.Id}': slot number {slot.Slot} is not positive or appears twice.", nameof(fixture));
+            }
+
+            if (!(slot.SupplyShuntOhms > 0))
+            {
+                throw new ArgumentException($"Fixture '{fixture.Id}': slot {slot.Slot} needs a positive supplyShuntOhms.", nameof(fixture));
+            }
+
+            foreach (var (channel, role) in new[] { (slot.OutputChannel, "output"), (slot.SupplyChannel, "supply") })
+            {
+                if (channel < 1)
+                {
+                    throw new ArgumentException($"Fixture '{fixture.Id}': slot {slot.Slot} {role} channel {channel} is not a meter channel (channels start at 1).", nameof(fixture));
+                }
+
+                if (!channels.TryAdd(channel, $"slot {slot.Slot} {role}"))
+                {
+                    throw new ArgumentException($"Fixture '{fixture.Id}': meter channel {channel} is wired twice ({channels[channel]} and slot {slot.Slot} {role}).", nameof(fixture));
+                }
+            }
+        }
+    }
+
+    private SimulatedSlot SlotOf(int slot)
+        => _slots.TryGetValue(slot, out var found)
+            ? found
+            : throw new ArgumentOutOfRangeException(nameof(slot), slot, $"Fixture '{Fixture.Id}' has no slot {slot}.");
+}

@@ -1,0 +1,118 @@
+using System.Globalization;
+using LineTest.Core.Fixtures;
+
+namespace LineTest.Rig.Simulation;
+
+/// <summary>
+/// A repeatable stream of simulated units: the same seed, simulation parameters and design give the same parts, in
+/// the same order, with the same serials. Each part's components are drawn from its own sub-seed, so forcing a
+/// defect on a part does not change the parts that follow.
+/// </summary>
+/// <remarks>Not thread-safe: one producer draws from a factory.</remarks>
+public sealed class SimulatedUnitFactory
+{
+    private const int MaxCounter = 999_999;
+
+    private readonly Random _stream;
+    private readonly SimulationDefinition _simulation;
+    private readonly SimulatedUnitDesign _design;
+    private readonly SiliconDiode _nominalDiode;
+    private readonly int _yearWeek;
+    private int _nextCounter;
+
+    /// <summary>Creates a factory.</summary>
+    /// <param name="seed">Seed of the whole stream.</param>
+    /// <param name="simulation">Unit lag and its spread, output noise, defect rate.</param>
+    /// <param name="design">The design the parts are built to.</param>
+    /// <param name="yearWeek">Year and ISO week of manufacture in the serial, YYWW (e.g. 2612).</param>
+    /// <param name="firstCounter">Counter of the first serial (1…999999), so several factories can share a week without clashing.</param>
+    public SimulatedUnitFactory(int seed, SimulationDefinition simulation, SimulatedUnitDesign design, int yearWeek = 2612, int firstCounter = 1)
+    {
+        ArgumentNullException.ThrowIfNull(simulation);
+        ArgumentNullException.ThrowIfNull(design);
+        var week = yearWeek % 100;
+        if (yearWeek is < 0 or > 9999 || week is < 1 or > 53)
+        {
+            throw new ArgumentOutOfRangeException(nameof(yearWeek), yearWeek, "yearWeek is YYWW with week 01…53, e.g. 2612.");
+        }
+
+        ArgumentOutOfRangeException.ThrowIfLessThan(firstCounter, 1);
+        ArgumentOutOfRangeException.ThrowIfGreaterThan(firstCounter, MaxCounter);
+        if (!double.IsFinite(simulation.DefectRate) || simulation.DefectRate is < 0 or > 1)
+        {
+            throw new ArgumentOutOfRangeException(nameof(simulation), simulation.DefectRate, "simulation.defectRate must be a share between 0 and 1.");
+        }
+
+        if (!(simulation.UnitLagTimeConstantSeconds > 0) || !double.IsFinite(simulation.UnitLagTimeConstantSeconds))
+        {
+            throw new ArgumentOutOfRangeException(nameof(simulation), simulation.UnitLagTimeConstantSeconds, "simulation.unitLagTimeConstantSeconds must be a positive number of seconds.");
+        }
+
+        if (!double.IsFinite(simulation.UnitLagSpread) || simulation.UnitLagSpread < 0
+            || !double.IsFinite(simulation.UnitOutputNoiseVolts) || simulation.UnitOutputNoiseVolts < 0)
+        {
+            throw new ArgumentOutOfRangeException(nameof(simulation), "simulation.unitLagSpread and simulation.unitOutputNoiseVolts must be zero or positive.");
+        }
+
+        _stream = new Random(seed);
+        _simulation = simulation;
+        _design = design;
+        _nominalDiode = design.NominalDiode();
+        _yearWeek = yearWeek;
+        _nextCounter = firstCounter;
+    }
+
+    /// <summary>The next part; defective with probability <see cref="SimulationDefinition.DefectRate"/>, the kind chosen evenly.</summary>
+    public SimulatedUnit NextUnit()
+    {
+        var isDefective = _stream.NextDouble() < _simulation.DefectRate;
+        var kind = _stream.Next(3);
+        var defect = !isDefective ? UnitDefect.None : kind switch
+        {
+            0 => UnitDefect.OpenSensor,
+            1 => UnitDefect.StuckDac,
+            _ => UnitDefect.Silent,
+        };
+        return Build(defect);
+    }
+
+    /// <summary>The next part with the given defect (or none), for tests and demonstrations.</summary>
+    public SimulatedUnit NextUnit(UnitDefect defect)
+    {
+        // Draw the same two numbers as NextUnit so the stream stays aligned whichever method is used.
+        _stream.NextDouble();
+        _stream.Next(3);
+        return Build(defect);
+    }
+
+    private SimulatedUnit Build(UnitDefect defect)
+    {
+        if (_nextCounter > MaxCounter)
+        {
+            throw new InvalidOperationException($"The serial counter of week {_yearWeek:D4} is exhausted after {MaxCounter} units.");
+        }
+
+        var serial = string.Create(CultureInfo.InvariantCulture, $"{_design.SerialPrefix}-{_yearWeek:D4}-{_nextCounter:D6}");
+        _nextCounter++;
+        var partSeed = _stream.Next();
+        var noiseSeed = _stream.Next();
+        var part = new Random(partSeed);
+        var d = _design;
+
+        // ±2σ truncation keeps every part inside the design's stated limits (e.g. gain ±3 %, e_in ±5 mV).
+        var diode = new SiliconDiode(
+            part.NextLogNormal(_nominalDiode.SaturationCurrentAtT0Amps, d.SaturationCurrentLogSpread),
+            part.NextTruncatedNormal(d.IdealityNominal, d.IdealitySpread, d.IdealityMin, d.IdealityMax),
+            d.SeriesResistanceOhms * part.NextTruncatedNormal(1, d.SeriesResistanceSpread, 1 - (2 * d.SeriesResistanceSpread), 1 + (2 * d.SeriesResistanceSpread)));
+        var parameters = new SimulatedUnitParameters(
+            Diode: diode,
+            DesignGain: d.DesignGain * part.NextTruncatedNormal(1, d.DesignGainSpread, 1 - (2 * d.DesignGainSpread), 1 + (2 * d.DesignGainSpread)),
+            InputOffsetVolts: part.NextTruncatedNormal(0, d.InputOffsetSpreadVolts, -2 * d.InputOffsetSpreadVolts, 2 * d.InputOffsetSpreadVolts),
+            GainStepPerCode: d.GainStepPerCode * part.NextTruncatedNormal(1, d.DacStepSpread, 1 - (2 * d.DacStepSpread), 1 + (2 * d.DacStepSpread)),
+            OffsetStepVolts: d.OffsetStepVolts * part.NextTruncatedNormal(1, d.DacStepSpread, 1 - (2 * d.DacStepSpread), 1 + (2 * d.DacStepSpread)),
+            LagTimeConstantSeconds: part.NextLogNormal(_simulation.UnitLagTimeConstantSeconds, _simulation.UnitLagSpread),
+            SupplyCurrentAmps: part.NextNormal(d.SupplyCurrentAmps, d.SupplyCurrentSpreadAmps),
+            OpenRailVolts: d.OutputMaxVolts - (0.01 * part.NextDouble()));
+        return new SimulatedUnit(serial, d, parameters, defect, _simulation.UnitOutputNoiseVolts, noiseSeed);
+    }
+}

@@ -1,0 +1,20 @@
+namespace LineTest.Rig.Simulation;
+
+/// <summary>The actual component values of one simulated part, drawn around its design values.</summary>
+/// <param name="Diode">The sensing diode (its I_s, n and R_s).</param>
+/// <param name="DesignGain">Actual amplifier gain at the nominal gain code.</param>
+/// <param name="InputOffsetVolts">Amplifier input offset e_in, volts.</param>
+/// <param name="GainStepPerCode">Actual fractional gain change per gain code.</param>
+/// <param name="OffsetStepVolts">Actual output change per offset code, volts.</param>
+/// <param name="LagTimeConstantSeconds">Time constant with which the sensor follows its well, seconds.</param>
+/// <param name="SupplyCurrentAmps">Supply current, amperes.</param>
+/// <param name="OpenRailVolts">Where the output rails if the sensor is open, volts.</param>
+public sealed record SimulatedUnitParameters(
+    SiliconDiode Diode,
+    double DesignGain,
+    double InputOffsetVolts,
+    double GainStepPerCode,
+    double OffsetStepVolts,
+    double LagTimeConstantSeconds,
+    double SupplyCurrentAmps,
+    double OpenRailVolts);
