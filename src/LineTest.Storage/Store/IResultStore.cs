@@ -1,0 +1,23 @@
+using LineTest.Core.Results;
+
+namespace LineTest.Storage.Store;
+
+/// <summary>
+/// Where finished runs go. The runtime calls <see cref="AppendAsync"/> once per run, the moment the run ends.
+/// </summary>
+/// <remarks>
+/// Failure policy: a result store is an audit destination. When a run cannot be stored durably the
+/// implementation throws <see cref="ResultStoreException"/> with a plain message, and the runtime stops
+/// taking new units until an operator or engineer has fixed the cause. Implementations are safe to call
+/// from several threads; writes are serialised.
+/// </remarks>
+public interface IResultStore : IAsyncDisposable
+{
+    /// <summary>
+    /// Stores one finished run and all its readings. When the returned task completes the run is on disk.
+    /// </summary>
+    /// <param name="run">The finished run.</param>
+    /// <param name="ct">Cancels waiting for the writer; a write that has started is always finished.</param>
+    /// <exception cref="ResultStoreException">The run could not be stored (disk full, read-only, locked, ...).</exception>
+    Task AppendAsync(RunRecord run, CancellationToken ct);
+}
