@@ -1,3 +1,5 @@
+using System.Text.Json.Serialization;
+
 namespace LineTest.Core.Fixtures;
 
 /// <summary>
@@ -7,6 +9,10 @@ namespace LineTest.Core.Fixtures;
 /// </summary>
 public sealed record FixtureDefinition
 {
+    /// <summary>Editor schema reference; ignored by the station.</summary>
+    [JsonPropertyName("$schema")]
+    public string? Schema { get; init; }
+
     /// <summary>Stable fixture id, stored with every run.</summary>
     public required string Id { get; init; }
 

@@ -1,3 +1,5 @@
+using System.Text.Json.Serialization;
+
 namespace LineTest.Core.Sequences;
 
 /// <summary>
@@ -7,6 +9,7 @@ namespace LineTest.Core.Sequences;
 public sealed record SettleStep : StepDefinition
 {
     /// <inheritdoc />
+    [JsonIgnore]
     public override string Kind => "settle";
 
     /// <summary>Name of a setpoint of the sequence.</summary>

@@ -1,3 +1,5 @@
+using System.Text.Json.Serialization;
+
 namespace LineTest.Core.Sequences;
 
 /// <summary>
@@ -7,6 +9,7 @@ namespace LineTest.Core.Sequences;
 public sealed record TrimStep : StepDefinition
 {
     /// <inheritdoc />
+    [JsonIgnore]
     public override string Kind => "trim";
 
     /// <summary>Setpoints whose measure steps supply the calibration points (two or more).</summary>

@@ -1,3 +1,5 @@
+using System.Text.Json.Serialization;
+
 namespace LineTest.Core.Sequences;
 
 /// <summary>
@@ -7,6 +9,7 @@ namespace LineTest.Core.Sequences;
 public sealed record VerifyStep : StepDefinition
 {
     /// <inheritdoc />
+    [JsonIgnore]
     public override string Kind => "verify";
 
     /// <summary>The setpoint the source must be settled at.</summary>

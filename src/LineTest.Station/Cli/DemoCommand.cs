@@ -1,0 +1,125 @@
+using System.CommandLine;
+using System.Globalization;
+using System.Text.Json;
+using LineTest.Core.Results;
+using LineTest.Runtime.Batches;
+using LineTest.Station.Composition;
+using LineTest.Station.Demo;
+using LineTest.Storage.Store;
+
+namespace LineTest.Station.Cli;
+
+/// <summary><c>linetest demo</c>: a simulated production shift in accelerated time.</summary>
+public static class DemoCommand
+{
+    /// <summary>Builds the command.</summary>
+    public static Command Create(CliContext context)
+    {
+        ArgumentNullException.ThrowIfNull(context);
+        var units = new Option<int>("--units") { Description = "Units to test", DefaultValueFactory = _ => 48 };
+        var slots = new Option<int>("--slots") { Description = "Slots used per batch", DefaultValueFactory = _ => 4 };
+        var seed = new Option<int>("--seed") { Description = "Simulator seed (same seed, same units and verdicts)", DefaultValueFactory = _ => 4040 };
+        var results = new Option<string>("--results") { Description = "Results folder (results.db is appended to)", DefaultValueFactory = _ => "results" };
+        var json = new Option<bool>("--json") { Description = "Print the summary as one JSON object" };
+        var sequence = new Option<string?>("--sequence") { Description = "Sequence file (default: the station's)" };
+        var fixture = new Option<string?>("--fixture") { Description = "Simulated fixture file (default: the station's)" };
+        var lot = new Option<string?>("--lot") { Description = "Lot stored with every run" };
+        var command = new Command("demo", "Run a simulated production shift on the built-in simulator")
+        {
+            units, slots, seed, results, json, sequence, fixture, lot,
+        };
+        command.SetAction(async (parse, ct) =>
+        {
+            var options = context.Options;
+            var fixturePath = parse.GetValue(fixture) is { } f ? Path.GetFullPath(f) : ContentRoot.Resolve(context.Root, options.Fixture);
+            var sequencePath = parse.GetValue(sequence) is { } s ? Path.GetFullPath(s) : ContentRoot.Resolve(context.Root, options.Sequence);
+            var unitCount = parse.GetValue(units);
+            var slotCount = parse.GetValue(slots);
+            if (unitCount < 1)
+            {
+                return context.BadInput($"--units must be 1 or more, not {unitCount}");
+            }
+
+            var fixtureResult = DefinitionFiles.LoadFixture(fixturePath, context.Error);
+            if (!fixtureResult.IsSuccess)
+            {
+                return ExitCodes.BadInput;
+            }
+
+            var fx = fixtureResult.Value;
+            if (fx.Rig != "simulator")
+            {
+                return context.BadInput($"fixture '{fx.Id}' drives real instruments; demo needs a simulator fixture");
+            }
+
+            if (slotCount < 1 || slotCount > fx.Slots.Count)
+            {
+                return context.BadInput($"--slots must be between 1 and {fx.Slots.Count} (the slots of fixture '{fx.Id}'), not {slotCount}");
+            }
+
+            var sequenceResult = DefinitionFiles.LoadSequence(sequencePath, fx, context.Error);
+            if (!sequenceResult.IsSuccess)
+            {
+                return ExitCodes.BadInput;
+            }
+
+            var asJson = parse.GetValue(json);
+            var lines = asJson ? context.Error : context.Output;
+            var shift = new SimulatedShift(
+                new ShiftOptions
+                {
+                    Fixture = fx,
+                    Sequence = sequenceResult.Value,
+                    SequenceSha256 = sequenceResult.Sha256,
+                    Units = unitCount,
+                    Slots = slotCount,
+                    Seed = parse.GetValue(seed),
+                    ResultsDirectory = Path.GetFullPath(parse.GetValue(results)!),
+                    Station = options.Id,
+                    Lot = parse.GetValue(lot) ?? options.Lot,
+                },
+                context.Loggers);
+            ShiftSummary summary;
+            try
+            {
+                summary = await shift.RunAsync(run => lines.WriteLine(UnitLine(run)), ct).ConfigureAwait(false);
+            }
+            catch (Exception ex) when (ex is ResultStoreException or RunStorageException)
+            {
+                context.Error.WriteLine($"linetest: results could not be stored, the shift was stopped: {ex.Message}");
+                return ExitCodes.RuntimeFailure;
+            }
+
+            if (asJson)
+            {
+                context.Output.WriteLine(JsonSerializer.Serialize(summary));
+            }
+            else
+            {
+                WriteSummary(context.Output, summary);
+            }
+
+            return ExitCodes.Done;
+        });
+        return command;
+    }
+
+    /// <summary>One line per unit: serial, slot, verdict and the reason for a failure.</summary>
+    public static string UnitLine(RunRecord run)
+    {
+        ArgumentNullException.ThrowIfNull(run);
+        var line = string.Create(CultureInfo.InvariantCulture, $"{run.Serial,-20} slot {run.Slot}  {run.Verdict.ToWord().ToUpperInvariant(),-5}");
+        return run.Reason is null ? line : $"{line}  {run.Reason}";
+    }
+
+    private static void WriteSummary(TextWriter output, ShiftSummary s)
+    {
+        var inv = CultureInfo.InvariantCulture;
+        output.WriteLine();
+        output.WriteLine(string.Create(inv, $"Units {s.Units}: {s.Pass} pass, {s.Fail} fail, {s.Error} error"));
+        output.WriteLine(string.Create(inv, $"First-pass yield {s.FirstPassYield * 100:F1} %"));
+        var sim = TimeSpan.FromSeconds(s.SimulatedSeconds);
+        output.WriteLine(string.Create(inv, $"Simulated time {(int)sim.TotalHours} h {sim.Minutes:D2} min ({s.SimulatedSeconds:F0} s), wall time {s.WallSeconds:F1} s"));
+        output.WriteLine($"Results appended to {s.ResultsPath}");
+    }
+}

@@ -1,0 +1,48 @@
+using System.CommandLine;
+using LineTest.Station.Hosting;
+using Microsoft.Extensions.Configuration;
+using Microsoft.Extensions.DependencyInjection;
+using Microsoft.Extensions.Hosting;
+using Serilog;
+
+namespace LineTest.Station.Cli;
+
+/// <summary><c>linetest run</c>: the hosted station, configured from appsettings.json.</summary>
+public static class RunCommand
+{
+    /// <summary>Builds the command.</summary>
+    public static Command Create(CliContext context)
+    {
+        ArgumentNullException.ThrowIfNull(context);
+        var command = new Command("run", "Start the station from appsettings.json (serials typed or scanned on the keyboard)");
+        command.SetAction(async (parse, ct) =>
+        {
+            var problems = context.Options.Validate();
+            if (problems.Count > 0)
+            {
+                foreach (var problem in problems)
+                {
+                    context.Error.WriteLine($"linetest: appsettings.json: {problem}");
+                }
+
+                return ExitCodes.BadInput;
+            }
+
+            var builder = Host.CreateApplicationBuilder(new HostApplicationBuilderSettings
+            {
+                ContentRootPath = context.Root,
+                Configuration = new Microsoft.Extensions.Configuration.ConfigurationManager(),
+                DisableDefaults = true,
+            });
+            builder.Configuration.AddConfiguration(context.Configuration);
+            builder.Services.AddSerilog(Log.Logger, dispose: false);
+            builder.Services.AddSingleton(new StationServiceContext(context.Root, context.Options, Console.In, context.Output, context.Error));
+            builder.Services.AddSingleton<StationService>();
+            builder.Services.AddHostedService(sp => sp.GetRequiredService<StationService>());
+            using var host = builder.Build();
+            await host.RunAsync(ct).ConfigureAwait(false);
+            return host.Services.GetRequiredService<StationService>().ExitCode;
+        });
+        return command;
+    }
+}

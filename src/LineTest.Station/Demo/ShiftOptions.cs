@@ -1,0 +1,41 @@
+using LineTest.Core.Fixtures;
+using LineTest.Core.Sequences;
+
+namespace LineTest.Station.Demo;
+
+/// <summary>What a simulated shift runs.</summary>
+public sealed record ShiftOptions
+{
+    /// <summary>The checked fixture (must be a simulator fixture).</summary>
+    public required FixtureDefinition Fixture { get; init; }
+
+    /// <summary>The checked sequence.</summary>
+    public required SequenceDefinition Sequence { get; init; }
+
+    /// <summary>SHA-256 of the sequence file.</summary>
+    public required string SequenceSha256 { get; init; }
+
+    /// <summary>Units to test.</summary>
+    public int Units { get; init; } = 48;
+
+    /// <summary>Slots used per batch (at most the fixture's).</summary>
+    public int Slots { get; init; } = 4;
+
+    /// <summary>Simulator seed.</summary>
+    public int Seed { get; init; } = 4040;
+
+    /// <summary>Results folder.</summary>
+    public required string ResultsDirectory { get; init; }
+
+    /// <summary>Station id.</summary>
+    public string Station { get; init; } = "ST-01";
+
+    /// <summary>Lot stored with every run.</summary>
+    public string? Lot { get; init; }
+
+    /// <summary>Operator stored with every run.</summary>
+    public string? Operator { get; init; } = "simulated operator";
+
+    /// <summary>Virtual seconds the operator takes to unload one batch and load the next.</summary>
+    public double ReloadSeconds { get; init; } = 30;
+}
