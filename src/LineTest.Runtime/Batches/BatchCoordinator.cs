@@ -700,7 +700,7 @@ public sealed class BatchCoordinator
             throw new RunStorageException($"the run of {unit.Serial} could not be stored: {ex.Message}", ex);
         }
 
-        RuntimeLog.RunEnded(_logger, record.Serial, record.Slot, verdict.ToWord(), record.Reason, record.Id,
+        RuntimeLog.RunEnded(_logger, record.Serial, record.Slot, verdict.ToWord(), record.Reason is null ? string.Empty : $"({record.Reason}) ", record.Id,
             record.SequenceId, record.SequenceRevision, record.Station, record.BatchId);
         Notify(batch, unit);
         _observer.UnitFinished(record);

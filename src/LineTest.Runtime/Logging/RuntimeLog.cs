@@ -7,7 +7,7 @@ namespace LineTest.Runtime.Logging;
 internal static partial class RuntimeLog
 {
     [LoggerMessage(EventId = 1000, Level = LogLevel.Information,
-        Message = "Run ended {Serial} slot {Slot} {Verdict} {Reason} run {RunId} sequence {SequenceId} r{Revision} station {Station} batch {BatchId}")]
+        Message = "Run ended {Serial} slot {Slot} {Verdict} {Reason}run {RunId} sequence {SequenceId} r{Revision} station {Station} batch {BatchId}")]
     public static partial void RunEnded(ILogger logger, string serial, int slot, string verdict, string? reason, Guid runId,
         string sequenceId, int revision, string station, string? batchId);
 
