@@ -1,3 +1,4 @@
+using CsCheck;
 using LineTest.Core.Statistics;
 using MathNet.Numerics.Distributions;
 
@@ -52,5 +53,16 @@ public sealed class ChiSquareDistributionTests
     public void Quantile_ZeroDegrees_Throws()
     {
         Assert.Throws<ArgumentOutOfRangeException>(() => ChiSquareDistribution.Quantile(0, 0.5));
+    }
+
+    [Fact]
+    public void Quantile_Property_InvertsCdf()
+    {
+        Gen.Select(Gen.Double[0.5, 2000], Gen.Double[1e-6, 1 - 1e-6]).Sample(t =>
+        {
+            var (df, p) = t;
+            var x = ChiSquareDistribution.Quantile(df, p);
+            return Math.Abs(ChiSquareDistribution.Cdf(df, x) - p) <= 1e-10;
+        });
     }
 }
