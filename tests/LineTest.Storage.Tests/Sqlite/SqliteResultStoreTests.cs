@@ -109,7 +109,7 @@ public sealed class SqliteResultStoreTests
             await store.AppendAsync(run, CancellationToken.None);
         }
 
-        await using var connection = OpenRaw(directory);
+        await using var connection = RawDb.Open(directory);
         await using var command = connection.CreateCommand();
         command.CommandText = """
             SELECT run_id, ordinal, name, value, unit, low, high, verdict, step, setpoint, uncertainty,
@@ -156,7 +156,7 @@ public sealed class SqliteResultStoreTests
             await store.AppendAsync(run, CancellationToken.None);
         }
 
-        await using var connection = OpenRaw(directory);
+        await using var connection = RawDb.Open(directory);
         await using var command = connection.CreateCommand();
         command.CommandText = "SELECT id, serial, verdict, started_utc, ended_utc, sequence_id, sequence_revision, sequence_sha256, station, slot, lot, seq, prev_sha256, record_sha256, run_json FROM runs";
         await using var reader = await command.ExecuteReaderAsync();
@@ -183,11 +183,11 @@ public sealed class SqliteResultStoreTests
     {
         var directory = Path.Combine(Some.TempDirectory(), "not", "yet", "there");
         await using var store = SqliteResultStore.Open(directory);
-        await using var connection = OpenRaw(directory);
+        await using var connection = RawDb.Open(directory);
 
-        Assert.Equal("wal", Scalar(connection, "PRAGMA journal_mode;"));
-        Assert.Equal(1L, Scalar(connection, "PRAGMA user_version;"));
-        Assert.Equal(0x4C545231L, Scalar(connection, "PRAGMA application_id;"));
+        Assert.Equal("wal", RawDb.Scalar(connection, "PRAGMA journal_mode;"));
+        Assert.Equal(1L, RawDb.Scalar(connection, "PRAGMA user_version;"));
+        Assert.Equal(0x4C545231L, RawDb.Scalar(connection, "PRAGMA application_id;"));
         Assert.Equal(ResultsDatabase.PathIn(directory), store.DatabasePath);
     }
 
@@ -321,17 +321,17 @@ public sealed class SqliteResultStoreTests
     public async Task Open_DatabaseOfAnotherProgram_ThrowsIncompatibleAndLeavesItUntouched()
     {
         var directory = Some.TempDirectory();
-        await using (var connection = OpenRaw(directory, SqliteOpenMode.ReadWriteCreate))
+        await using (var connection = RawDb.Open(directory, SqliteOpenMode.ReadWriteCreate))
         {
-            Scalar(connection, "CREATE TABLE invoices (id INTEGER); INSERT INTO invoices VALUES (7);");
+            RawDb.Scalar(connection, "CREATE TABLE invoices (id INTEGER); INSERT INTO invoices VALUES (7);");
         }
 
         var ex = Assert.Throws<ResultStoreException>(() => SqliteResultStore.Open(directory));
 
         Assert.Equal(ResultStoreFailure.Incompatible, ex.Failure);
         Assert.Contains("not a LineTest results database", ex.Message, StringComparison.Ordinal);
-        await using var check = OpenRaw(directory);
-        Assert.Equal(7L, Scalar(check, "SELECT id FROM invoices;"));
+        await using var check = RawDb.Open(directory);
+        Assert.Equal(7L, RawDb.Scalar(check, "SELECT id FROM invoices;"));
     }
 
     [Fact]
@@ -339,9 +339,9 @@ public sealed class SqliteResultStoreTests
     {
         var directory = Some.TempDirectory();
         await SqliteResultStore.Open(directory).DisposeAsync();
-        await using (var connection = OpenRaw(directory, SqliteOpenMode.ReadWrite))
+        await using (var connection = RawDb.Open(directory, SqliteOpenMode.ReadWrite))
         {
-            Scalar(connection, "PRAGMA user_version = 99;");
+            RawDb.Scalar(connection, "PRAGMA user_version = 99;");
         }
 
         var ex = Assert.Throws<ResultStoreException>(() => SqliteResultStore.Open(directory));
@@ -355,8 +355,8 @@ public sealed class SqliteResultStoreTests
     {
         var directory = Some.TempDirectory();
         await using var store = SqliteResultStore.Open(directory, lockTimeout: TimeSpan.FromSeconds(1));
-        await using var other = OpenRaw(directory, SqliteOpenMode.ReadWrite);
-        Scalar(other, "PRAGMA busy_timeout = 0;");
+        await using var other = RawDb.Open(directory, SqliteOpenMode.ReadWrite);
+        RawDb.Scalar(other, "PRAGMA busy_timeout = 0;");
         using var transaction = other.BeginTransaction(deferred: false);
         await using (var shorten = other.CreateCommand())
         {
@@ -382,25 +382,6 @@ public sealed class SqliteResultStoreTests
         }
 
         return ids;
-    }
-
-    internal static SqliteConnection OpenRaw(string directory, SqliteOpenMode mode = SqliteOpenMode.ReadOnly)
-    {
-        var connection = new SqliteConnection(new SqliteConnectionStringBuilder
-        {
-            DataSource = ResultsDatabase.PathIn(directory),
-            Mode = mode,
-            Pooling = false,
-        }.ToString());
-        connection.Open();
-        return connection;
-    }
-
-    internal static object? Scalar(SqliteConnection connection, string sql)
-    {
-        using var command = connection.CreateCommand();
-        command.CommandText = sql;
-        return command.ExecuteScalar();
     }
 
     private static double? Real(SqliteDataReader reader, int i) => reader.IsDBNull(i) ? null : reader.GetDouble(i);
