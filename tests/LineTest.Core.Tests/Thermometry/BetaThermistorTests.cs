@@ -42,7 +42,7 @@ public sealed class BetaThermistorTests
         var result = Ntc.ToCelsius(1e7);
 
         Assert.False(result.IsSuccess);
-        Assert.Contains("-50 … 150 °C", result.Error, StringComparison.Ordinal);
+        Assert.Contains("-50 to 150 °C", result.Error, StringComparison.Ordinal);
     }
 
     [Fact]

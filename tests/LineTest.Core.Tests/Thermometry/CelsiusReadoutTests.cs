@@ -21,7 +21,7 @@ public sealed class CelsiusReadoutTests
         var result = CelsiusReadout.Instance.ToCelsius(-300.0);
 
         Assert.False(result.IsSuccess);
-        Assert.Contains("-273.15 … 1372 °C", result.Error, StringComparison.Ordinal);
+        Assert.Contains("-273.15 to 1372 °C", result.Error, StringComparison.Ordinal);
     }
 
     [Fact]

@@ -189,8 +189,8 @@ public sealed class PlatinumResistanceThermometerTests
         var result = PlatinumResistanceThermometer.Pt100.ToCelsius(ohms);
 
         Assert.False(result.IsSuccess);
-        Assert.Contains("18.5201 … 390.4811 Ω", result.Error, StringComparison.Ordinal);
-        Assert.Contains("-200 … 850 °C", result.Error, StringComparison.Ordinal);
+        Assert.Contains("18.5201 to 390.4811 Ω", result.Error, StringComparison.Ordinal);
+        Assert.Contains("-200 to 850 °C", result.Error, StringComparison.Ordinal);
     }
 
     [Theory]
@@ -201,7 +201,7 @@ public sealed class PlatinumResistanceThermometerTests
         var result = PlatinumResistanceThermometer.Pt100.FromCelsius(celsius);
 
         Assert.False(result.IsSuccess);
-        Assert.Contains("-200 … 850 °C", result.Error, StringComparison.Ordinal);
+        Assert.Contains("-200 to 850 °C", result.Error, StringComparison.Ordinal);
     }
 
     [Fact]

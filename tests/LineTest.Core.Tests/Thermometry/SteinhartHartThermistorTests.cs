@@ -90,7 +90,7 @@ public sealed class SteinhartHartThermistorTests
         var result = Ntc.ToCelsius(100.0);
 
         Assert.False(result.IsSuccess);
-        Assert.Contains("-50 … 150 °C", result.Error, StringComparison.Ordinal);
+        Assert.Contains("-50 to 150 °C", result.Error, StringComparison.Ordinal);
         Assert.Contains("Ω", result.Error, StringComparison.Ordinal);
     }
 
@@ -100,7 +100,7 @@ public sealed class SteinhartHartThermistorTests
         var result = Ntc.FromCelsius(151.0);
 
         Assert.False(result.IsSuccess);
-        Assert.Contains("-50 … 150 °C", result.Error, StringComparison.Ordinal);
+        Assert.Contains("-50 to 150 °C", result.Error, StringComparison.Ordinal);
     }
 
     [Theory]

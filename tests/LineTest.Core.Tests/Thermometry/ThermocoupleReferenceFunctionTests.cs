@@ -180,7 +180,7 @@ public sealed class ThermocoupleReferenceFunctionTests
     [Fact]
     public void Ranges_AreThoseOfNistMonograph175()
     {
-        // NIST Monograph 175: type K −270 … 1372 °C, type T −270 … 400 °C [published].
+        // NIST Monograph 175: type K −270 to 1372 °C, type T −270 to 400 °C [published].
         Assert.Equal((-270.0, 1372.0), (ThermocoupleReferenceFunction.TypeK.MinC, ThermocoupleReferenceFunction.TypeK.MaxC));
         Assert.Equal((-270.0, 400.0), (ThermocoupleReferenceFunction.TypeT.MinC, ThermocoupleReferenceFunction.TypeT.MaxC));
         Assert.True(ThermocoupleReferenceFunction.TypeK.Contains(1372.0));

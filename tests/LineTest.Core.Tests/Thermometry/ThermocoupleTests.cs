@@ -58,8 +58,8 @@ public sealed class ThermocoupleTests
         var result = thermocouple.ToCelsius(21.0);
 
         Assert.False(result.IsSuccess);
-        Assert.Contains("-6.2575 … 20.872 mV", result.Error, StringComparison.Ordinal);
-        Assert.Contains("-270 … 400 °C", result.Error, StringComparison.Ordinal);
+        Assert.Contains("-6.2575 to 20.872 mV", result.Error, StringComparison.Ordinal);
+        Assert.Contains("-270 to 400 °C", result.Error, StringComparison.Ordinal);
     }
 
     [Fact]
@@ -79,7 +79,7 @@ public sealed class ThermocoupleTests
         var result = new Thermocouple(ThermocoupleType.K).FromCelsius(1400.0);
 
         Assert.False(result.IsSuccess);
-        Assert.Contains("-270 … 1372 °C", result.Error, StringComparison.Ordinal);
+        Assert.Contains("-270 to 1372 °C", result.Error, StringComparison.Ordinal);
     }
 
     [Fact]
