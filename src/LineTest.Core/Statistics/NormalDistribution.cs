@@ -5,6 +5,8 @@ public static class NormalDistribution
 {
     private const double InverseSqrtTwoPi = 0.39894228040143267794;
 
+    private const double InverseSqrtTwo = 0.70710678118654752440;
+
     // Acklam's rational approximation to the normal quantile (relative error below 1.2e-9), refined below
     // by one Halley step against the CDF so the result is good to about 1e-15.
     private static readonly double[] A =
@@ -43,13 +45,26 @@ public static class NormalDistribution
             throw new ArgumentOutOfRangeException(nameof(z), z, "Φ(z) needs a number.");
         }
 
-        // Φ(z) = ½ erfc(−z/√2) and erfc(u) = Q(½, u²) for u ≥ 0.
-        var half = 0.5 * SpecialFunctions.GammaQ(0.5, 0.5 * z * z);
-        return z < 0 ? half : 1.0 - half;
+        var tail = SmallerTail(z);
+        return z < 0 ? tail : 1.0 - tail;
     }
 
     /// <summary>1 − Φ(z) = P(Z &gt; z), computed without cancellation for large z.</summary>
     public static double UpperTail(double z) => Cdf(-z);
+
+    /// <summary>
+    /// Φ(−|z|), the probability of the tail on z's side of the mean (at most ½); the other side is 1 minus it
+    /// without loss. Φ(−|z|) = ½·erfc(|z|/√2).
+    /// </summary>
+    internal static double SmallerTail(double z)
+    {
+        if (double.IsNaN(z))
+        {
+            throw new ArgumentOutOfRangeException(nameof(z), z, "Φ(z) needs a number.");
+        }
+
+        return 0.5 * SpecialFunctions.ErfcNonNegative(Math.Abs(z) * InverseSqrtTwo);
+    }
 
     /// <summary>The quantile z with Φ(z) = p, for 0 &lt; p &lt; 1.</summary>
     public static double Quantile(double p)

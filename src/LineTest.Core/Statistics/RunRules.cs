@@ -9,6 +9,9 @@ namespace LineTest.Core.Statistics;
 /// centre line is on neither side and breaks a same-side run; equal neighbours break a trend or an alternation.
 /// Rules on consecutive points (runs, trends, alternation, stratification, mixture) give one signal per maximal
 /// run; "k of m" rules give one signal per point beyond the zone that completes k of the last m. O(n).
+/// Counts are of points: Nelson 3 is six points (five steps in one direction), Nelson 4 fourteen points
+/// (thirteen steps alternating in sign). On long in-control series every rule still fires now and then by
+/// chance (each has a false-alarm rate of a fraction of a percent), so expect signals on large data sets.
 /// </remarks>
 public static class RunRules
 {

@@ -70,7 +70,7 @@ public sealed class BetaThermistor : IReferenceSensor
 
         if (!double.IsFinite(betaK) || betaK <= 0)
         {
-            errors.Add($"beta: must be a positive number of kelvin (typically 3000 … 5000 K), got {RangeText.Number(betaK)}");
+            errors.Add($"beta: must be a positive number of kelvin (typically 3000 to 5000 K), got {RangeText.Number(betaK)}");
         }
 
         ThermistorRange.AddRangeErrors(errors, minC, maxC);

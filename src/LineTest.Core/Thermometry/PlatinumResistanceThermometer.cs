@@ -1,3 +1,5 @@
+using System.Globalization;
+
 namespace LineTest.Core.Thermometry;
 
 /// <summary>
@@ -44,7 +46,7 @@ public sealed class PlatinumResistanceThermometer : IReferenceSensor
         C = c;
         Name = a == IecA && b == IecB && c == IecC && r0Ohms is 100.0 or 1000.0
             ? $"Pt{RangeText.Number(r0Ohms)} (IEC 60751)"
-            : $"PRT R0 = {RangeText.Number(r0Ohms)} Ω (Callendar–Van Dusen)";
+            : $"PRT R0 = {RangeText.Number(r0Ohms)} Ω (Callendar-Van Dusen)";
         _lowOhms = ResistanceOhms(RangeMinC);
         _highOhms = ResistanceOhms(RangeMaxC);
     }
@@ -94,7 +96,7 @@ public sealed class PlatinumResistanceThermometer : IReferenceSensor
         {
             if (!double.IsFinite(value))
             {
-                errors.Add($"{field}: must be a finite number, got {value}");
+                errors.Add($"{field}: must be a finite number, got {RangeText.Exact(value)}");
             }
         }
 
@@ -121,12 +123,12 @@ public sealed class PlatinumResistanceThermometer : IReferenceSensor
         if (!(lowestSlope > 0))
         {
             errors.Add(
-                $"a, b, c: resistance must rise with temperature over {RangeMinC} … {RangeMaxC} °C, but these coefficients " +
-                $"give a slope of {lowestSlope:G4} per °C at {RangeText.Number(lowestAtC)} °C (IEC 60751 values: a = {IecA}, b = {IecB}, c = {IecC})");
+                $"a, b, c: resistance must rise with temperature over {RangeText.Number(RangeMinC)} to {RangeText.Number(RangeMaxC)} °C, but these coefficients " +
+                $"give a slope of {lowestSlope.ToString("G4", CultureInfo.InvariantCulture)} per °C at {RangeText.Number(lowestAtC)} °C (IEC 60751 values: a = {RangeText.Exact(IecA)}, b = {RangeText.Exact(IecB)}, c = {RangeText.Exact(IecC)})");
         }
         else if (!(RelativeResistance(RangeMinC, a, b, c) > 0))
         {
-            errors.Add($"a, b, c: these coefficients give a resistance of zero or less at {RangeMinC} °C");
+            errors.Add($"a, b, c: these coefficients give a resistance of zero or less at {RangeText.Number(RangeMinC)} °C");
         }
 
         return errors;

@@ -8,6 +8,9 @@ internal static class RangeText
     public static string Number(double value) =>
         double.IsFinite(value) ? value.ToString("0.####", CultureInfo.InvariantCulture) : value.ToString(CultureInfo.InvariantCulture);
 
+    /// <summary>Coefficients and small numbers: shortest round-trip form, invariant culture (e.g. 8.76741E-08).</summary>
+    public static string Exact(double value) => value.ToString("R", CultureInfo.InvariantCulture);
+
     public static string Unit(string rawUnit) => rawUnit switch
     {
         RawUnits.Ohm => "Ω",
@@ -17,14 +20,14 @@ internal static class RangeText
 
     public static ConversionResult TemperatureOutOfRange(IReferenceSensor sensor, double celsius) =>
         ConversionResult.Failure(
-            $"temperature {Number(celsius)} °C is outside the valid range {Number(sensor.MinC)} … {Number(sensor.MaxC)} °C of {sensor.Name}");
+            $"temperature {Number(celsius)} °C is outside the valid range {Number(sensor.MinC)} to {Number(sensor.MaxC)} °C of {sensor.Name}");
 
     public static ConversionResult RawOutOfRange(IReferenceSensor sensor, string quantity, double raw, double rawLow, double rawHigh)
     {
         var unit = Unit(sensor.RawUnit);
         return ConversionResult.Failure(
-            $"{quantity} {Number(raw)} {unit} is outside the valid range {Number(rawLow)} … {Number(rawHigh)} {unit} " +
-            $"({Number(sensor.MinC)} … {Number(sensor.MaxC)} °C) of {sensor.Name}");
+            $"{quantity} {Number(raw)} {unit} is outside the valid range {Number(rawLow)} to {Number(rawHigh)} {unit} " +
+            $"({Number(sensor.MinC)} to {Number(sensor.MaxC)} °C) of {sensor.Name}");
     }
 
     public static ConversionResult NotANumber(IReferenceSensor sensor, string quantity) =>

@@ -55,13 +55,13 @@ public static class ReferenceSensorFactory
         var hasBeta = definition.R25 is not null || definition.Beta is not null;
         if (hasSteinhartHart && hasBeta)
         {
-            errors.Add("a, b, c / r25, beta: give either the Steinhart–Hart coefficients a, b, c or the beta model r25 and beta, not both");
+            errors.Add("a, b, c / r25, beta: give either the Steinhart-Hart coefficients a, b, c or the beta model r25 and beta, not both");
             return ReferenceSensorResult.Failure(errors);
         }
 
         if (hasSteinhartHart)
         {
-            AddMissing(errors, "thermistor (Steinhart–Hart)", ("a", definition.A), ("b", definition.B), ("c", definition.C));
+            AddMissing(errors, "thermistor (Steinhart-Hart)", ("a", definition.A), ("b", definition.B), ("c", definition.C));
             if (errors.Count > 0)
             {
                 return ReferenceSensorResult.Failure(errors);
@@ -87,7 +87,7 @@ public static class ReferenceSensorFactory
                 : ReferenceSensorResult.Success(new BetaThermistor(definition.R25.Value, definition.Beta.Value));
         }
 
-        errors.Add("a, b, c / r25, beta: kind 'thermistor' needs the Steinhart–Hart coefficients a, b, c or the beta model r25 and beta");
+        errors.Add("a, b, c / r25, beta: kind 'thermistor' needs the Steinhart-Hart coefficients a, b, c or the beta model r25 and beta");
         return ReferenceSensorResult.Failure(errors);
     }
 

@@ -32,7 +32,7 @@ public sealed class SteinhartHartThermistor : IReferenceSensor
         C = c;
         MinC = minC;
         MaxC = maxC;
-        Name = "NTC thermistor (Steinhart–Hart)";
+        Name = "NTC thermistor (Steinhart-Hart)";
 
         // Resistance falls as temperature rises: the hot end gives the lowest resistance.
         _lowOhms = ResistanceOhms(maxC);
@@ -74,7 +74,7 @@ public sealed class SteinhartHartThermistor : IReferenceSensor
         var errors = new List<string>();
         if (!double.IsFinite(a))
         {
-            errors.Add($"a: must be a finite number, got {a}");
+            errors.Add($"a: must be a finite number, got {RangeText.Exact(a)}");
         }
 
         if (!double.IsFinite(b) || b <= 0)
@@ -84,7 +84,7 @@ public sealed class SteinhartHartThermistor : IReferenceSensor
 
         if (!double.IsFinite(c) || c < 0)
         {
-            errors.Add($"c: must be zero or positive (about 1e-7 for 10 kΩ parts), got {c}");
+            errors.Add($"c: must be zero or positive (about 1e-7 for 10 kΩ parts), got {RangeText.Exact(c)}");
         }
 
         ThermistorRange.AddRangeErrors(errors, minC, maxC);

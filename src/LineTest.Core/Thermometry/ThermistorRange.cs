@@ -20,7 +20,7 @@ public static class ThermistorRange
         if (!double.IsFinite(minC) || !double.IsFinite(maxC) || minC <= -ZeroCelsiusK || minC >= maxC)
         {
             errors.Add(
-                $"range: the valid range must be finite, above −273.15 °C and increasing, got {RangeText.Number(minC)} … {RangeText.Number(maxC)} °C");
+                $"range: the valid range must be finite, above -273.15 °C and increasing, got {RangeText.Number(minC)} to {RangeText.Number(maxC)} °C");
         }
     }
 }

@@ -67,7 +67,7 @@ public sealed class Thermocouple : IReferenceSensor
         if (!double.IsFinite(coldJunctionC) || !function.Contains(coldJunctionC))
         {
             errors.Add(
-                $"coldJunctionC: {RangeText.Number(coldJunctionC)} °C is outside the type {type} range {RangeText.Number(function.MinC)} … {RangeText.Number(function.MaxC)} °C");
+                $"coldJunctionC: {RangeText.Number(coldJunctionC)} °C is outside the type {type} range {RangeText.Number(function.MinC)} to {RangeText.Number(function.MaxC)} °C");
         }
 
         return errors;

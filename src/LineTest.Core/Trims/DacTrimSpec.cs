@@ -17,6 +17,59 @@ public sealed record DacTrimSpec
 
     /// <summary>The transfer function the trimmed unit must follow.</summary>
     public required LinearTransfer Target { get; init; }
+
+    /// <summary>
+    /// Problems that make the spec unusable, each with its JSON path (e.g. <c>gain.step: must not be 0</c>);
+    /// empty when the spec is sound. The sequence checker reports these; the trim refuses to run with any.
+    /// </summary>
+    public IReadOnlyList<string> Check()
+    {
+        var problems = new List<string>();
+        CheckChannel("gain", Gain, problems);
+        CheckChannel("offset", Offset, problems);
+        if (Target is null)
+        {
+            problems.Add("target: missing");
+        }
+        else
+        {
+            if (!double.IsFinite(Target.OffsetVolts))
+            {
+                problems.Add("target.offsetVolts: must be a finite number");
+            }
+
+            if (!double.IsFinite(Target.SlopeVoltsPerC) || Target.SlopeVoltsPerC == 0.0)
+            {
+                problems.Add("target.slopeVoltsPerC: must be a finite number other than 0");
+            }
+        }
+
+        return problems;
+    }
+
+    private static void CheckChannel(string path, DacChannelSpec? channel, List<string> problems)
+    {
+        if (channel is null)
+        {
+            problems.Add($"{path}: missing");
+            return;
+        }
+
+        if (channel.Min > channel.Max)
+        {
+            problems.Add($"{path}: min ({channel.Min}) is above max ({channel.Max})");
+        }
+
+        if (!double.IsFinite(channel.Step) || channel.Step == 0.0)
+        {
+            problems.Add($"{path}.step: must be a finite number other than 0");
+        }
+
+        if (string.IsNullOrWhiteSpace(channel.Register))
+        {
+            problems.Add($"{path}.register: must name the register written over the unit link");
+        }
+    }
 }
 
 /// <summary>One DAC: its code range, the code the unit ships with, and what one code does.</summary>

@@ -35,13 +35,13 @@ internal static class FirstOrderLag
 
         var z0 = y0 - setpoint;
         var decayFollower = Math.Exp(-seconds / tau);
-        if (Math.Abs(tauInput - tau) <= 1e-6 * Math.Max(tauInput, tau))
-        {
-            return setpoint + ((z0 - (error0 * seconds / tau)) * decayFollower);
-        }
 
-        var k = -error0 * tauInput / (tauInput - tau);
-        var decayInput = Math.Exp(-seconds / tauInput);
-        return setpoint + (z0 * decayFollower) + (k * (decayInput - decayFollower));
+        // K·(e^(−h/τx) − e^(−h/τ)) = −e0·(h/τ)·ψ, with ψ = (e^(−h/τx) − e^(−h/τ))/z and z = h·(1/τ − 1/τx).
+        // For small |z| the series e^(−h/τ)·(1 + z/2 + z²/6) avoids the cancellation, and gives the τx = τ limit.
+        var z = seconds * ((1 / tau) - (1 / tauInput));
+        var psi = Math.Abs(z) < 1e-4
+            ? decayFollower * (1 + (z / 2) + (z * z / 6))
+            : (Math.Exp(-seconds / tauInput) - decayFollower) / z;
+        return setpoint + (z0 * decayFollower) - (error0 * seconds / tau * psi);
     }
 }

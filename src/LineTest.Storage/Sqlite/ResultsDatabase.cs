@@ -15,7 +15,7 @@ public static class ResultsDatabase
         return Path.GetFullPath(Path.Combine(resultsDirectory, FileName));
     }
 
-    internal static string ConnectionString(string databasePath, SqliteOpenMode mode) => new SqliteConnectionStringBuilder
+    internal static string ConnectionString(string databasePath, SqliteOpenMode mode, TimeSpan? lockTimeout = null) => new SqliteConnectionStringBuilder
     {
         DataSource = databasePath,
         Mode = mode,
@@ -23,7 +23,8 @@ public static class ResultsDatabase
         // No pooling: closing the store must really close the file (so it can be moved, and so a fresh
         // connection after a crash sees exactly what is on disk).
         Pooling = false,
-        // Seconds Microsoft.Data.Sqlite keeps retrying a busy database before giving up.
-        DefaultTimeout = 10,
+        // Seconds Microsoft.Data.Sqlite keeps retrying a busy database before giving up (it owns the retry loop,
+        // so SQLite's own busy_timeout stays 0). Zero would mean "forever", hence at least one second.
+        DefaultTimeout = Math.Max(1, (int)Math.Ceiling((lockTimeout ?? TimeSpan.FromSeconds(10)).TotalSeconds)),
     }.ToString();
 }

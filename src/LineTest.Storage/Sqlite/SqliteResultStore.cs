@@ -27,6 +27,9 @@ public sealed class SqliteResultStore : IResultStore
     private readonly SqliteCommand _insertReading;
     private bool _disposed;
 
+    /// <summary>How long a write waits for another program's lock by default.</summary>
+    public static readonly TimeSpan DefaultLockTimeout = TimeSpan.FromSeconds(10);
+
     private SqliteResultStore(string databasePath, SqliteConnection connection)
     {
         DatabasePath = databasePath;
@@ -50,9 +53,13 @@ public sealed class SqliteResultStore : IResultStore
     /// Opens (or creates) <c>results.db</c> in <paramref name="resultsDirectory"/>, creating the folder if missing.
     /// An existing database is appended to, never overwritten.
     /// </summary>
+    /// <param name="resultsDirectory">The results folder.</param>
+    /// <param name="lockTimeout">How long a write waits for another program's lock before failing (default 10 s, at least 1 s).</param>
     /// <exception cref="ResultStoreException">The folder or file cannot be used; the message says why.</exception>
-    public static SqliteResultStore Open(string resultsDirectory)
+    public static SqliteResultStore Open(string resultsDirectory, TimeSpan? lockTimeout = null)
     {
+        var timeout = lockTimeout ?? DefaultLockTimeout;
+        ArgumentOutOfRangeException.ThrowIfLessThan(timeout, TimeSpan.FromSeconds(1), nameof(lockTimeout));
         var path = ResultsDatabase.PathIn(resultsDirectory);
         const string what = "The results database cannot be opened";
         var directory = Path.GetDirectoryName(path)!;
@@ -75,7 +82,7 @@ public sealed class SqliteResultStore : IResultStore
             throw SqliteFailures.ReadOnly(what, path);
         }
 
-        var connection = new SqliteConnection(ResultsDatabase.ConnectionString(path, SqliteOpenMode.ReadWriteCreate));
+        var connection = new SqliteConnection(ResultsDatabase.ConnectionString(path, SqliteOpenMode.ReadWriteCreate, timeout));
         try
         {
             connection.Open();
@@ -94,7 +101,7 @@ public sealed class SqliteResultStore : IResultStore
                     $"{what}: '{path}' cannot use write-ahead logging (journal mode stayed '{journal}'). Put the results folder on a local disk.");
             }
 
-            Scalar(connection, "PRAGMA synchronous = FULL; PRAGMA foreign_keys = ON; PRAGMA busy_timeout = 5000;");
+            Scalar(connection, "PRAGMA synchronous = FULL; PRAGMA foreign_keys = ON; PRAGMA busy_timeout = 0;");
             var problem = SqliteSchema.EnsureCreated(connection);
             if (problem is not null)
             {

@@ -1,0 +1,78 @@
+using System.Text;
+using Microsoft.Data.Sqlite;
+
+namespace LineTest.Storage.Sqlite;
+
+/// <summary>Turns a <see cref="RunFilter"/> into a parameterised WHERE clause over <c>runs r</c> (and <c>readings g</c>).</summary>
+internal static class FilterSql
+{
+    /// <summary>Appends " WHERE ..." (or nothing) to <paramref name="sql"/> and adds the parameters to <paramref name="command"/>.</summary>
+    public static void AppendWhere(StringBuilder sql, SqliteCommand command, RunFilter filter, bool includeReadingNames)
+    {
+        var conditions = new List<string>();
+        void Add(string condition, string name, object value)
+        {
+            conditions.Add(condition);
+            command.Parameters.AddWithValue(name, value);
+        }
+
+        if (filter.FromUtc is DateTimeOffset from)
+        {
+            Add("r.ended_utc >= $from", "$from", UtcText.ToText(from));
+        }
+
+        if (filter.ToUtc is DateTimeOffset to)
+        {
+            Add("r.ended_utc < $to", "$to", UtcText.ToText(to));
+        }
+
+        if (filter.Station is not null)
+        {
+            Add("r.station = $station", "$station", filter.Station);
+        }
+
+        if (filter.Slot is int slot)
+        {
+            Add("r.slot = $slot", "$slot", slot);
+        }
+
+        if (filter.Lot is not null)
+        {
+            Add("r.lot = $lot", "$lot", filter.Lot);
+        }
+
+        if (filter.SequenceId is not null)
+        {
+            Add("r.sequence_id = $sequence", "$sequence", filter.SequenceId);
+        }
+
+        if (filter.SequenceRevision is int revision)
+        {
+            Add("r.sequence_revision = $revision", "$revision", revision);
+        }
+
+        if (filter.Serial is not null)
+        {
+            Add("r.serial = $serial", "$serial", filter.Serial);
+        }
+
+        if (includeReadingNames && filter.ReadingNames is { Count: > 0 } names)
+        {
+            var placeholders = new List<string>(names.Count);
+            var i = 0;
+            foreach (var name in names)
+            {
+                var parameter = $"$name{i++}";
+                placeholders.Add(parameter);
+                command.Parameters.AddWithValue(parameter, name);
+            }
+
+            conditions.Add($"g.name IN ({string.Join(", ", placeholders)})");
+        }
+
+        if (conditions.Count > 0)
+        {
+            sql.Append(" WHERE ").AppendJoin(" AND ", conditions);
+        }
+    }
+}

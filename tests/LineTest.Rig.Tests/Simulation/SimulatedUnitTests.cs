@@ -1,0 +1,129 @@
+using LineTest.Core.Trims;
+using LineTest.Rig.Simulation;
+
+namespace LineTest.Rig.Tests.Simulation;
+
+public sealed class SimulatedUnitTests
+{
+    private static readonly SimulatedUnitDesign Design = SimulatedUnitDesign.Ctp40A;
+
+    [Fact]
+    public void TrueOutputVolts_NominalCodesAcrossParts_NearDemoTransfer()
+    {
+        var factory = SimulatedFixtures.Factory(seed: 5);
+        var units = Enumerable.Range(0, 400).Select(_ => factory.NextUnit(UnitDefect.None)).ToList();
+
+        var atZero = units.Select(u => u.TrueOutputVolts(0)).ToList();
+        var slopes = units.Select(u => (u.TrueOutputVolts(50) - u.TrueOutputVolts(0)) / 50).ToList();
+
+        // Design intent: about 0.5 V at 0 °C and +10 mV/°C before trim; the spread is what the trim removes.
+        Assert.Equal(0.5, atZero.Average(), 0.03);
+        Assert.Equal(0.010, slopes.Average(), 0.0003);
+        Assert.All(atZero, v => Assert.InRange(v, 0.2, 0.8));
+        Assert.All(slopes, s => Assert.InRange(s, 0.0085, 0.0115));
+    }
+
+    [Fact]
+    public void TrueOutputVolts_AfterTrimByDacTrimSpecEquations_ReachesTargetWithinFewMillivolts()
+    {
+        var spec = Design.ToDacTrimSpec();
+        var factory = SimulatedFixtures.Factory(seed: 99);
+        for (var i = 0; i < 200; i++)
+        {
+            var unit = factory.NextUnit(UnitDefect.None);
+            var codes = TrimByHand(spec, unit.TrueOutputVolts(0), unit.TrueOutputVolts(50), 0, 50);
+
+            unit.WriteWorking(codes);
+            unit.Store();
+
+            foreach (var celsius in new[] { 0.0, 25.0, 50.0, -20.0 })
+            {
+                Assert.InRange(unit.TrueErrorVolts(spec.Target, celsius), -0.004, 0.004);
+            }
+        }
+    }
+
+    [Fact]
+    public void TrueOutputVolts_OpenSensor_RailsNearSupplyWithNoSlope()
+    {
+        var unit = SimulatedFixtures.Factory().NextUnit(UnitDefect.OpenSensor);
+
+        var cold = unit.TrueOutputVolts(0);
+        var hot = unit.TrueOutputVolts(50);
+
+        Assert.InRange(cold, 3.18, 3.2);
+        Assert.Equal(cold, hot);
+    }
+
+    [Fact]
+    public void TrueOutputVolts_StuckDac_IgnoresWrittenAndStoredCodes()
+    {
+        var unit = SimulatedFixtures.Factory().NextUnit(UnitDefect.StuckDac);
+        var before = unit.TrueOutputVolts(25);
+
+        unit.WriteWorking(new Dictionary<string, long> { ["GAIN"] = 3000, ["OFFSET"] = 100 });
+        unit.Store();
+
+        Assert.Equal(before, unit.TrueOutputVolts(25));
+        Assert.Equal(before, unit.TrueOutputVoltsAsShipped(25));
+        Assert.Equal(3000, unit.StoredRegisters["GAIN"]);
+    }
+
+    [Fact]
+    public void TrueOutputVolts_GoodUnitWrittenButNotStored_AsShippedKeepsNominal()
+    {
+        var unit = SimulatedFixtures.Factory().NextUnit(UnitDefect.None);
+        var nominal = unit.TrueOutputVolts(25);
+
+        unit.WriteWorking(new Dictionary<string, long> { ["OFFSET"] = 2148 });
+
+        // 100 codes × ≈0.5 mV = ≈50 mV (actual step within ±0.5 % of declared).
+        Assert.Equal(0.05, unit.TrueOutputVolts(25) - nominal, 0.0003);
+        Assert.Equal(nominal, unit.TrueOutputVoltsAsShipped(25));
+    }
+
+    [Fact]
+    public void TrueOutputVolts_HugeOffset_ClipsAtOutputSwing()
+    {
+        var unit = SimulatedFixtures.Factory().NextUnit(UnitDefect.None);
+
+        Assert.Equal(Design.OutputMinVolts, unit.TrueOutputVolts(-40, 2048, 0));
+        Assert.Equal(Design.OutputMaxVolts, unit.TrueOutputVolts(150, 4095, 4095));
+    }
+
+    [Fact]
+    public void TrueErrorC_IsVoltsErrorOverTargetSlope()
+    {
+        var unit = SimulatedFixtures.Factory().NextUnit(UnitDefect.None);
+        var target = Design.Target;
+
+        Assert.Equal(unit.TrueErrorVolts(target, 30) / 0.010, unit.TrueErrorC(target, 30), 9);
+        Assert.True(unit.IsTrulyWithin(target, Math.Abs(unit.TrueErrorC(target, 30)) + 1e-9, [30]));
+        Assert.False(unit.IsTrulyWithin(target, Math.Abs(unit.TrueErrorC(target, 30)) - 1e-6, [30]));
+    }
+
+    [Fact]
+    public void Constructor_NewUnit_RegistersNominalAndSensorAtAmbient()
+    {
+        var unit = SimulatedFixtures.Factory().NextUnit();
+
+        Assert.Equal(2048, unit.WorkingRegisters["GAIN"]);
+        Assert.Equal(2048, unit.StoredRegisters["OFFSET"]);
+        Assert.Equal(SimulatedRig.DefaultAmbientC, unit.SensorC);
+        Assert.Null(unit.SensorTime);
+    }
+
+    /// <summary>
+    /// The gain-and-offset DAC trim worked out by hand from <see cref="DacTrimSpec"/>'s model
+    /// V = G_design·(1 + s_g·(g − g0))·u(T) + s_o·(o − o0), from outputs at nominal codes at two temperatures.
+    /// </summary>
+    internal static Dictionary<string, long> TrimByHand(DacTrimSpec spec, double volts1, double volts2, double celsius1, double celsius2)
+    {
+        var slope = (volts2 - volts1) / (celsius2 - celsius1);
+        var gainCode = (long)Math.Round(spec.Gain.Nominal + (((spec.Target.SlopeVoltsPerC / slope) - 1) / spec.Gain.Step));
+        var gainFactor = 1 + (spec.Gain.Step * (gainCode - spec.Gain.Nominal));
+        var offsetVolts = ((spec.Target.VoltsAt(celsius1) - (gainFactor * volts1)) + (spec.Target.VoltsAt(celsius2) - (gainFactor * volts2))) / 2;
+        var offsetCode = (long)Math.Round(spec.Offset.Nominal + (offsetVolts / spec.Offset.Step));
+        return new Dictionary<string, long> { [spec.Gain.Register] = gainCode, [spec.Offset.Register] = offsetCode };
+    }
+}
