@@ -53,40 +53,43 @@ public static class ResistorSelector
         // second part, a parallel pair a large one. Keep them within 1 Ω … 100 MΩ, the span of ordinary parts.
         var parts = series.ValuesBetween(1.0, 1e8);
 
-        // Series R1 + R2 = R*, R1 the larger part: R1 ∈ [R*/2, R*), R2 nearest to R* − R1.
+        // Series R1 + R2 ≈ R*: the larger part R1 is at least a third of R* for any pair worth having. For
+        // each R1 both series values bracketing R* − R1 are tried (the sum is linear in R2, so the
+        // nearest in log space is not always the best).
         foreach (var r1 in parts)
         {
-            if (r1 < idealOhms / 2 || r1 >= idealOhms)
+            if (r1 < idealOhms / 3 || r1 >= idealOhms)
             {
                 continue;
             }
 
-            var rest = idealOhms - r1;
-            if (rest < parts[0])
+            foreach (var r2 in Bracket(parts, idealOhms - r1))
             {
-                continue;
+                Consider(ResistorConnection.Series, r1, r2);
             }
-
-            var r2 = Closest(parts, rest);
-            Consider(ResistorConnection.Series, r1, r2);
         }
 
-        // Parallel R1·R2/(R1 + R2) = R*, R1 the smaller part: R1 ∈ (R*, 2R*], R2 nearest to 1/(1/R* − 1/R1).
+        // Parallel R1·R2/(R1 + R2) ≈ R*: the smaller part R1 lies between R*/2 and 3R* for any pair worth
+        // having; both values bracketing 1/(1/R* − 1/R1) are tried.
         foreach (var r1 in parts)
         {
-            if (r1 <= idealOhms || r1 > 2 * idealOhms)
+            if (r1 <= idealOhms / 2 || r1 > 3 * idealOhms)
             {
                 continue;
             }
 
-            var other = 1.0 / ((1.0 / idealOhms) - (1.0 / r1));
-            if (other > parts[^1])
+            var conductance = (1.0 / idealOhms) - (1.0 / r1);
+            if (conductance <= 0.0)
             {
+                // R1 ≤ R*: R2 must make up for nothing (or less than nothing); try the largest parts.
+                Consider(ResistorConnection.Parallel, r1, parts[^1]);
                 continue;
             }
 
-            var r2 = Closest(parts, other);
-            Consider(ResistorConnection.Parallel, r1, r2);
+            foreach (var r2 in Bracket(parts, 1.0 / conductance))
+            {
+                Consider(ResistorConnection.Parallel, r1, r2);
+            }
         }
 
         return bestPair.Error < PairImprovementFactor * LogError(best.EffectiveOhms) ? bestPair.Choice : best;
@@ -112,6 +115,41 @@ public static class ResistorSelector
             Parts = values,
             Series = series,
         };
+    }
+
+    /// <summary>The series values just below and just above <paramref name="ohms"/> (one value at either end).</summary>
+    private static IEnumerable<double> Bracket(IReadOnlyList<double> sortedValues, double ohms)
+    {
+        var lo = 0;
+        var hi = sortedValues.Count - 1;
+        if (ohms <= sortedValues[lo])
+        {
+            yield return sortedValues[lo];
+            yield break;
+        }
+
+        if (ohms >= sortedValues[hi])
+        {
+            yield return sortedValues[hi];
+            yield break;
+        }
+
+        // Invariant: sortedValues[lo] < ohms ≤ sortedValues[hi].
+        while (hi - lo > 1)
+        {
+            var mid = (lo + hi) / 2;
+            if (sortedValues[mid] < ohms)
+            {
+                lo = mid;
+            }
+            else
+            {
+                hi = mid;
+            }
+        }
+
+        yield return sortedValues[lo];
+        yield return sortedValues[hi];
     }
 
     private static double Closest(IReadOnlyList<double> sortedValues, double ohms)
