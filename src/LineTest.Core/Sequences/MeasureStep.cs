@@ -1,3 +1,4 @@
+using LineTest.Core.Decisions;
 using System.Text.Json.Serialization;
 
 namespace LineTest.Core.Sequences;
@@ -19,5 +20,5 @@ public sealed record MeasureStep : StepDefinition
     public int Samples { get; init; } = 10;
 
     /// <summary>Optional limits on the unit's output (unit V or mV).</summary>
-    public LimitDefinition? OutputLimits { get; init; }
+    public LimitSpec? OutputLimits { get; init; }
 }

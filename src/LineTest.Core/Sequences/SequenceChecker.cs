@@ -1,3 +1,4 @@
+using LineTest.Core.Decisions;
 using System.Globalization;
 using System.Text.RegularExpressions;
 using LineTest.Core.Definitions;
@@ -278,7 +279,7 @@ public static class SequenceChecker
     private static void Samples(int samples, string path, ProblemList problems) =>
         problems.AddIf(samples < 1, $"{path}.samples", $"samples must be 1 or more, not {samples}");
 
-    private static void CheckLimits(LimitDefinition limits, string path, string[] allowedUnits, ProblemList problems)
+    private static void CheckLimits(LimitSpec limits, string path, string[] allowedUnits, ProblemList problems)
     {
         if (!UnitsOfMeasure.IsKnown(limits.Unit))
         {
@@ -296,11 +297,6 @@ public static class SequenceChecker
         if (limits.Low is { } low && limits.High is { } high && low > high)
         {
             problems.Add($"{path}.low", $"the low limit ({F(low)}) is above the high limit ({F(high)})");
-        }
-
-        if (limits.Rule is not ("simple" or "guarded"))
-        {
-            problems.Add($"{path}.rule", $"unknown decision rule '{limits.Rule}' (known: simple, guarded)");
         }
 
         problems.AddIf(limits.GuardBandFactor < 0 || !double.IsFinite(limits.GuardBandFactor), $"{path}.guardBandFactor",

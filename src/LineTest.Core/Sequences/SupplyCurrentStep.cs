@@ -1,3 +1,4 @@
+using LineTest.Core.Decisions;
 using System.Text.Json.Serialization;
 
 namespace LineTest.Core.Sequences;
@@ -10,7 +11,7 @@ public sealed record SupplyCurrentStep : StepDefinition
     public override string Kind => "supply-current";
 
     /// <summary>Limits (unit A, mA or uA).</summary>
-    public required LimitDefinition Limits { get; init; }
+    public required LimitSpec Limits { get; init; }
 
     /// <summary>Readings averaged.</summary>
     public int Samples { get; init; } = 3;

@@ -1,3 +1,4 @@
+using LineTest.Core.Decisions;
 using System.Text.Json.Serialization;
 
 namespace LineTest.Core.Sequences;
@@ -19,5 +20,5 @@ public sealed record VerifyStep : StepDefinition
     public int Samples { get; init; } = 10;
 
     /// <summary>Limits on the indicated error (unit degC or K).</summary>
-    public required LimitDefinition Limits { get; init; }
+    public required LimitSpec Limits { get; init; }
 }

@@ -1,4 +1,5 @@
 using System.Globalization;
+using LineTest.Core.Decisions;
 using LineTest.Core.Fixtures;
 using LineTest.Core.Results;
 using LineTest.Core.Sequences;
@@ -32,6 +33,7 @@ public sealed class BatchCoordinator
     private readonly IBatchObserver _observer;
     private readonly ILogger _logger;
     private readonly InstrumentTiming _timing;
+    private double _lastReferenceRaw = double.NaN;
 
     /// <summary>Creates a coordinator for one fixture's instruments.</summary>
     /// <param name="rig">The fixture's instruments.</param>
@@ -279,13 +281,19 @@ public sealed class BatchCoordinator
         }
 
         var mean = amps.Average();
-        var typeA = StandardError(amps);
-        var meterA = MeterStandardUncertaintyVolts(mean * slot.SupplyShuntOhms) / slot.SupplyShuntOhms;
-        var u = Math.Sqrt(typeA * typeA + meterA * meterA);
+        var meanVolts = mean * slot.SupplyShuntOhms;
+        var budget = new UncertaintyBudget(
+        [
+            .. TypeA("repeatability", amps),
+            UncertaintyComponent.FromRectangular("meter accuracy", MeterHalfWidthVolts(meanVolts), 1 / slot.SupplyShuntOhms),
+            UncertaintyComponent.FromResolution("meter resolution", _fixture.Meter.ResolutionVolts, 1 / slot.SupplyShuntOhms),
+        ]);
         var unitSymbol = step.Limits.Unit;
-        var reading = ReadingJudge.Judge(step.DisplayName, UnitsOfMeasure.FromBase(mean, unitSymbol), step.Limits,
-            UnitsOfMeasure.FromBase(u, unitSymbol)) with
-        { Step = step.DisplayName, Samples = step.Samples, At = _time.GetUtcNow() };
+        var scale = UnitsOfMeasure.FromBase(1, unitSymbol);
+        var u = budget.Expand();
+        var reading = ReadingFactory.Create(step.DisplayName, mean * scale, step.Limits,
+            new ExpandedUncertainty(u.StandardUncertainty * scale, u.CoverageFactor), step.Samples, _time.GetUtcNow()) with
+        { Step = step.DisplayName };
         unit.Add(reading);
     }
 
@@ -430,20 +438,34 @@ public sealed class BatchCoordinator
 
         var (references, outputs) = await SampleRoundsAsync(units, step.Samples, ct).ConfigureAwait(false);
         var refMean = references.Average();
-        var refU = ReferenceStandardUncertaintyC(references);
+        var refU = ReferenceBudget(references).Expand();
         var now = _time.GetUtcNow();
         foreach (var unit in units)
         {
             var samples = outputs[unit];
             var mean = samples.Average();
-            var u = Math.Sqrt(Square(StandardError(samples)) + Square(MeterStandardUncertaintyVolts(mean)));
+            var u = new UncertaintyBudget(
+            [
+                .. TypeA("repeatability", samples),
+                UncertaintyComponent.FromRectangular("meter accuracy", MeterHalfWidthVolts(mean)),
+                UncertaintyComponent.FromResolution("meter resolution", _fixture.Meter.ResolutionVolts),
+            ]).Expand();
             unit.CalibrationPoints[step.Setpoint] = (refMean, mean);
-            unit.Add(ReadingJudge.Record($"{step.DisplayName}.reference", refMean, "degC", refU) with
+            unit.Add(UnlimitedReading.Create($"{step.DisplayName}.reference", refMean, "degC", refU) with
             { Step = step.DisplayName, Setpoint = step.Setpoint, Samples = step.Samples, At = now });
-            var output = step.OutputLimits is { } limits
-                ? ReadingJudge.Judge($"{step.DisplayName}.output", UnitsOfMeasure.FromBase(mean, limits.Unit), limits, UnitsOfMeasure.FromBase(u, limits.Unit))
-                : ReadingJudge.Record($"{step.DisplayName}.output", mean, "V", u);
-            unit.Add(output with { Step = step.DisplayName, Setpoint = step.Setpoint, Samples = step.Samples, At = now });
+            Reading output;
+            if (step.OutputLimits is { } limits)
+            {
+                var scale = UnitsOfMeasure.FromBase(1, limits.Unit);
+                output = ReadingFactory.Create($"{step.DisplayName}.output", mean * scale, limits,
+                    new ExpandedUncertainty(u.StandardUncertainty * scale, u.CoverageFactor), step.Samples, now);
+            }
+            else
+            {
+                output = UnlimitedReading.Create($"{step.DisplayName}.output", mean, "V", u) with { Samples = step.Samples, At = now };
+            }
+
+            unit.Add(output with { Step = step.DisplayName, Setpoint = step.Setpoint });
         }
     }
 
@@ -460,7 +482,7 @@ public sealed class BatchCoordinator
         var target = batch.Request.Sequence.Trim?.Dac?.Target;
         var slope = target?.SlopeVoltsPerC ?? batch.Request.Sequence.Soak.OutputVoltsPerC ?? 0.01;
         var offset = target?.OffsetVolts ?? 0;
-        var refU = ReferenceStandardUncertaintyC(references);
+        var referenceBudget = ReferenceBudget(references);
         var now = _time.GetUtcNow();
         foreach (var unit in units)
         {
@@ -473,13 +495,21 @@ public sealed class BatchCoordinator
 
             var meanError = errors.Average();
             var meanVolts = volts.Average();
-            var meterC = MeterStandardUncertaintyVolts(meanVolts) / Math.Abs(slope);
-            var u = Math.Sqrt(Square(StandardError(errors)) + Square(meterC) + Square(refU));
-            var reading = ReadingJudge.Judge(step.DisplayName, meanError, step.Limits, u) with
-            { Step = step.DisplayName, Setpoint = step.Setpoint, Samples = step.Samples, At = now };
-            unit.Add(ReadingJudge.Record($"{step.DisplayName}.reference", references.Average(), "degC", refU) with
+
+            // Error = indicated − reference: the unit's repeatability (Type A of the error samples), the meter's
+            // specification and resolution through the sensitivity 1/S, and the reference certificate
+            // (JCGM 100:2008 §4.2, §4.3, §5.1).
+            var u = new UncertaintyBudget(
+            [
+                .. TypeA("repeatability", errors),
+                UncertaintyComponent.FromRectangular("meter accuracy", MeterHalfWidthVolts(meanVolts), 1 / Math.Abs(slope)),
+                UncertaintyComponent.FromResolution("meter resolution", _fixture.Meter.ResolutionVolts, 1 / Math.Abs(slope)),
+                .. referenceBudget.Components.Where(c => c.Name != "reference repeatability"),
+            ]).Expand();
+            unit.Add(UnlimitedReading.Create($"{step.DisplayName}.reference", references.Average(), "degC", referenceBudget.Expand()) with
             { Step = step.DisplayName, Setpoint = step.Setpoint, Samples = step.Samples, At = now });
-            unit.Add(reading);
+            unit.Add(ReadingFactory.Create(step.DisplayName, meanError, step.Limits, u, step.Samples, now) with
+            { Step = step.DisplayName, Setpoint = step.Setpoint });
         }
     }
 
@@ -554,6 +584,7 @@ public sealed class BatchCoordinator
             throw new BatchFaultException($"reference thermometer lost: {ex.Message}", ex);
         }
 
+        _lastReferenceRaw = raw;
         var celsius = _referenceToCelsius(raw);
         if (!double.IsFinite(celsius))
         {
@@ -595,37 +626,36 @@ public sealed class BatchCoordinator
         }
     }
 
-    /// <summary>Standard uncertainty of the meter for a reading, from its specification as a rectangular half-width (JCGM 100:2008 §4.3.7).</summary>
-    private double MeterStandardUncertaintyVolts(double volts)
+    /// <summary>Half-width of the meter's specification for a reading, volts (± % of reading + offset).</summary>
+    private double MeterHalfWidthVolts(double volts)
     {
         var meter = _fixture.Meter;
-        var halfWidth = meter.AccuracyPercentOfReading / 100.0 * Math.Abs(volts) + meter.AccuracyOffsetVolts;
-        var resolution = meter.ResolutionVolts / (2 * Math.Sqrt(3));
-        return Math.Sqrt(Square(halfWidth / Math.Sqrt(3)) + Square(resolution));
+        return meter.AccuracyPercentOfReading / 100.0 * Math.Abs(volts) + meter.AccuracyOffsetVolts;
     }
 
-    /// <summary>Reference standard uncertainty: certificate U/k and Type A of the mean (JCGM 100:2008 §4.2, §4.3).</summary>
-    private double ReferenceStandardUncertaintyC(double[] references)
+    /// <summary>Type A of the mean when there are two samples or more; a single sample carries none.</summary>
+    private static UncertaintyComponent[] TypeA(string name, double[] samples, double sensitivity = 1.0) =>
+        samples.Length < 2 ? [] : [UncertaintyComponent.FromSamples(name, samples, sensitivity)];
+
+    /// <summary>°C per raw unit of the reference at its last reading (numerical derivative of the conversion).</summary>
+    private double ReferenceCelsiusPerRaw()
+    {
+        var h = Math.Max(_fixture.Reference.ReadoutResolution, Math.Abs(_lastReferenceRaw) * 1e-6);
+        var slope = (_referenceToCelsius(_lastReferenceRaw + h) - _referenceToCelsius(_lastReferenceRaw - h)) / (2 * h);
+        return double.IsFinite(slope) ? slope : 0;
+    }
+
+    /// <summary>Reference temperature budget: certificate U/k, readout resolution and repeatability (JCGM 100:2008 §4.2, §4.3).</summary>
+    private UncertaintyBudget ReferenceBudget(double[] references)
     {
         var reference = _fixture.Reference;
-        var certificate = reference.CertificateExpandedUncertaintyC / reference.CertificateCoverageFactor;
-        return Math.Sqrt(Square(certificate) + Square(StandardError(references)));
+        return new UncertaintyBudget(
+        [
+            UncertaintyComponent.FromExpanded("reference certificate", reference.CertificateExpandedUncertaintyC, reference.CertificateCoverageFactor),
+            UncertaintyComponent.FromResolution("reference readout resolution", reference.ReadoutResolution, ReferenceCelsiusPerRaw()),
+            .. TypeA("reference repeatability", references),
+        ]);
     }
-
-    /// <summary>Type A standard uncertainty of the mean, s/√n (JCGM 100:2008 §4.2.3); zero for a single sample.</summary>
-    private static double StandardError(double[] samples)
-    {
-        if (samples.Length < 2)
-        {
-            return 0;
-        }
-
-        var mean = samples.Average();
-        var ss = samples.Sum(x => Square(x - mean));
-        return Math.Sqrt(ss / (samples.Length - 1) / samples.Length);
-    }
-
-    private static double Square(double x) => x * x;
 
     private SlotDefinition SlotOf(UnitContext unit) => _fixture.Slots.First(s => s.Slot == unit.Slot);
 

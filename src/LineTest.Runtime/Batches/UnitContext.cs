@@ -55,7 +55,7 @@ internal sealed class UnitContext
         if (reading.Verdict != Verdict.Pass && FirstFailingReading is null)
         {
             FirstFailingReading = reading.Name;
-            FirstFailureReason = reading.Note ?? ReadingText.Describe(reading);
+            FirstFailureReason = reading.Note is { } note ? (note.StartsWith(reading.Name, StringComparison.Ordinal) ? note : $"{reading.Name}: {note}") : ReadingText.Describe(reading);
         }
     }
 }
