@@ -151,7 +151,9 @@ public sealed class VirtualTimeProvider : TimeProvider
             }
 
             timer.Generation++;
-            timer.Period = period;
+
+            // As with System.Threading.Timer, a zero period means "fire once".
+            timer.Period = period == TimeSpan.Zero ? Timeout.InfiniteTimeSpan : period;
             timer.ScheduledSequence = -1;
             if (dueTime != Timeout.InfiniteTimeSpan)
             {

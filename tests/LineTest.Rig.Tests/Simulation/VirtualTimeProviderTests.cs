@@ -166,6 +166,21 @@ public sealed class VirtualTimeProviderTests
     }
 
     [Fact]
+    public void CreateTimer_ZeroPeriod_FiresOnce()
+    {
+        var clock = new VirtualTimeProvider(Start) { AutoAdvance = false };
+        var count = 0;
+        using var timer = clock.CreateTimer(_ => Interlocked.Increment(ref count), null, TimeSpan.FromSeconds(1), TimeSpan.Zero);
+        using var sentinel = new ManualResetEventSlim();
+        using var later = clock.CreateTimer(_ => sentinel.Set(), null, TimeSpan.FromMinutes(1), Timeout.InfiniteTimeSpan);
+        clock.AutoAdvance = true;
+
+        Assert.True(sentinel.Wait(HangGuard));
+        Assert.Equal(1, Volatile.Read(ref count));
+        Assert.Equal(Start.AddMinutes(1), clock.GetUtcNow());
+    }
+
+    [Fact]
     public void CreateTimer_InfiniteDueTime_NeverFires()
     {
         var clock = new VirtualTimeProvider(Start);
