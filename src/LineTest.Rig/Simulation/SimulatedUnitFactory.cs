@@ -63,7 +63,9 @@ public sealed class SimulatedUnitFactory
     }
 
     /// <summary>The next part; defective with probability <see cref="SimulationDefinition.DefectRate"/>, the kind chosen evenly.</summary>
-    public SimulatedUnit NextUnit()
+    public SimulatedUnit NextUnit() => Build(DrawDefect());
+
+    private UnitDefect DrawDefect()
     {
         var isDefective = _stream.NextDouble() < _simulation.DefectRate;
         var kind = _stream.Next(3);
@@ -73,7 +75,7 @@ public sealed class SimulatedUnitFactory
             1 => UnitDefect.StuckDac,
             _ => UnitDefect.Silent,
         };
-        return Build(defect);
+        return defect;
     }
 
     /// <summary>The next part with the given defect (or none), for tests and demonstrations.</summary>
@@ -85,14 +87,24 @@ public sealed class SimulatedUnitFactory
         return Build(defect);
     }
 
-    private SimulatedUnit Build(UnitDefect defect)
+    /// <summary>
+    /// The next part, carrying a serial chosen by the caller: the simulated operator scans a label and the
+    /// simulator puts a part with that serial in the slot (for <c>linetest run</c> on the simulator).
+    /// </summary>
+    public SimulatedUnit NextUnit(string serial)
+    {
+        ArgumentException.ThrowIfNullOrWhiteSpace(serial);
+        return Build(DrawDefect(), serial);
+    }
+
+    private SimulatedUnit Build(UnitDefect defect, string? serialOverride = null)
     {
         if (_nextCounter > MaxCounter)
         {
             throw new InvalidOperationException($"The serial counter of week {_yearWeek:D4} is exhausted after {MaxCounter} units.");
         }
 
-        var serial = string.Create(CultureInfo.InvariantCulture, $"{_design.SerialPrefix}-{_yearWeek:D4}-{_nextCounter:D6}");
+        var serial = serialOverride ?? string.Create(CultureInfo.InvariantCulture, $"{_design.SerialPrefix}-{_yearWeek:D4}-{_nextCounter:D6}");
         _nextCounter++;
         var partSeed = _stream.Next();
         var noiseSeed = _stream.Next();

@@ -177,7 +177,7 @@ public sealed partial class StationService : BackgroundService
                 continue;
             }
 
-            rig.Load(slot, factory.NextUnit());
+            rig.Load(slot, factory.NextUnit(serial));
             loads.Add(new SlotLoad(slot, serial));
             LogScanned(_logger, serial, slot);
         }
