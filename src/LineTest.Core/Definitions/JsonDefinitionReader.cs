@@ -41,6 +41,14 @@ public static partial class JsonDefinitionReader
             int? line = reason.StartsWith(MissingPrefix, StringComparison.Ordinal) || ex.LineNumber is null
                 ? locator.LineOf(path)
                 : checked((int)ex.LineNumber.Value + 1);
+
+            // The reader notices a missing comma at the next token, usually on the next line; the comma belongs
+            // after the value before it, so name that value's line.
+            if (reason == MissingCommaReason && ex.LineNumber is { } errorLine && ex.BytePositionInLine is { } errorByte)
+            {
+                line = LineBefore(text, errorLine, errorByte) ?? line;
+            }
+
             return new ParsedDefinition<T>(null, [new DefinitionProblem(file, line, path, reason)], sha, locator);
         }
         catch (NotSupportedException ex) when (MissingDiscriminator().Match(ex.Message) is { Success: true } missing)
@@ -136,7 +144,7 @@ public static partial class JsonDefinitionReader
     {
         if (message.Contains("is invalid after a value", StringComparison.Ordinal))
         {
-            return "not valid JSON here: a comma is missing before this (or a bracket is not closed)";
+            return MissingCommaReason;
         }
 
         if (message.Contains("is invalid within a JSON string", StringComparison.Ordinal) && message.Contains("0x0A", StringComparison.Ordinal))
@@ -152,6 +160,39 @@ public static partial class JsonDefinitionReader
         if (InvalidStart().Match(message) is { Success: true } start)
         {
             return $"not valid JSON here: a value cannot start with '{start.Groups[1].Value}' (strings need double quotes; NaN and Infinity are not allowed)";
+        }
+
+        return null;
+    }
+
+    /// <summary>
+    /// The 1-based line of the last non-blank byte before the position (0-based line, 0-based byte in that line),
+    /// or null when there is none.
+    /// </summary>
+    private static int? LineBefore(ReadOnlySpan<byte> text, long line0, long byteInLine)
+    {
+        var offset = 0;
+        for (var l = 0L; l < line0 && offset < text.Length; offset++)
+        {
+            if (text[offset] == (byte)'\n')
+            {
+                l++;
+            }
+        }
+
+        var line = checked((int)line0 + 1);
+        for (var i = Math.Min(checked(offset + (int)byteInLine), text.Length) - 1; i >= 0; i--)
+        {
+            switch (text[i])
+            {
+                case (byte)'\n':
+                    line--;
+                    break;
+                case (byte)' ' or (byte)'\t' or (byte)'\r':
+                    break;
+                default:
+                    return line;
+            }
         }
 
         return null;
@@ -226,6 +267,8 @@ public static partial class JsonDefinitionReader
         utf8.Length >= 3 && utf8[0] == 0xEF && utf8[1] == 0xBB && utf8[2] == 0xBF ? utf8.AsSpan(3) : utf8;
 
     private const string MissingPrefix = "missing required propert";
+
+    private const string MissingCommaReason = "not valid JSON here: a comma is missing after this value (or a bracket is not closed)";
 
     [GeneratedRegex(@"\s*Path: .*$", RegexOptions.Singleline)]
     private static partial Regex LocationSuffix();
