@@ -62,6 +62,9 @@ public static class SequenceChecker
         Positive(s.WindowSeconds, "$.stability.windowSeconds", problems);
         Positive(s.SampleIntervalSeconds, "$.stability.sampleIntervalSeconds", problems);
         Positive(s.TimeoutSeconds, "$.stability.timeoutSeconds", problems);
+
+        // A zero or negative bound could never be met: every settle would run into its timeout.
+        Positive(s.MaxOffsetFromSetpointC, "$.stability.maxOffsetFromSetpointC", problems);
         problems.AddIf(s.SampleIntervalSeconds > 0 && s.WindowSeconds > 0 && s.WindowSeconds < 2 * s.SampleIntervalSeconds,
             "$.stability.windowSeconds", "the window must hold at least three readings (two sample intervals or more)");
         problems.AddIf(s.TimeoutSeconds > 0 && s.TimeoutSeconds <= s.WindowSeconds,

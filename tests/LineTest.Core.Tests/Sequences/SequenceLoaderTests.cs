@@ -83,6 +83,8 @@ public sealed class SequenceLoaderTests
             "the window must hold at least three readings"),
         ["stability band zero"] = new("\"bandC\": 0.05,", "\"bandC\": 0,", "\"bandC\"", "$.stability.bandC", "must be a positive number, not 0"),
         ["stability band overflowing"] = new("\"bandC\": 0.05,", "\"bandC\": 1e999,", "\"bandC\"", "$.stability.bandC", "must be a positive number within range"),
+        ["negative offset from setpoint"] = new("\"bandC\": 0.05,", "\"bandC\": 0.05, \"maxOffsetFromSetpointC\": -1,", "\"bandC\"", "$.stability.maxOffsetFromSetpointC",
+            "must be a positive number, not -1"),
         ["negative minimum soak"] = new("\"minimumSeconds\": 30,", "\"minimumSeconds\": -1,", "minimumSeconds", "$.soak.minimumSeconds", "the minimum soak cannot be negative"),
 
         // Regression: the soak's drift window only starts after the minimum soak, so a timeout shorter than both
