@@ -19,10 +19,11 @@ public static partial class JsonDefinitionReader
     {
         ArgumentNullException.ThrowIfNull(utf8);
         var sha = Convert.ToHexStringLower(SHA256.HashData(utf8));
-        var locator = JsonLocator.Build(utf8);
+        var text = SkipBom(utf8);
+        var locator = JsonLocator.Build(text);
         try
         {
-            var value = JsonSerializer.Deserialize<T>(SkipBom(utf8), LineTestJson.Definitions);
+            var value = JsonSerializer.Deserialize<T>(text, LineTestJson.Definitions);
             if (value is null)
             {
                 return new ParsedDefinition<T>(null, [new DefinitionProblem(file, 1, "$", "the file holds null instead of an object")], sha, locator);
@@ -33,8 +34,33 @@ public static partial class JsonDefinitionReader
         catch (JsonException ex)
         {
             var path = string.IsNullOrEmpty(ex.Path) ? "$" : ex.Path;
-            int? line = ex.LineNumber is { } l ? checked((int)l + 1) : locator.LineOf(path);
-            return new ParsedDefinition<T>(null, [new DefinitionProblem(file, line, path, PlainReason(ex))], sha, locator);
+            var reason = PlainReason(ex, KindsAt(typeof(T), path));
+
+            // A missing property has no line of its own: name the line where the object that lacks it begins,
+            // not the line of its closing brace where the serialiser noticed.
+            int? line = reason.StartsWith(MissingPrefix, StringComparison.Ordinal) || ex.LineNumber is null
+                ? locator.LineOf(path)
+                : checked((int)ex.LineNumber.Value + 1);
+
+            // The reader notices a missing comma at the next token, usually on the next line; the comma belongs
+            // after the value before it, so name that value's line.
+            if (reason == MissingCommaReason && ex.LineNumber is { } errorLine && ex.BytePositionInLine is { } errorByte)
+            {
+                line = LineBefore(text, errorLine, errorByte) ?? line;
+            }
+
+            return new ParsedDefinition<T>(null, [new DefinitionProblem(file, line, path, reason)], sha, locator);
+        }
+        catch (NotSupportedException ex) when (MissingDiscriminator().Match(ex.Message) is { Success: true } missing)
+        {
+            // An object of a polymorphic type (a step) without its "kind" key: the serialiser reports this as
+            // unsupported rather than as bad JSON, but for the engineer it is an ordinary mistake in the file.
+            var path = missing.Groups["path"].Value;
+            var kinds = KindsAt(typeof(T), path);
+            var reason = kinds is null
+                ? "the object needs its 'kind' key"
+                : $"the object needs a '{kinds.Value.Key}' key naming its kind (known: {string.Join(", ", kinds.Value.Kinds)})";
+            return new ParsedDefinition<T>(null, [new DefinitionProblem(file, locator.LineOf(path), path, reason)], sha, locator);
         }
     }
 
@@ -59,12 +85,15 @@ public static partial class JsonDefinitionReader
     }
 
     /// <summary>Rewrites the serialiser's message into plain words without its own location suffix.</summary>
-    internal static string PlainReason(JsonException ex)
+    internal static string PlainReason(JsonException ex) => PlainReason(ex, null);
+
+    private static string PlainReason(JsonException ex, (string Key, IReadOnlyList<string> Kinds)? kinds)
     {
         var message = LocationSuffix().Replace(ex.Message, string.Empty).Trim();
         if (MissingRequired().Match(message) is { Success: true } missing)
         {
-            return $"missing required property {missing.Groups[1].Value.Trim()}";
+            var names = missing.Groups[1].Value.Trim();
+            return names.Contains(',', StringComparison.Ordinal) ? $"{MissingPrefix}ies {names}" : $"{MissingPrefix}y {names}";
         }
 
         if (UnknownProperty().Match(message) is { Success: true } unknown)
@@ -74,7 +103,14 @@ public static partial class JsonDefinitionReader
 
         if (UnknownDiscriminator().Match(message) is { Success: true } kind)
         {
-            return $"unknown kind '{kind.Groups[1].Value}'";
+            return kinds is { } k
+                ? $"unknown kind '{kind.Groups[1].Value}' (known: {string.Join(", ", k.Kinds)})"
+                : $"unknown kind '{kind.Groups[1].Value}'";
+        }
+
+        if (message.Contains("duplicate", StringComparison.Ordinal) && DuplicateMetadata().Match(message) is { Success: true } duplicate)
+        {
+            return $"'{duplicate.Groups[1].Value}' is given twice";
         }
 
         if (message.Contains("could not be converted to", StringComparison.Ordinal))
@@ -84,9 +120,15 @@ public static partial class JsonDefinitionReader
             return $"expected {expected}";
         }
 
-        if (message.Contains("null", StringComparison.OrdinalIgnoreCase) && message.Contains("non-nullable", StringComparison.OrdinalIgnoreCase))
+        if (message.Contains("null", StringComparison.OrdinalIgnoreCase)
+            && (message.Contains("non-nullable", StringComparison.OrdinalIgnoreCase) || message.Contains("allow setting null", StringComparison.Ordinal)))
         {
             return "a value is required here, not null";
+        }
+
+        if (SyntaxReason(message) is { } syntax)
+        {
+            return syntax;
         }
 
         if (ex.InnerException is { } inner && message.Length == 0)
@@ -95,6 +137,104 @@ public static partial class JsonDefinitionReader
         }
 
         return $"not valid JSON here: {message}";
+    }
+
+    /// <summary>The reader's syntax messages most often met in hand-edited files, in plain words.</summary>
+    private static string? SyntaxReason(string message)
+    {
+        if (message.Contains("is invalid after a value", StringComparison.Ordinal))
+        {
+            return MissingCommaReason;
+        }
+
+        if (message.Contains("is invalid within a JSON string", StringComparison.Ordinal) && message.Contains("0x0A", StringComparison.Ordinal))
+        {
+            return "not valid JSON here: a string is not closed on this line (a closing quote is missing)";
+        }
+
+        if (message.Contains("end of data", StringComparison.Ordinal) || message.Contains("Expected depth to be zero", StringComparison.Ordinal))
+        {
+            return "not valid JSON here: the file ends before every object and array is closed (is it cut short?)";
+        }
+
+        if (InvalidStart().Match(message) is { Success: true } start)
+        {
+            return $"not valid JSON here: a value cannot start with '{start.Groups[1].Value}' (strings need double quotes; NaN and Infinity are not allowed)";
+        }
+
+        return null;
+    }
+
+    /// <summary>
+    /// The 1-based line of the last non-blank byte before the position (0-based line, 0-based byte in that line),
+    /// or null when there is none.
+    /// </summary>
+    private static int? LineBefore(ReadOnlySpan<byte> text, long line0, long byteInLine)
+    {
+        var offset = 0;
+        for (var l = 0L; l < line0 && offset < text.Length; offset++)
+        {
+            if (text[offset] == (byte)'\n')
+            {
+                l++;
+            }
+        }
+
+        var line = checked((int)line0 + 1);
+        for (var i = Math.Min(checked(offset + (int)byteInLine), text.Length) - 1; i >= 0; i--)
+        {
+            switch (text[i])
+            {
+                case (byte)'\n':
+                    line--;
+                    break;
+                case (byte)' ' or (byte)'\t' or (byte)'\r':
+                    break;
+                default:
+                    return line;
+            }
+        }
+
+        return null;
+    }
+
+    /// <summary>
+    /// The discriminator key and known kinds of the polymorphic type found at <paramref name="jsonPath"/> when
+    /// walking the serialiser's contract from <paramref name="root"/>, or null when the path leads elsewhere.
+    /// </summary>
+    private static (string Key, IReadOnlyList<string> Kinds)? KindsAt(Type root, string jsonPath)
+    {
+        var info = LineTestJson.Definitions.GetTypeInfo(root);
+        foreach (Match segment in PathSegment().Matches(jsonPath))
+        {
+            if (segment.Groups["index"].Success)
+            {
+                if (info.ElementType is not { } element)
+                {
+                    return null;
+                }
+
+                info = LineTestJson.Definitions.GetTypeInfo(element);
+                continue;
+            }
+
+            var name = segment.Groups["name"].Success ? segment.Groups["name"].Value : segment.Groups["quoted"].Value;
+            var property = info.Properties.FirstOrDefault(p => p.Name == name);
+            if (property is null)
+            {
+                return null;
+            }
+
+            info = LineTestJson.Definitions.GetTypeInfo(property.PropertyType);
+        }
+
+        if (info.PolymorphismOptions is not { } polymorphism)
+        {
+            return null;
+        }
+
+        var kinds = polymorphism.DerivedTypes.Select(d => d.TypeDiscriminator?.ToString()).OfType<string>().ToList();
+        return (polymorphism.TypeDiscriminatorPropertyName, kinds);
     }
 
     private static string Describe(string clrType)
@@ -126,6 +266,10 @@ public static partial class JsonDefinitionReader
     private static ReadOnlySpan<byte> SkipBom(byte[] utf8) =>
         utf8.Length >= 3 && utf8[0] == 0xEF && utf8[1] == 0xBB && utf8[2] == 0xBF ? utf8.AsSpan(3) : utf8;
 
+    private const string MissingPrefix = "missing required propert";
+
+    private const string MissingCommaReason = "not valid JSON here: a comma is missing after this value (or a bracket is not closed)";
+
     [GeneratedRegex(@"\s*Path: .*$", RegexOptions.Singleline)]
     private static partial Regex LocationSuffix();
 
@@ -137,6 +281,18 @@ public static partial class JsonDefinitionReader
 
     [GeneratedRegex(@"type discriminator id '([^']*)'")]
     private static partial Regex UnknownDiscriminator();
+
+    [GeneratedRegex(@"duplicate '([^']*)' metadata property")]
+    private static partial Regex DuplicateMetadata();
+
+    [GeneratedRegex(@"'(.)' is an invalid start of a value")]
+    private static partial Regex InvalidStart();
+
+    [GeneratedRegex(@"must specify a type discriminator\.?\s*Path: (?<path>\S+)")]
+    private static partial Regex MissingDiscriminator();
+
+    [GeneratedRegex(@"\.(?<name>[^.\[]+)|\['(?<quoted>(?:[^'\\]|\\.)*)'\]|\[(?<index>\d+)\]")]
+    private static partial Regex PathSegment();
 
     [GeneratedRegex(@"could not be converted to ([^.\s]+(\.[^.\s]+)*)")]
     private static partial Regex ConvertTarget();

@@ -15,9 +15,19 @@ public sealed class JsonLocator
     {
     }
 
-    /// <summary>Builds a locator for UTF-8 JSON text. Malformed text yields a locator that knows the part before the error.</summary>
+    /// <summary>
+    /// Builds a locator for UTF-8 JSON text (a leading byte-order mark is allowed). Malformed text yields a locator
+    /// that knows the part before the error.
+    /// </summary>
     public static JsonLocator Build(ReadOnlySpan<byte> utf8)
     {
+        // The reader rejects a byte-order mark, which editors on Windows like to write; it precedes line 1, so
+        // dropping it changes no line number.
+        if (utf8.StartsWith((ReadOnlySpan<byte>)[0xEF, 0xBB, 0xBF]))
+        {
+            utf8 = utf8[3..];
+        }
+
         var locator = new JsonLocator();
         var newlines = new List<int>();
         for (var i = 0; i < utf8.Length; i++)

@@ -20,7 +20,16 @@ public sealed class ProblemList
         }
     }
 
-    /// <summary>Turns the collected problems into located <see cref="DefinitionProblem"/>s.</summary>
-    public IReadOnlyList<DefinitionProblem> Locate(string file, JsonLocator locator) =>
-        _items.Select(p => new DefinitionProblem(file, locator.LineOf(p.Path), p.Path, p.Reason)).ToList();
+    /// <summary>
+    /// Turns the collected problems into located <see cref="DefinitionProblem"/>s, in file order (the checks run
+    /// in their own order; an engineer fixes a file from top to bottom). Problems on one line keep their order.
+    /// </summary>
+    public IReadOnlyList<DefinitionProblem> Locate(string file, JsonLocator locator)
+    {
+        ArgumentNullException.ThrowIfNull(locator);
+        return _items
+            .Select(p => new DefinitionProblem(file, locator.LineOf(p.Path), p.Path, p.Reason))
+            .OrderBy(p => p.Line ?? 0)
+            .ToList();
+    }
 }

@@ -64,22 +64,22 @@ public static class FixtureChecker
     {
         problems.AddIf(fixture.Slots.Count == 0, "$.slots", "a fixture needs at least one slot");
         var numbers = new HashSet<int>();
-        var channels = new Dictionary<int, int>();
+        var channels = new Dictionary<int, (int Slot, string Use)>();
         for (var i = 0; i < fixture.Slots.Count; i++)
         {
             var slot = fixture.Slots[i];
             var path = $"$.slots[{i}]";
             problems.AddIf(slot.Slot < 1, $"{path}.slot", "slot numbers start at 1");
             problems.AddIf(!numbers.Add(slot.Slot), $"{path}.slot", $"slot {slot.Slot} is defined twice");
-            foreach (var (channel, key) in new[] { (slot.OutputChannel, "outputChannel"), (slot.SupplyChannel, "supplyChannel") })
+            foreach (var (channel, key, use) in new[] { (slot.OutputChannel, "outputChannel", "output"), (slot.SupplyChannel, "supplyChannel", "supply shunt") })
             {
                 if (channels.TryGetValue(channel, out var other))
                 {
-                    problems.Add($"{path}.{key}", $"meter channel {channel} is already wired to slot {other}");
+                    problems.Add($"{path}.{key}", $"meter channel {channel} is already wired to the {other.Use} of slot {other.Slot}");
                 }
                 else
                 {
-                    channels[channel] = slot.Slot;
+                    channels[channel] = (slot.Slot, use);
                 }
             }
 

@@ -63,6 +63,9 @@ public static class SequenceChecker
         Positive(s.WindowSeconds, "$.stability.windowSeconds", problems);
         Positive(s.SampleIntervalSeconds, "$.stability.sampleIntervalSeconds", problems);
         Positive(s.TimeoutSeconds, "$.stability.timeoutSeconds", problems);
+
+        // A zero or negative bound could never be met: every settle would run into its timeout.
+        Positive(s.MaxOffsetFromSetpointC, "$.stability.maxOffsetFromSetpointC", problems);
         problems.AddIf(s.SampleIntervalSeconds > 0 && s.WindowSeconds > 0 && s.WindowSeconds < 2 * s.SampleIntervalSeconds,
             "$.stability.windowSeconds", "the window must hold at least three readings (two sample intervals or more)");
         problems.AddIf(s.TimeoutSeconds > 0 && s.TimeoutSeconds <= s.WindowSeconds,
@@ -78,8 +81,11 @@ public static class SequenceChecker
         Positive(s.TimeoutSeconds, "$.soak.timeoutSeconds", problems);
         problems.AddIf(s.SampleIntervalSeconds > 0 && s.WindowSeconds > 0 && s.WindowSeconds < 2 * s.SampleIntervalSeconds,
             "$.soak.windowSeconds", "the window must hold at least three readings (two sample intervals or more)");
-        problems.AddIf(s.TimeoutSeconds > 0 && s.TimeoutSeconds < Math.Max(s.MinimumSeconds, s.WindowSeconds),
-            "$.soak.timeoutSeconds", "the timeout must be at least the minimum soak and the window");
+        // The drift window starts once the minimum soak is over (the unit is still far from the block before), so
+        // the earliest a soak can end is the minimum plus the window; a shorter timeout errors every unit.
+        problems.AddIf(s.TimeoutSeconds > 0 && s.MinimumSeconds >= 0 && s.WindowSeconds > 0 && s.TimeoutSeconds < s.MinimumSeconds + s.WindowSeconds,
+            "$.soak.timeoutSeconds",
+            $"the timeout ({F(s.TimeoutSeconds)} s) must be at least the minimum soak plus the window ({F(s.MinimumSeconds + s.WindowSeconds)} s)");
     }
 
     private static HashSet<string> CheckSetpoints(IReadOnlyList<SetpointDefinition> setpoints, FixtureDefinition? fixture, ProblemList problems)
@@ -186,11 +192,10 @@ public static class SequenceChecker
             switch (step)
             {
                 case SettleStep settle:
-                    if (RequireSetpoint(settle.Setpoint, setpoints, $"{path}.setpoint", problems))
-                    {
-                        settledAt = settle.Setpoint;
-                    }
-
+                    // Remember even an unknown setpoint: the steps after it are then judged against what the engineer
+                    // meant to settle at, so one misspelt name gives one problem, not one per following step.
+                    RequireSetpoint(settle.Setpoint, setpoints, $"{path}.setpoint", problems);
+                    settledAt = settle.Setpoint;
                     break;
                 case MeasureStep measure:
                     RequireSettled(measure.Setpoint, settledAt, setpoints, path, problems);
@@ -267,7 +272,8 @@ public static class SequenceChecker
 
     private static void RequireSettled(string setpoint, string? settledAt, HashSet<string> setpoints, string path, ProblemList problems)
     {
-        if (RequireSetpoint(setpoint, setpoints, $"{path}.setpoint", problems) && settledAt != setpoint)
+        var settledAtKnown = settledAt is null || setpoints.Contains(settledAt);
+        if (RequireSetpoint(setpoint, setpoints, $"{path}.setpoint", problems) && settledAtKnown && settledAt != setpoint)
         {
             problems.Add($"{path}.setpoint",
                 settledAt is null
@@ -304,7 +310,8 @@ public static class SequenceChecker
     }
 
     private static void Positive(double value, string path, ProblemList problems) =>
-        problems.AddIf(!(value > 0) || !double.IsFinite(value), path, $"must be a positive number, not {F(value)}");
+        problems.AddIf(!(value > 0) || !double.IsFinite(value), path,
+            double.IsFinite(value) ? $"must be a positive number, not {F(value)}" : "must be a positive number within range (this one overflows)");
 
     private static string F(double value) => value.ToString("0.###", CultureInfo.InvariantCulture);
 }

@@ -1,0 +1,80 @@
+using LineTest.Core.Definitions;
+using LineTest.Core.Fixtures;
+using LineTest.Core.Sequences;
+using LineTest.Core.Tests.TestData;
+
+namespace LineTest.Core.Tests.Definitions;
+
+public sealed class JsonDefinitionReaderTests
+{
+    [Fact]
+    public void Parse_ValidFile_GivesValueHashAndLocatorWithoutProblems()
+    {
+        var parsed = JsonDefinitionReader.Parse<SequenceDefinition>("s.json", TestFiles.Utf8(TestFiles.SequenceBase));
+
+        Assert.Empty(parsed.Problems);
+        Assert.NotNull(parsed.Value);
+        Assert.Equal(64, parsed.Sha256!.Length);
+        Assert.Equal(TestFiles.LineOf(TestFiles.SequenceBase, "\"steps\""), parsed.Locator.LineOf("$.steps"));
+    }
+
+    [Fact]
+    public void Parse_SyntaxError_KeepsTheLocatorForThePartBeforeIt()
+    {
+        var text = TestFiles.Edit(TestFiles.SequenceBase, "\"steps\": [", "\"steps\": [[[");
+
+        var parsed = JsonDefinitionReader.Parse<SequenceDefinition>("s.json", TestFiles.Utf8(text));
+
+        Assert.Null(parsed.Value);
+        Assert.Single(parsed.Problems);
+        Assert.Equal(TestFiles.LineOf(text, "\"stability\""), parsed.Locator.LineOf("$.stability"));
+    }
+
+    [Fact]
+    public void Parse_UnknownKindInAFixture_HasNoKindListButStillAPlainReason()
+    {
+        // Fixtures have no polymorphic objects: the step-kind list must not leak into their messages.
+        var text = TestFiles.Edit(TestFiles.FixtureBase, "\"rig\": \"simulator\",", "\"rig\": \"simulator\", \"extra\": 1,");
+
+        var problem = Assert.Single(JsonDefinitionReader.Parse<FixtureDefinition>("f.json", TestFiles.Utf8(text)).Problems);
+
+        Assert.Equal("unknown property 'extra' (check the spelling; keys are camelCase)", problem.Reason);
+    }
+
+    [Fact]
+    public void Parse_StepWithoutKindInsideAnArrayOfSteps_ReportsInsteadOfThrowing()
+    {
+        // Regression: a step with no "kind" made the serialiser throw NotSupportedException, which escaped the
+        // loader and stopped the station instead of naming the line.
+        var text = TestFiles.Edit(TestFiles.SequenceBase, "{ \"kind\": \"settle\", \"setpoint\": \"cal-low\" }", "{ \"setpoint\": \"cal-low\" }");
+
+        var parsed = JsonDefinitionReader.Parse<SequenceDefinition>("s.json", TestFiles.Utf8(text));
+
+        var problem = Assert.Single(parsed.Problems);
+        Assert.Equal("$.steps[2]", problem.JsonPath);
+        Assert.Equal(TestFiles.LineOf(text, "{ \"setpoint\": \"cal-low\" }"), problem.Line);
+        Assert.Equal("the object needs a 'kind' key naming its kind (known: identify, supply-current, settle, measure, trim, verify, prompt)", problem.Reason);
+    }
+
+    [Fact]
+    public void Parse_WrongTypeForAnObject_SaysAnObjectWasExpected()
+    {
+        var text = TestFiles.Edit(TestFiles.SequenceBase, "\"trim\": {", "\"trim\": 5, \"unused\": {");
+
+        var problem = Assert.Single(JsonDefinitionReader.Parse<SequenceDefinition>("s.json", TestFiles.Utf8(text)).Problems);
+
+        Assert.Equal("$.trim", problem.JsonPath);
+        Assert.StartsWith("expected ", problem.Reason, StringComparison.Ordinal);
+        Assert.DoesNotContain("LineTest.", problem.Reason, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void ReadFile_MissingFile_HasNoHash()
+    {
+        var parsed = JsonDefinitionReader.ReadFile<SequenceDefinition>(Path.Combine(AppContext.BaseDirectory, "absent.json"));
+
+        Assert.Null(parsed.Sha256);
+        Assert.Null(parsed.Value);
+        Assert.Equal("file not found", Assert.Single(parsed.Problems).Reason);
+    }
+}

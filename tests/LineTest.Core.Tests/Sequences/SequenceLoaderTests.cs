@@ -1,0 +1,390 @@
+using System.Security.Cryptography;
+using System.Text;
+using LineTest.Core.Definitions;
+using LineTest.Core.Fixtures;
+using LineTest.Core.Sequences;
+using LineTest.Core.Tests.TestData;
+
+namespace LineTest.Core.Tests.Sequences;
+
+public sealed class SequenceLoaderTests
+{
+    private const string File = "bad.json";
+
+    private const string VerifyLimits = "\"limits\": { \"low\": -0.5, \"high\": 0.5, \"unit\": \"degC\" }";
+
+    /// <summary>
+    /// One kind of bad file: an edit of the valid base sequence, and where and why the loader must complain.
+    /// The expected line is the line of <see cref="LineMarker"/> in the edited text, counted independently.
+    /// </summary>
+    private sealed record BadSequence(string Find, string Replace, string LineMarker, string Path, string Reason, int ProblemCount = 1);
+
+    private static readonly Dictionary<string, BadSequence> BadSequences = new(StringComparer.Ordinal)
+    {
+        // Syntax: the reader stops at the first one.
+        ["missing comma"] = new("\"revision\": 1,", "\"revision\": 1", "\"revision\": 1", "$", "a comma is missing after this value"),
+        ["unterminated string"] = new("\"product\": \"CTP-40A\",", "\"product\": \"CTP-40A,", "\"product\"", "$.product", "a string is not closed"),
+        ["NaN literal"] = new("\"bandC\": 0.05,", "\"bandC\": NaN,", "\"bandC\"", "$.stability.bandC", "NaN and Infinity are not allowed"),
+
+        // Types and shape.
+        ["string where a number is"] = new("\"bandC\": 0.05,", "\"bandC\": \"0.05\",", "\"bandC\"", "$.stability.bandC", "expected a number"),
+        ["fraction where a whole number is"] = new("\"revision\": 1,", "\"revision\": 1.5,", "\"revision\"", "$.revision", "expected a whole number"),
+        ["null where a string is"] = new("\"id\": \"ctp40a-dac\",", "\"id\": null,", "\"id\"", "$.id", "a value is required here, not null"),
+        ["missing required property"] = new("    \"bandC\": 0.05,\n", string.Empty, "\"stability\": {", "$.stability", "missing required property 'bandC'"),
+        ["misspelt key"] = new("\"bandC\": 0.05,", "\"bandc\": 0.05,", "\"bandc\"", "$.stability.bandc", "unknown property 'bandc'"),
+        ["misspelt key in a step"] = new("\"name\": \"cal-low\", \"setpoint\": \"cal-low\", \"samples\": 10,", "\"name\": \"cal-low\", \"setpoint\": \"cal-low\", \"sample\": 10,",
+            "\"sample\"", "$.steps[3].sample", "unknown property 'sample'"),
+        ["unknown step kind"] = new("{ \"kind\": \"identify\" }", "{ \"kind\": \"identfy\" }", "identfy", "$.steps[0]",
+            "unknown kind 'identfy' (known: identify, supply-current, settle, measure, trim, verify, prompt)"),
+        ["step without kind"] = new("{ \"kind\": \"identify\" }", "{ \"name\": \"who\" }", "\"who\"", "$.steps[0]", "needs a 'kind' key"),
+        ["kind given twice"] = new("{ \"kind\": \"identify\" }", "{ \"kind\": \"identify\", \"kind\": \"settle\" }", "\"kind\": \"identify\", \"kind\"", "$.steps[0].kind", "'kind' is given twice"),
+
+        // Limits and units.
+        ["low limit above high limit"] = new("\"low\": 1.5, \"high\": 4.0", "\"low\": 5.5, \"high\": 4.0", "supply.current", "$.steps[1].limits.low",
+            "the low limit (5.5) is above the high limit (4)"),
+        ["unknown unit of measure"] = new("\"unit\": \"mA\"", "\"unit\": \"ma\"", "supply.current", "$.steps[1].limits.unit", "unknown unit of measure 'ma'"),
+        ["voltage unit on supply current"] = new("\"unit\": \"mA\"", "\"unit\": \"V\"", "supply.current", "$.steps[1].limits.unit",
+            "unit 'V' does not fit this reading (use A, mA, uA)"),
+        ["current unit on verify error"] = new("\"unit\": \"degC\"", "\"unit\": \"mA\"", "\"guarded\"", "$.steps[8].limits.unit", "unit 'mA' does not fit this reading (use degC, K)"),
+        ["unknown decision rule"] = new("\"rule\": \"guarded\"", "\"rule\": \"guardbanded\"", "guardbanded", "$.steps[8].limits.rule", "unknown decision rule 'guardbanded'"),
+
+        // Setpoints.
+        ["step naming a setpoint that does not exist"] = new("{ \"kind\": \"settle\", \"setpoint\": \"verify\" }", "{ \"kind\": \"settle\", \"setpoint\": \"verfy\" }", "verfy",
+            "$.steps[7].setpoint", "setpoint 'verfy' does not exist (known: cal-high, cal-low, verify)"),
+        ["setpoint outside the fixture's safe range"] = new("{ \"name\": \"cal-high\", \"celsius\": 40 }", "{ \"name\": \"cal-high\", \"celsius\": 140 }", "140",
+            "$.setpoints[1].celsius", "140 °C is outside the safe range of fixture 'sim-dryblock-4' (-30 … 125 °C)"),
+        ["duplicate setpoint name"] = new("{ \"name\": \"verify\", \"celsius\": 5 }", "{ \"name\": \"verify\", \"celsius\": 5 },\n    { \"name\": \"cal-low\", \"celsius\": -25 }", "-25",
+            "$.setpoints[3].name", "setpoint 'cal-low' is defined twice"),
+
+        // Step order.
+        ["measure before any settle"] = new("    { \"kind\": \"settle\", \"setpoint\": \"cal-low\" },\n", string.Empty, "\"name\": \"cal-low\", \"setpoint\"", "$.steps[2].setpoint",
+            "no settle step brings the source to 'cal-low' before this step"),
+        ["measure at a setpoint other than the one settled"] = new("{ \"kind\": \"settle\", \"setpoint\": \"cal-high\" }", "{ \"kind\": \"settle\", \"setpoint\": \"verify\" }",
+            "\"name\": \"cal-high\", \"setpoint\"", "$.steps[5].setpoint", "the source is settled at 'verify' here, not at 'cal-high'"),
+        ["trim with one point"] = new("\"points\": [ \"cal-low\", \"cal-high\" ]", "\"points\": [ \"cal-low\" ]", "\"points\"", "$.steps[6].points",
+            "a trim needs calibration points from two setpoints or more"),
+        ["trim point without a measure step"] = new("\"points\": [ \"cal-low\", \"cal-high\" ]", "\"points\": [ \"cal-low\", \"verify\" ]", "\"points\"", "$.steps[6].points[1]",
+            "setpoint 'verify' has no measure step before this trim step"),
+        ["trim point listed twice"] = new("\"points\": [ \"cal-low\", \"cal-high\" ]", "\"points\": [ \"cal-low\", \"cal-high\", \"cal-low\" ]", "\"points\"", "$.steps[6].points[2]",
+            "setpoint 'cal-low' is listed twice"),
+        ["verify before trim"] = new("    { \"kind\": \"settle\", \"setpoint\": \"cal-high\" },\n",
+            $"    {{ \"kind\": \"verify\", \"name\": \"early\", \"setpoint\": \"cal-low\", {VerifyLimits} }},\n    {{ \"kind\": \"settle\", \"setpoint\": \"cal-high\" }},\n",
+            "\"early\"", "$.steps[4]", "a verify step must come after the trim step"),
+        ["duplicate step name"] = new("\"name\": \"cal-high\", \"setpoint\": \"cal-high\"", "\"name\": \"cal-low\", \"setpoint\": \"cal-high\"", "\"name\": \"cal-low\", \"setpoint\": \"cal-high\"",
+            "$.steps[5].name", "step name 'cal-low' is already used by step 4"),
+        ["no samples"] = new("\"name\": \"verify.error\", \"setpoint\": \"verify\", \"samples\": 10", "\"name\": \"verify.error\", \"setpoint\": \"verify\", \"samples\": 0", "verify.error",
+            "$.steps[8].samples", "samples must be 1 or more, not 0"),
+
+        // Header, stability, soak and trim settings.
+        ["invalid serial regex"] = new("[0-9]{4}", "[0-9{4}", "serialPattern", "$.serialPattern", "not a valid regular expression"),
+        ["stability timeout not longer than the window"] = new("\"timeoutSeconds\": 1800", "\"timeoutSeconds\": 60", "\"timeoutSeconds\": 60", "$.stability.timeoutSeconds",
+            "the timeout must be longer than the stability window"),
+        ["stability window shorter than two sample intervals"] = new("\"windowSeconds\": 60,", "\"windowSeconds\": 8,", "\"windowSeconds\": 8", "$.stability.windowSeconds",
+            "the window must hold at least three readings"),
+        ["stability band zero"] = new("\"bandC\": 0.05,", "\"bandC\": 0,", "\"bandC\"", "$.stability.bandC", "must be a positive number, not 0"),
+        ["stability band overflowing"] = new("\"bandC\": 0.05,", "\"bandC\": 1e999,", "\"bandC\"", "$.stability.bandC", "must be a positive number within range"),
+        ["negative offset from setpoint"] = new("\"bandC\": 0.05,", "\"bandC\": 0.05, \"maxOffsetFromSetpointC\": -1,", "\"bandC\"", "$.stability.maxOffsetFromSetpointC",
+            "must be a positive number, not -1"),
+        ["negative minimum soak"] = new("\"minimumSeconds\": 30,", "\"minimumSeconds\": -1,", "minimumSeconds", "$.soak.minimumSeconds", "the minimum soak cannot be negative"),
+
+        // Regression: the soak's drift window only starts after the minimum soak, so a timeout shorter than both
+        // together can never be met and used to pass the check.
+        ["soak timeout shorter than minimum plus window"] = new("\"timeoutSeconds\": 900", "\"timeoutSeconds\": 50", "\"timeoutSeconds\": 50", "$.soak.timeoutSeconds",
+            "the timeout (50 s) must be at least the minimum soak plus the window (60 s)"),
+        ["DAC nominal outside its range"] = new("\"nominal\": 2048, \"step\": 0.0001", "\"nominal\": 5000, \"step\": 0.0001", "\"GAIN\"", "$.trim.dac.gain.nominal",
+            "nominal code 5000 is outside 0 … 4095"),
+        ["DAC min not below max"] = new("\"min\": 0, \"max\": 4095, \"nominal\": 2048, \"step\": 0.0005", "\"min\": 4095, \"max\": 4095, \"nominal\": 4095, \"step\": 0.0005", "\"OFFSET\"",
+            "$.trim.dac.offset.min", "min (4095) must be below max (4095)"),
+        ["DAC target slope zero"] = new("\"slopeVoltsPerC\": 0.01", "\"slopeVoltsPerC\": 0", "slopeVoltsPerC", "$.trim.dac.target.slopeVoltsPerC", "the target slope must be a non-zero number"),
+        ["unknown trim method"] = new("\"method\": \"dac\"", "\"method\": \"dacs\"", "\"method\"", "$.trim.method", "unknown trim method 'dacs' (known: dac)"),
+    };
+
+    public static TheoryData<string> BadSequenceNames => new(BadSequences.Keys);
+
+    private static FixtureDefinition Fixture
+    {
+        get
+        {
+            var fixture = FixtureLoader.LoadFile(TestFiles.FixtureBasePath);
+            Assert.True(fixture.IsSuccess, string.Join(Environment.NewLine, fixture.Problems));
+            return fixture.Value;
+        }
+    }
+
+    [Fact]
+    public void LoadFile_ShippedDemoSequence_LoadsWithoutProblems()
+    {
+        var result = SequenceLoader.LoadFile(TestFiles.ShippedSequencePath);
+
+        Assert.Empty(result.Problems);
+        Assert.True(result.IsSuccess);
+        Assert.Equal("ctp40a-dac", result.Value.Id);
+        Assert.Equal(9, result.Value.Steps.Count);
+    }
+
+    [Fact]
+    public void LoadFile_ShippedDemoSequenceAgainstShippedFixture_LoadsWithoutProblems()
+    {
+        var fixture = FixtureLoader.LoadFile(TestFiles.ShippedFixturePath);
+        Assert.True(fixture.IsSuccess, string.Join(Environment.NewLine, fixture.Problems));
+
+        var result = SequenceLoader.LoadFile(TestFiles.ShippedSequencePath, fixture.Value);
+
+        Assert.Empty(result.Problems);
+        Assert.True(result.IsSuccess);
+    }
+
+    [Fact]
+    public void LoadFile_ShippedDemoSequence_ReadsStepsAsTheirKinds()
+    {
+        var result = SequenceLoader.LoadFile(TestFiles.ShippedSequencePath);
+
+        Assert.True(result.IsSuccess);
+        Assert.Equal(
+            ["identify", "supply-current", "settle", "measure", "settle", "measure", "trim", "settle", "verify"],
+            result.Value.Steps.Select(s => s.Kind));
+        var supply = Assert.IsType<SupplyCurrentStep>(result.Value.Steps[1]);
+        Assert.Equal(1.5, supply.Limits.Low);
+        Assert.Equal("mA", supply.Limits.Unit);
+        var trim = Assert.IsType<TrimStep>(result.Value.Steps[6]);
+        Assert.Equal(["cal-low", "cal-high"], trim.Points);
+        Assert.Equal(["verify"], trim.PredictAt);
+        Assert.Equal("identify", result.Value.Steps[0].DisplayName);
+    }
+
+    [Fact]
+    public void Load_BaseTestSequence_IsValidAgainstTheFixture()
+    {
+        // Every bad-file case below is one edit of this file; it must itself be clean.
+        var result = SequenceLoader.Load(File, TestFiles.Utf8(TestFiles.SequenceBase), Fixture);
+
+        Assert.Empty(result.Problems);
+    }
+
+    [Theory]
+    [MemberData(nameof(BadSequenceNames))]
+    public void Load_BadFile_ReportsLinePathAndReason(string name)
+    {
+        var bad = BadSequences[name];
+        var text = TestFiles.Edit(TestFiles.SequenceBase, bad.Find, bad.Replace);
+
+        var result = SequenceLoader.Load(File, TestFiles.Utf8(text), Fixture);
+
+        Assert.False(result.IsSuccess);
+        Assert.Null(result.Value);
+        var problem = Assert.Single(result.Problems, p => p.JsonPath == bad.Path);
+        Assert.Equal(File, problem.File);
+        Assert.Equal(TestFiles.LineOf(text, bad.LineMarker), problem.Line);
+        Assert.Contains(bad.Reason, problem.Reason, StringComparison.Ordinal);
+        Assert.Equal(bad.ProblemCount, result.Problems.Count);
+    }
+
+    [Fact]
+    public void Load_MissingComma_NamesTheLineOfTheValueBeforeIt()
+    {
+        // The comma belongs at the end of line 4; the reader only notices at the key on line 5.
+        var text = TestFiles.Edit(TestFiles.SequenceBase, "\"revision\": 1,", "\"revision\": 1");
+
+        var problem = Assert.Single(SequenceLoader.Load(File, TestFiles.Utf8(text)).Problems);
+
+        Assert.Equal(4, problem.Line);
+        Assert.Equal(5, TestFiles.LineOf(text, "\"product\""));
+    }
+
+    [Fact]
+    public void Load_TruncatedFile_ReportsTheEndOfTheFile()
+    {
+        var full = TestFiles.SequenceBase;
+        var text = full[..full.IndexOf("\"soak\"", StringComparison.Ordinal)];
+
+        var result = SequenceLoader.Load(File, TestFiles.Utf8(text));
+
+        var problem = Assert.Single(result.Problems);
+        Assert.Equal(text.Count(c => c == '\n') + 1, problem.Line);
+        Assert.Equal("$", problem.JsonPath);
+        Assert.Contains("the file ends before every object and array is closed", problem.Reason, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Load_FileCutInsideTheLastObject_ReportsTheEndOfTheFile()
+    {
+        var text = TestFiles.SequenceBase.TrimEnd().TrimEnd('}');
+
+        var problem = Assert.Single(SequenceLoader.Load(File, TestFiles.Utf8(text)).Problems);
+
+        Assert.Equal(text.Count(c => c == '\n') + 1, problem.Line);
+        Assert.Contains("is it cut short?", problem.Reason, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Load_MissingRequiredTopLevelProperties_NamesThemAllAtLineOne()
+    {
+        var text = TestFiles.Edit(TestFiles.SequenceBase, "  \"id\": \"ctp40a-dac\",\n  \"revision\": 1,\n", string.Empty);
+
+        var problem = Assert.Single(SequenceLoader.Load(File, TestFiles.Utf8(text)).Problems);
+
+        Assert.Equal(1, problem.Line);
+        Assert.Equal("$", problem.JsonPath);
+        Assert.Equal("missing required properties 'id', 'revision'", problem.Reason);
+    }
+
+    [Fact]
+    public void Load_MisspeltSettleSetpoint_ReportsOneProblemNotOnePerFollowingStep()
+    {
+        // Regression: the measure after a settle at an unknown setpoint used to add "the source is settled at
+        // 'cal-low' here, not at 'cal-high'", blaming a correct step for the typo above it.
+        var text = TestFiles.Edit(TestFiles.SequenceBase, "{ \"kind\": \"settle\", \"setpoint\": \"cal-high\" }", "{ \"kind\": \"settle\", \"setpoint\": \"cal_high\" }");
+
+        var result = SequenceLoader.Load(File, TestFiles.Utf8(text));
+
+        var problem = Assert.Single(result.Problems);
+        Assert.Equal("$.steps[4].setpoint", problem.JsonPath);
+        Assert.Equal(TestFiles.LineOf(text, "cal_high"), problem.Line);
+    }
+
+    [Fact]
+    public void Load_SetpointOutsideSafeRangeWithoutFixture_IsNotChecked()
+    {
+        // The safe range belongs to the fixture; a sequence alone cannot be judged against it.
+        var text = TestFiles.Edit(TestFiles.SequenceBase, "{ \"name\": \"cal-high\", \"celsius\": 40 }", "{ \"name\": \"cal-high\", \"celsius\": 140 }");
+
+        Assert.True(SequenceLoader.Load(File, TestFiles.Utf8(text)).IsSuccess);
+    }
+
+    [Fact]
+    public void Load_SetpointOnTheSafeLimit_IsAccepted()
+    {
+        var text = TestFiles.Edit(TestFiles.SequenceBase, "{ \"name\": \"cal-low\", \"celsius\": -20 }", "{ \"name\": \"cal-low\", \"celsius\": -30 }");
+
+        Assert.True(SequenceLoader.Load(File, TestFiles.Utf8(text), Fixture).IsSuccess);
+    }
+
+    [Fact]
+    public void Load_SeveralProblems_ReportsEveryOneWithItsOwnLine()
+    {
+        var text = TestFiles.SequenceBase;
+        text = TestFiles.Edit(text, "\"timeoutSeconds\": 1800", "\"timeoutSeconds\": 30");
+        text = TestFiles.Edit(text, "{ \"name\": \"cal-high\", \"celsius\": 40 }", "{ \"name\": \"cal-high\", \"celsius\": 140 }");
+        text = TestFiles.Edit(text, "\"nominal\": 2048, \"step\": 0.0001", "\"nominal\": -1, \"step\": 0.0001");
+        text = TestFiles.Edit(text, "\"low\": 1.5, \"high\": 4.0, \"unit\": \"mA\"", "\"low\": 5.5, \"high\": 4.0, \"unit\": \"V\"");
+        text = TestFiles.Edit(text, "\"points\": [ \"cal-low\", \"cal-high\" ]", "\"points\": [ \"cal-low\" ]");
+
+        var result = SequenceLoader.Load(File, TestFiles.Utf8(text), Fixture);
+
+        Assert.Equal(
+            [
+                ("$.stability.timeoutSeconds", TestFiles.LineOf(text, "\"timeoutSeconds\": 30")),
+                ("$.setpoints[1].celsius", TestFiles.LineOf(text, "140")),
+                ("$.trim.dac.gain.nominal", TestFiles.LineOf(text, "\"GAIN\"")),
+                ("$.steps[1].limits.unit", TestFiles.LineOf(text, "supply.current")),
+                ("$.steps[1].limits.low", TestFiles.LineOf(text, "supply.current")),
+                ("$.steps[6].points", TestFiles.LineOf(text, "\"points\"")),
+            ],
+            result.Problems.Select(p => (p.JsonPath, p.Line ?? -1)));
+        Assert.All(result.Problems, p => Assert.False(string.IsNullOrWhiteSpace(p.Reason)));
+    }
+
+    [Fact]
+    public void LoadFile_MissingFile_ReportsFileNotFoundWithoutLine()
+    {
+        var path = Path.Combine(AppContext.BaseDirectory, "no-such-sequence.json");
+
+        var result = SequenceLoader.LoadFile(path);
+
+        var problem = Assert.Single(result.Problems);
+        Assert.Equal(path, problem.File);
+        Assert.Null(problem.Line);
+        Assert.Equal("$", problem.JsonPath);
+        Assert.Equal("file not found", problem.Reason);
+        Assert.Null(result.Sha256);
+        Assert.Equal($"{path}: $: file not found", problem.ToString());
+    }
+
+    [Fact]
+    public void LoadFile_MissingDirectory_ReportsFileNotFound()
+    {
+        var path = Path.Combine(AppContext.BaseDirectory, "no-such-folder", "sequence.json");
+
+        Assert.Equal("file not found", Assert.Single(SequenceLoader.LoadFile(path).Problems).Reason);
+    }
+
+    [Fact]
+    public void Load_ByteOrderMarkCommentsAndTrailingCommas_AreAccepted()
+    {
+        var text = TestFiles.SequenceBase;
+        text = TestFiles.Edit(text, "  \"stability\": {", "  // Tuned for the four-well block.\n  \"stability\": {");
+        text = TestFiles.Edit(text, "\"timeoutSeconds\": 1800", "\"timeoutSeconds\": 1800, /* trailing comma next */");
+        text = TestFiles.Edit(text, "{ \"name\": \"verify\", \"celsius\": 5 }", "{ \"name\": \"verify\", \"celsius\": 5, },");
+        var bytes = Encoding.UTF8.GetPreamble().Concat(TestFiles.Utf8(text)).ToArray();
+
+        var result = SequenceLoader.Load(File, bytes, Fixture);
+
+        Assert.Empty(result.Problems);
+        Assert.Equal(3, result.Value!.Setpoints.Count);
+    }
+
+    [Fact]
+    public void Load_ByteOrderMarkWithAProblem_StillNamesTheLine()
+    {
+        // Regression: the locator read the raw bytes and stopped at the byte-order mark, so every problem
+        // found after parsing came out without a line.
+        var text = TestFiles.Edit(TestFiles.SequenceBase, "{ \"name\": \"cal-high\", \"celsius\": 40 }", "{ \"name\": \"cal-high\", \"celsius\": 140 }");
+        var bytes = Encoding.UTF8.GetPreamble().Concat(TestFiles.Utf8(text)).ToArray();
+
+        var problem = Assert.Single(SequenceLoader.Load(File, bytes, Fixture).Problems);
+
+        Assert.Equal(TestFiles.LineOf(text, "140"), problem.Line);
+    }
+
+    [Fact]
+    public void Load_WindowsLineEndings_GiveTheSameLines()
+    {
+        var text = TestFiles.Edit(TestFiles.SequenceBase, "\"unit\": \"mA\"", "\"unit\": \"V\"");
+        var crlf = text.ReplaceLineEndings("\r\n");
+
+        var problem = Assert.Single(SequenceLoader.Load(File, TestFiles.Utf8(crlf)).Problems);
+
+        Assert.Equal(TestFiles.LineOf(text, "supply.current"), problem.Line);
+    }
+
+    [Fact]
+    public void Load_MissingCommaAfterAString_NamesTheStringsLine()
+    {
+        var text = TestFiles.Edit(TestFiles.SequenceBase, "\"product\": \"CTP-40A\",", "\"product\": \"CTP-40A\"");
+
+        var problem = Assert.Single(SequenceLoader.Load(File, TestFiles.Utf8(text)).Problems);
+
+        Assert.Equal(TestFiles.LineOf(text, "\"product\""), problem.Line);
+    }
+
+    [Fact]
+    public void Load_NullDocument_ReportsLineOne()
+    {
+        var problem = Assert.Single(SequenceLoader.Load(File, TestFiles.Utf8("null")).Problems);
+
+        Assert.Equal(1, problem.Line);
+        Assert.Contains("null instead of an object", problem.Reason, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Load_SameBytes_GiveTheirSha256WhetherValidOrNot()
+    {
+        var good = TestFiles.Utf8(TestFiles.SequenceBase);
+        var bad = TestFiles.Utf8(TestFiles.Edit(TestFiles.SequenceBase, "\"unit\": \"mA\"", "\"unit\": \"V\""));
+
+        Assert.Equal(Convert.ToHexStringLower(SHA256.HashData(good)), SequenceLoader.Load(File, good).Sha256);
+        Assert.Equal(Convert.ToHexStringLower(SHA256.HashData(bad)), SequenceLoader.Load(File, bad).Sha256);
+    }
+
+    [Fact]
+    public void LoadFile_SameContentAsLoad_GivesTheSameResult()
+    {
+        var fromFile = SequenceLoader.LoadFile(TestFiles.SequenceBasePath);
+        var fromBytes = SequenceLoader.Load(TestFiles.SequenceBasePath, System.IO.File.ReadAllBytes(TestFiles.SequenceBasePath));
+
+        Assert.True(fromFile.IsSuccess);
+        Assert.Equal(fromBytes.Sha256, fromFile.Sha256);
+        Assert.Equal(fromBytes.Value!.Setpoints, fromFile.Value.Setpoints);
+        Assert.Equal(fromBytes.Value.Steps.Select(s => (s.Kind, s.DisplayName)), fromFile.Value.Steps.Select(s => (s.Kind, s.DisplayName)));
+    }
+}
