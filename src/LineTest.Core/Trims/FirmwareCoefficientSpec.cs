@@ -1,4 +1,5 @@
 using System.Globalization;
+using System.Text.Json.Serialization;
 
 namespace LineTest.Core.Trims;
 
@@ -30,12 +31,15 @@ public sealed record FirmwareCoefficientSpec
     public double? Scale { get; init; }
 
     /// <summary>Value of one count of the register.</summary>
+    [JsonIgnore]
     public double Lsb => Scale ?? Math.ScaleB(1.0, -(FractionalBits ?? 0));
 
     /// <summary>Smallest register value, −2^(Bits−1).</summary>
+    [JsonIgnore]
     public long MinValue => -(1L << (Bits - 1));
 
     /// <summary>Largest register value, 2^(Bits−1) − 1.</summary>
+    [JsonIgnore]
     public long MaxValue => (1L << (Bits - 1)) - 1;
 
     /// <summary>The coefficient a register value stands for: q·LSB.</summary>
