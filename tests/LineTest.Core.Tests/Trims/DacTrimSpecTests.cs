@@ -1,0 +1,41 @@
+using System.Text.Json;
+using LineTest.Core.Trims;
+
+namespace LineTest.Core.Tests.Trims;
+
+public sealed class DacTrimSpecTests
+{
+    [Fact]
+    public void Deserialize_CamelCaseJson_ReadsEveryFieldAndChecksClean()
+    {
+        const string json = """
+            { "gain": { "min": 0, "max": 4095, "nominal": 2048, "step": 0.0001, "register": "GAIN" },
+              "offset": { "min": 0, "max": 4095, "nominal": 2048, "step": 0.00025, "register": "OFFS" },
+              "target": { "offsetVolts": 0.1, "slopeVoltsPerC": 0.01 } }
+            """;
+
+        var spec = JsonSerializer.Deserialize<DacTrimSpec>(json, new JsonSerializerOptions(JsonSerializerDefaults.Web))!;
+
+        Assert.Equal(0.0001, spec.Gain.Step);
+        Assert.Equal("OFFS", spec.Offset.Register);
+        Assert.Empty(spec.Check());
+    }
+
+    [Fact]
+    public void Check_MinAboveMaxAndNoRegister_ListsBothWithPaths()
+    {
+        var spec = new DacTrimSpec
+        {
+            Gain = new DacChannelSpec { Min = 10, Max = 0, Nominal = 5, Step = 0.001, Register = "GAIN" },
+            Offset = new DacChannelSpec { Min = 0, Max = 10, Nominal = 5, Step = 0.001, Register = " " },
+            Target = new LinearTransfer { OffsetVolts = 0.5, SlopeVoltsPerC = 0 },
+        };
+
+        var problems = spec.Check();
+
+        Assert.Equal(
+            ["gain: min (10) is above max (0)", "offset.register: must name the register written over the unit link",
+             "target.slopeVoltsPerC: must be a finite number other than 0"],
+            problems);
+    }
+}
