@@ -34,6 +34,12 @@ public static partial class JsonDefinitionReader
         catch (JsonException ex)
         {
             var path = string.IsNullOrEmpty(ex.Path) ? "$" : ex.Path;
+            if (EnumProblem(ex, utf8, path) is { } enumReason)
+            {
+                int? enumLine = ex.LineNumber is { } el ? checked((int)el + 1) : locator.LineOf(path);
+                return new ParsedDefinition<T>(null, [new DefinitionProblem(file, enumLine, path, enumReason)], sha, locator);
+            }
+
             var reason = PlainReason(ex, KindsAt(typeof(T), path));
 
             // A missing property has no line of its own: name the line where the object that lacks it begins,
@@ -235,6 +241,54 @@ public static partial class JsonDefinitionReader
 
         var kinds = polymorphism.DerivedTypes.Select(d => d.TypeDiscriminator?.ToString()).OfType<string>().ToList();
         return (polymorphism.TypeDiscriminatorPropertyName, kinds);
+    }
+
+    /// <summary>
+    /// A word that is not one of an enum's names (e.g. a decision rule) gets a reason that quotes the word and
+    /// lists the accepted ones; the serialiser's own message names only the CLR type.
+    /// </summary>
+    private static string? EnumProblem(JsonException ex, byte[] utf8, string path)
+    {
+        var target = ConvertTarget().Match(ex.Message);
+        if (!target.Success || typeof(JsonDefinitionReader).Assembly.GetType(target.Groups[1].Value.Trim()) is not { IsEnum: true } enumType)
+        {
+            return null;
+        }
+
+        var words = enumType.GetFields(System.Reflection.BindingFlags.Public | System.Reflection.BindingFlags.Static)
+            .Select(f => f.GetCustomAttributes(typeof(System.Text.Json.Serialization.JsonStringEnumMemberNameAttribute), false)
+                .OfType<System.Text.Json.Serialization.JsonStringEnumMemberNameAttribute>().FirstOrDefault()?.Name ?? f.Name)
+            .ToList();
+        var what = string.Concat(enumType.Name.Select((c, i) => i > 0 && char.IsUpper(c) ? $" {char.ToLowerInvariant(c)}" : char.ToLowerInvariant(c).ToString()));
+        var given = ValueAt(utf8, path);
+        return given is null
+            ? $"not a known {what} (known: {string.Join(", ", words)})"
+            : $"unknown {what} '{given}' (known: {string.Join(", ", words)})";
+    }
+
+    /// <summary>The text of the value at a simple JSON path (<c>$.a.b[2].c</c>), or null.</summary>
+    private static string? ValueAt(byte[] utf8, string path)
+    {
+        try
+        {
+            var node = System.Text.Json.Nodes.JsonNode.Parse(SkipBom(utf8), documentOptions: new JsonDocumentOptions
+            {
+                CommentHandling = JsonCommentHandling.Skip,
+                AllowTrailingCommas = true,
+            });
+            foreach (Match segment in PathSegment().Matches(path))
+            {
+                node = segment.Groups["index"].Success
+                    ? node?[int.Parse(segment.Groups["index"].Value, System.Globalization.CultureInfo.InvariantCulture)]
+                    : node?[segment.Groups["name"].Value];
+            }
+
+            return node is System.Text.Json.Nodes.JsonValue value ? value.ToJsonString().Trim('"') : null;
+        }
+        catch (Exception e) when (e is JsonException or InvalidOperationException or ArgumentException or FormatException)
+        {
+            return null;
+        }
     }
 
     private static string Describe(string clrType)

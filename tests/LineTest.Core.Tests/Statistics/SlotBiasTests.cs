@@ -82,7 +82,9 @@ public sealed class SlotBiasTests
     public void Analyze_Property_OrderDoesNotMatterAndShiftDoesNotChangeF()
     {
         var gen = Gen.Select(Gen.Int[1, 4], Gen.Double[-5, 5]).Array[6, 40];
-        Gen.Select(gen, Gen.Double[-1e4, 1e4]).Sample(t =>
+        // Shifts stay moderate: a shift of 1e4 on values of ±5 leaves only ~11 significant digits for the
+        // within-slot sum of squares, and nearly-equal groups then give an F that differs in the 6th digit.
+        Gen.Select(gen, Gen.Double[-100, 100]).Sample(t =>
         {
             var (pairs, shift) = t;
             var slots = pairs.Select(p => p.Item1).ToArray();
