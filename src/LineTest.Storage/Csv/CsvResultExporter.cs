@@ -54,23 +54,50 @@ public sealed class CsvResultExporter
     public Task<long> ExportRunsAsync(TextWriter writer, RunFilter? filter = null, CancellationToken ct = default)
     {
         var select = string.Join(", ", RunHeader.Select(c => "r." + c));
-        return ExportAsync(writer, RunHeader, $"SELECT {select} FROM runs r", " ORDER BY r.seq;", filter, includeReadingNames: false, ct);
+        return ExportAsync(writer, RunHeader, $"SELECT {select} FROM runs r", " ORDER BY r.seq;", filter, ct);
     }
 
     /// <summary>Writes one row per reading matching <paramref name="filter"/>, in run then reading order. Returns the row count.</summary>
     /// <exception cref="ResultStoreException">The database cannot be read.</exception>
-    public Task<long> ExportReadingsAsync(TextWriter writer, RunFilter? filter = null, CancellationToken ct = default)
+    public async Task<long> ExportReadingsAsync(TextWriter writer, RunFilter? filter = null, CancellationToken ct = default)
     {
-        var select = "r.seq, r.id, r.serial, r.verdict, r.ended_utc, r.station, r.slot, r.lot, r.sequence_id, r.sequence_revision, "
-            + string.Join(", ", ReadingColumns.Names.Select(c => "g." + c));
-        return ExportAsync(
-            writer,
-            ReadingHeader,
-            $"SELECT {select} FROM runs r JOIN readings g ON g.run_seq = r.seq",
-            " ORDER BY r.seq, g.ordinal;",
-            filter,
-            includeReadingNames: true,
-            ct);
+        ArgumentNullException.ThrowIfNull(writer);
+        const int runColumnCount = 10;
+        await using var connection = await _reader.OpenAsync(ct).ConfigureAwait(false);
+        await using var csv = new CsvWriter(writer, Rfc4180, leaveOpen: true);
+        await WriteHeaderAsync(csv, ReadingHeader).ConfigureAwait(false);
+        long rows = 0;
+        try
+        {
+            using var join = new ReadingJoin(
+                connection,
+                filter ?? RunFilter.All,
+                "r.seq, r.id, r.serial, r.verdict, r.ended_utc, r.station, r.slot, r.lot, r.sequence_id, r.sequence_revision",
+                string.Join(", ", ReadingColumns.Names.Select(c => "g." + c)));
+            while (join.MoveNext())
+            {
+                ct.ThrowIfCancellationRequested();
+                for (var i = 0; i < runColumnCount; i++)
+                {
+                    csv.WriteField(Format(join.Runs, i));
+                }
+
+                for (var i = 1; i <= ReadingColumns.Names.Length; i++)
+                {
+                    csv.WriteField(Format(join.Readings, i));
+                }
+
+                await csv.NextRecordAsync().ConfigureAwait(false);
+                rows++;
+            }
+        }
+        catch (SqliteException ex)
+        {
+            throw SqliteFailures.Map(ex, "The results could not be exported", _reader.DatabasePath);
+        }
+
+        await csv.FlushAsync().ConfigureAwait(false);
+        return rows;
     }
 
     private async Task<long> ExportAsync(
@@ -79,24 +106,18 @@ public sealed class CsvResultExporter
         string select,
         string order,
         RunFilter? filter,
-        bool includeReadingNames,
         CancellationToken ct)
     {
         ArgumentNullException.ThrowIfNull(writer);
         await using var connection = await _reader.OpenAsync(ct).ConfigureAwait(false);
         await using var command = connection.CreateCommand();
         var sql = new StringBuilder(select);
-        FilterSql.AppendWhere(sql, command, filter ?? RunFilter.All, includeReadingNames);
+        FilterSql.AppendWhere(sql, command, filter ?? RunFilter.All, includeReadingNames: false);
         sql.Append(order);
         command.CommandText = sql.ToString();
 
         await using var csv = new CsvWriter(writer, Rfc4180, leaveOpen: true);
-        foreach (var name in header)
-        {
-            csv.WriteField(name);
-        }
-
-        await csv.NextRecordAsync().ConfigureAwait(false);
+        await WriteHeaderAsync(csv, header).ConfigureAwait(false);
         long rows = 0;
         try
         {
@@ -120,6 +141,16 @@ public sealed class CsvResultExporter
 
         await csv.FlushAsync().ConfigureAwait(false);
         return rows;
+    }
+
+    private static async Task WriteHeaderAsync(CsvWriter csv, IReadOnlyList<string> header)
+    {
+        foreach (var name in header)
+        {
+            csv.WriteField(name);
+        }
+
+        await csv.NextRecordAsync().ConfigureAwait(false);
     }
 
     private static string Format(SqliteDataReader reader, int ordinal) => reader.GetFieldType(ordinal) switch

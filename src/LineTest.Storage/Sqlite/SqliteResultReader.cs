@@ -67,37 +67,47 @@ public sealed class SqliteResultReader
     {
         filter ??= RunFilter.All;
         await using var connection = await OpenAsync(ct).ConfigureAwait(false);
-        await using var command = connection.CreateCommand();
-        var sql = new StringBuilder($"SELECT {RunColumnsSql}, g.ordinal, g.name, g.value, g.unit, g.low, g.high, g.verdict, g.step, g.setpoint, g.uncertainty, g.acceptance_low, g.acceptance_high FROM runs r JOIN readings g ON g.run_seq = r.seq");
-        FilterSql.AppendWhere(sql, command, filter, includeReadingNames: true);
-        sql.Append(" ORDER BY r.seq, g.ordinal;");
-        command.CommandText = sql.ToString();
-        await using var reader = await ExecuteAsync(command, ct).ConfigureAwait(false);
+        ReadingJoin join;
+        try
+        {
+            join = new ReadingJoin(
+                connection,
+                filter,
+                RunColumnsSql,
+                "g.ordinal, g.name, g.value, g.unit, g.low, g.high, g.verdict, g.step, g.setpoint, g.uncertainty, g.acceptance_low, g.acceptance_high");
+        }
+        catch (SqliteException ex)
+        {
+            throw SqliteFailures.Map(ex, "The results could not be read", DatabasePath);
+        }
+
+        using var joined = join;
+        var runs = joined.Runs;
+        var reader = joined.Readings;
 
         // Runs arrive grouped, so the run's own strings are read once per run, not once per reading.
-        var lastSeq = long.MinValue;
         Guid runId = default;
         string serial = string.Empty, station = string.Empty, sequenceId = string.Empty;
         string? lot = null;
         var runVerdict = Verdict.Error;
         DateTimeOffset ended = default;
         int slot = 0, revision = 0;
-        while (Read(reader))
+        long seq = 0;
+        while (Next(joined))
         {
             ct.ThrowIfCancellationRequested();
-            var seq = reader.GetInt64(0);
-            if (seq != lastSeq)
+            if (joined.RunChanged)
             {
-                lastSeq = seq;
-                runId = ParseGuid(reader, 1);
-                serial = reader.GetString(2);
-                runVerdict = ParseVerdict(reader, 3);
-                ended = ParseUtc(reader, 4);
-                station = reader.GetString(5);
-                slot = reader.GetInt32(6);
-                lot = NullableString(reader, 7);
-                sequenceId = reader.GetString(8);
-                revision = reader.GetInt32(9);
+                seq = runs.GetInt64(0);
+                runId = ParseGuid(runs, 1);
+                serial = runs.GetString(2);
+                runVerdict = ParseVerdict(runs, 3);
+                ended = ParseUtc(runs, 4);
+                station = runs.GetString(5);
+                slot = runs.GetInt32(6);
+                lot = NullableString(runs, 7);
+                sequenceId = runs.GetString(8);
+                revision = runs.GetInt32(9);
             }
 
             yield return new ReadingRow(
@@ -111,18 +121,18 @@ public sealed class SqliteResultReader
                 lot,
                 sequenceId,
                 revision,
-                reader.GetInt32(10),
-                reader.GetString(11),
-                NullableDouble(reader, 12),
-                reader.GetString(13),
-                NullableDouble(reader, 14),
-                NullableDouble(reader, 15),
-                ParseVerdict(reader, 16),
-                NullableString(reader, 17),
-                NullableString(reader, 18),
-                NullableDouble(reader, 19),
-                NullableDouble(reader, 20),
-                NullableDouble(reader, 21));
+                reader.GetInt32(1),
+                reader.GetString(2),
+                NullableDouble(reader, 3),
+                reader.GetString(4),
+                NullableDouble(reader, 5),
+                NullableDouble(reader, 6),
+                ParseVerdict(reader, 7),
+                NullableString(reader, 8),
+                NullableString(reader, 9),
+                NullableDouble(reader, 10),
+                NullableDouble(reader, 11),
+                NullableDouble(reader, 12));
         }
     }
 
@@ -211,6 +221,18 @@ public sealed class SqliteResultReader
         try
         {
             return await command.ExecuteReaderAsync(ct).ConfigureAwait(false);
+        }
+        catch (SqliteException ex)
+        {
+            throw SqliteFailures.Map(ex, "The results could not be read", DatabasePath);
+        }
+    }
+
+    private bool Next(ReadingJoin join)
+    {
+        try
+        {
+            return join.MoveNext();
         }
         catch (SqliteException ex)
         {

@@ -130,6 +130,41 @@ public sealed class SqliteResultReaderTests
     }
 
     [Fact]
+    public async Task ReadReadingsAsync_RunsWithoutReadingsBetween_KeepsEachReadingWithItsOwnRun()
+    {
+        var directory = Some.TempDirectory();
+        var runs = new[]
+        {
+            new RunRecordBuilder().WithReadings().Build(),
+            new RunRecordBuilder().WithSlot(2).Build(),
+            new RunRecordBuilder().WithReadings().Build(),
+            new RunRecordBuilder().WithReadings().Build(),
+            new RunRecordBuilder().WithSlot(4).WithReadings(new Reading("late", 1.5, "V", 1, 2, Verdict.Pass)).Build(),
+        };
+        await using (var store = SqliteResultStore.Open(directory))
+        {
+            foreach (var run in runs)
+            {
+                await store.AppendAsync(run, CancellationToken.None);
+            }
+        }
+
+        var rows = await ToList(SqliteResultReader.InDirectory(directory).ReadReadingsAsync());
+
+        Assert.Equal(runs[1].Readings.Count + 1, rows.Count);
+        Assert.All(rows.Take(runs[1].Readings.Count), r => Assert.Equal((runs[1].Id, 2L, 2), (r.RunId, r.RunSeq, r.Slot)));
+        Assert.Equal((runs[4].Id, 5L, 4, "late"), (rows[^1].RunId, rows[^1].RunSeq, rows[^1].Slot, rows[^1].Name));
+    }
+
+    [Fact]
+    public async Task ReadReadingsAsync_FilterMatchingNoRun_ReturnsNothing()
+    {
+        var (directory, _) = await StoreSample();
+
+        Assert.Empty(await ToList(SqliteResultReader.InDirectory(directory).ReadReadingsAsync(new RunFilter { Lot = "LOT-Z" })));
+    }
+
+    [Fact]
     public async Task ReadRunsAsync_ReadingNamesOnly_IsIgnoredForRunSummaries()
     {
         var (directory, runs) = await StoreSample();

@@ -34,4 +34,29 @@ public sealed class UtcTextTests
 
         Assert.Equal(instants.Order(), byText);
     }
+
+    [Theory]
+    [InlineData("2025-02-30T00:00:00.0000000Z")]
+    [InlineData("2025-03-04T24:00:00.0000000Z")]
+    [InlineData("2025-03-04 06:00:00.0000000Z")]
+    [InlineData("2025-03-04T06:00:00Z")]
+    [InlineData("2025-03-04T06:00:0x.0000000Z")]
+    public void Parse_NotTheStoredLayout_ThrowsFormatException(string text)
+    {
+        Assert.Throws<FormatException>(() => UtcText.Parse(text));
+    }
+
+    [Fact]
+    public void Parse_ManyInstants_AgreesWithTheFrameworkParser()
+    {
+        var start = new DateTimeOffset(1999, 12, 31, 23, 59, 59, TimeSpan.Zero);
+        for (var i = 0; i < 500; i++)
+        {
+            var instant = start.AddTicks(i * 987_654_321_987L);
+            var text = UtcText.ToText(instant);
+            var framework = DateTimeOffset.ParseExact(text, UtcText.Format, System.Globalization.CultureInfo.InvariantCulture, System.Globalization.DateTimeStyles.AssumeUniversal);
+
+            Assert.Equal(framework, UtcText.Parse(text));
+        }
+    }
 }
