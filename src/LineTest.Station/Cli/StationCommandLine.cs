@@ -14,6 +14,8 @@ public static class StationCommandLine
             RunCommand.Create(context),
             GraphCommand.Create(context),
             ConvertCommand.Create(context.Output, context.Error),
+            CheckCommand.Create(context),
+            SchemaCommand.Create(context),
         };
         return root;
     }
