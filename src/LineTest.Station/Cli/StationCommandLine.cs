@@ -16,6 +16,7 @@ public static class StationCommandLine
             ConvertCommand.Create(context.Output, context.Error),
             CheckCommand.Create(context),
             SchemaCommand.Create(context),
+            DryRunCommand.Create(context),
         };
         return root;
     }

@@ -1,0 +1,95 @@
+using LineTest.Core.Fixtures;
+using LineTest.Core.Sequences;
+
+namespace LineTest.Core.Throughput;
+
+/// <summary>
+/// The thermal lower bound of a batch: the shortest time in which the sequence's setpoints could be visited and
+/// measured to the stability the sequence asks for, given the fixture's source model (ramp-rate limit, then a
+/// first-order approach with time constant τ), the stability window, the units' soak window and the time the
+/// measurements themselves take. No schedule can beat it; the ratio of it to a simulated batch says how much
+/// cycle time is left on the table.
+/// </summary>
+public static class ThermalBound
+{
+    /// <summary>Computes the bound for one batch of <paramref name="units"/> units starting at <paramref name="startC"/>.</summary>
+    /// <param name="sequence">The sequence (setpoints in step order).</param>
+    /// <param name="source">The fixture's source.</param>
+    /// <param name="startC">Block temperature when the batch starts (standby for the first batch).</param>
+    /// <param name="units">Units in the batch.</param>
+    /// <param name="referenceReadSeconds">One reference reading, seconds.</param>
+    /// <param name="meterReadSeconds">One meter reading, seconds.</param>
+    public static ThermalBoundResult Compute(
+        SequenceDefinition sequence, SourceDefinition source, double startC, int units, double referenceReadSeconds, double meterReadSeconds)
+    {
+        ArgumentNullException.ThrowIfNull(sequence);
+        ArgumentNullException.ThrowIfNull(source);
+        ArgumentOutOfRangeException.ThrowIfNegativeOrZero(units);
+        var legs = new List<ThermalBoundLeg>();
+        var current = startC;
+        SetpointDefinition? settled = null;
+        var measureSeconds = 0.0;
+        foreach (var step in sequence.Steps)
+        {
+            switch (step)
+            {
+                case SettleStep settle:
+                    if (settled is not null)
+                    {
+                        legs.Add(Leg(sequence, source, settled, current, measureSeconds));
+                        current = settled.Celsius;
+                    }
+
+                    settled = sequence.Setpoints.First(s => s.Name == settle.Setpoint);
+                    measureSeconds = 0;
+                    break;
+                case MeasureStep measure:
+                    measureSeconds += measure.Samples * (referenceReadSeconds + units * meterReadSeconds);
+                    break;
+                case VerifyStep verify:
+                    measureSeconds += verify.Samples * (referenceReadSeconds + units * meterReadSeconds);
+                    break;
+            }
+        }
+
+        if (settled is not null)
+        {
+            legs.Add(Leg(sequence, source, settled, current, measureSeconds));
+        }
+
+        return new ThermalBoundResult(legs, legs.Sum(l => l.TotalSeconds), units);
+    }
+
+    /// <summary>
+    /// Time for the first-order source to get from <paramref name="fromC"/> to within <paramref name="bandC"/> of
+    /// <paramref name="toC"/>: with rate limit r and time constant τ the source ramps at r until its error is r·τ,
+    /// then decays exponentially, so t = (|Δ| − rτ)/r + τ·ln(rτ/band) when |Δ| &gt; rτ, else τ·ln(|Δ|/band).
+    /// </summary>
+    public static double TravelSeconds(SourceDefinition source, double fromC, double toC, double bandC)
+    {
+        ArgumentNullException.ThrowIfNull(source);
+        var delta = Math.Abs(toC - fromC);
+        if (delta <= bandC)
+        {
+            return 0;
+        }
+
+        var ratePerSecond = (toC > fromC ? source.RampUpCPerMinute : source.RampDownCPerMinute) / 60.0;
+        var tau = source.SettlingTimeConstantSeconds;
+        var knee = ratePerSecond * tau;
+        return delta > knee
+            ? (delta - knee) / ratePerSecond + tau * Math.Log(knee / bandC)
+            : tau * Math.Log(delta / bandC);
+    }
+
+    private static ThermalBoundLeg Leg(SequenceDefinition sequence, SourceDefinition source, SetpointDefinition setpoint, double fromC, double measureSeconds)
+    {
+        var travel = TravelSeconds(source, fromC, setpoint.Celsius, sequence.Stability.BandC);
+
+        // Stability can only be declared after a full window of in-band readings; the units then need at least
+        // the sequence's minimum soak and one soak window of readings to show they stopped drifting.
+        var stable = sequence.Stability.WindowSeconds;
+        var soak = Math.Max(sequence.Soak.MinimumSeconds, 0) + sequence.Soak.WindowSeconds;
+        return new ThermalBoundLeg(setpoint.Name, setpoint.Celsius, travel, stable, soak, measureSeconds);
+    }
+}

@@ -1,0 +1,70 @@
+using LineTest.Core.Fixtures;
+using LineTest.Core.Results;
+using LineTest.Core.Sequences;
+using LineTest.Core.Throughput;
+using LineTest.Rig.Simulation;
+using LineTest.Runtime.Batches;
+using LineTest.Station.Composition;
+using Microsoft.Extensions.Logging.Abstractions;
+
+namespace LineTest.Station.Demo;
+
+/// <summary>
+/// Runs one batch of defect-free simulated units through a sequence in virtual time and reports the timeline per
+/// setpoint, the batch time and units per hour, beside the thermal lower bound. Nothing is stored.
+/// </summary>
+public static class DryRun
+{
+    /// <summary>Runs the dry run.</summary>
+    public static async Task<DryRunReport> RunAsync(FixtureDefinition fixture, SequenceDefinition sequence, string sha256, int units, int seed, CancellationToken ct)
+    {
+        ArgumentNullException.ThrowIfNull(fixture);
+        ArgumentNullException.ThrowIfNull(sequence);
+        var simulation = (fixture.Simulation ?? new SimulationDefinition()) with { DefectRate = 0 };
+        var perfect = fixture with { Simulation = simulation };
+        var sensor = ReferenceConversion.SensorOf(perfect);
+        var clock = new VirtualTimeProvider(new DateTimeOffset(2026, 1, 1, 6, 0, 0, TimeSpan.Zero));
+        var rig = new SimulatedRig(perfect, seed, clock, ReferenceConversion.FromCelsius(sensor));
+        var factory = new SimulatedUnitFactory(seed, simulation, SimulatedUnitDesign.Ctp40A);
+        var sink = new MemorySink();
+        var timing = new InstrumentTiming();
+        var coordinator = new BatchCoordinator(rig.Instruments, perfect, ReferenceConversion.ToCelsius(sensor), clock, sink,
+            new AutoConfirmOperator(), null, NullLogger.Instance, timing);
+        var loads = new List<SlotLoad>();
+        foreach (var slot in perfect.Slots.Select(s => s.Slot).Order().Take(units))
+        {
+            var unit = factory.NextUnit();
+            rig.Load(slot, unit);
+            loads.Add(new SlotLoad(slot, unit.Serial));
+        }
+
+        var outcome = await coordinator.RunAsync(
+            new BatchRequest { Sequence = sequence, SequenceSha256 = sha256, Station = "dry-run", Loads = loads, Mode = "engineering" },
+            ct).ConfigureAwait(false);
+        var bound = ThermalBound.Compute(sequence, perfect.Source, perfect.Source.StandbyC, loads.Count, timing.ReferenceReadSeconds, timing.MeterReadSeconds);
+        return new DryRunReport(Timeline(outcome), (outcome.Ended - outcome.Started).TotalSeconds, loads.Count, bound, outcome.Runs, outcome.Aborted);
+    }
+
+    private static List<DryRunPhase> Timeline(BatchOutcome outcome)
+    {
+        var phases = new List<DryRunPhase>();
+        var records = outcome.Setpoints;
+        for (var i = 0; i < records.Count; i++)
+        {
+            var r = records[i];
+            var commanded = r.StableAt!.Value - TimeSpan.FromSeconds(r.SecondsToStable);
+            var soakEnd = r.StableAt.Value + TimeSpan.FromSeconds(r.SoakSeconds);
+            var next = i + 1 < records.Count
+                ? records[i + 1].StableAt!.Value - TimeSpan.FromSeconds(records[i + 1].SecondsToStable)
+                : outcome.Ended;
+            phases.Add(new DryRunPhase(r.Name, r.TargetC, (commanded - outcome.Started).TotalSeconds, r.SecondsToStable, r.SoakSeconds, (next - soakEnd).TotalSeconds));
+        }
+
+        return phases;
+    }
+
+    private sealed class MemorySink : IRunSink
+    {
+        public Task RunEndedAsync(RunRecord run, CancellationToken cancellationToken) => Task.CompletedTask;
+    }
+}
