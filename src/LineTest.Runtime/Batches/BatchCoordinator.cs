@@ -35,6 +35,9 @@ public sealed class BatchCoordinator
     private readonly InstrumentTiming _timing;
     private double _lastReferenceRaw = double.NaN;
 
+    // Written by the operator screen's thread, read by the coordinator's loop at step boundaries.
+    private readonly System.Collections.Concurrent.ConcurrentDictionary<int, string> _slotCancels = new();
+
     /// <summary>Creates a coordinator for one fixture's instruments.</summary>
     /// <param name="rig">The fixture's instruments.</param>
     /// <param name="fixture">The fixture definition (wiring, safe range, standby).</param>
@@ -79,6 +82,7 @@ public sealed class BatchCoordinator
     {
         ArgumentNullException.ThrowIfNull(request);
         var batch = new BatchState(request, _time.GetUtcNow());
+        _slotCancels.Clear();
         foreach (var load in request.Loads)
         {
             if (_fixture.Slots.All(s => s.Slot != load.Slot))
@@ -117,8 +121,10 @@ public sealed class BatchCoordinator
                     unit.CurrentStep = steps[i].DisplayName;
                 }
 
+                await EndCancelledSlotsAsync(batch).ConfigureAwait(false);
                 await RunStepAsync(batch, steps[i], cancellationToken).ConfigureAwait(false);
                 await EndRejectedAsync(batch).ConfigureAwait(false);
+                await EndCancelledSlotsAsync(batch).ConfigureAwait(false);
             }
 
             foreach (var unit in batch.Active)
@@ -162,6 +168,12 @@ public sealed class BatchCoordinator
         var runs = batch.Units.Select(u => u.Record!).ToList();
         return new BatchOutcome(batch.Id, runs, batch.SetpointHistory, batch.Started, _time.GetUtcNow(), aborted);
     }
+
+    /// <summary>
+    /// Asks for one slot's run to be cancelled (verdict error with <paramref name="reason"/>) at the next step
+    /// boundary; the other units carry on. Safe to call from any thread.
+    /// </summary>
+    public void RequestSlotCancel(int slot, string reason) => _slotCancels[slot] = reason;
 
     /// <summary>Sends the source to standby, logging (never throwing) if that fails.</summary>
     public async Task StandbyAsync(string why)
@@ -671,6 +683,18 @@ public sealed class BatchCoordinator
             if (unit.FirstFailingReading is not null)
             {
                 unit.Machine.Reject(unit.FirstFailureReason ?? unit.FirstFailingReading);
+                await FinishAsync(batch, unit).ConfigureAwait(false);
+            }
+        }
+    }
+
+    private async Task EndCancelledSlotsAsync(BatchState batch)
+    {
+        foreach (var unit in batch.Active)
+        {
+            if (_slotCancels.TryRemove(unit.Slot, out var reason))
+            {
+                unit.Machine.Cancel(reason);
                 await FinishAsync(batch, unit).ConfigureAwait(false);
             }
         }

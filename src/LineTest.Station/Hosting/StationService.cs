@@ -1,22 +1,27 @@
-using System.Text.RegularExpressions;
+using System.Globalization;
 using LineTest.Core.Fixtures;
 using LineTest.Core.Results;
+using LineTest.Core.Scanning;
 using LineTest.Core.Sequences;
+using LineTest.Core.Throughput;
 using LineTest.Rig.Simulation;
 using LineTest.Runtime.Batches;
 using LineTest.Station.Cli;
 using LineTest.Station.Composition;
-using LineTest.Station.Demo;
+using LineTest.Station.Screen;
 using LineTest.Storage.Sqlite;
 using Microsoft.Extensions.Hosting;
 using Microsoft.Extensions.Logging;
+using Spectre.Console;
 
 namespace LineTest.Station.Hosting;
 
 /// <summary>
-/// The station as a hosted service: serials are scanned (a keyboard-wedge scanner types the serial and Enter),
-/// each into the next free slot; an empty line starts the batch (it starts by itself when every slot is full).
-/// Runs are stored as they end. On shutdown the source goes to standby.
+/// The station as a hosted service. The operator scans serials (a keyboard-wedge scanner types the serial and
+/// Enter); each goes into the next free slot, or into slot N when typed as <c>N SERIAL</c>. An empty line starts
+/// the batch (it starts by itself when every slot is full). While a batch runs, <c>cancel</c> cancels it and
+/// <c>cancel N</c> cancels slot N, each after a confirmation. On a terminal the live screen is drawn; otherwise
+/// plain lines are written. On shutdown the source goes to standby.
 /// </summary>
 public sealed partial class StationService : BackgroundService
 {
@@ -28,6 +33,8 @@ public sealed partial class StationService : BackgroundService
     private readonly ILoggerFactory _loggers;
     private readonly IHostApplicationLifetime _lifetime;
     private readonly ILogger<StationService> _logger;
+    private readonly Lock _confirmGate = new();
+    private TaskCompletionSource<string?>? _pendingConfirm;
 
     /// <summary>Creates the service.</summary>
     public StationService(StationServiceContext context, ILoggerFactory loggers, IHostApplicationLifetime lifetime)
@@ -85,33 +92,47 @@ public sealed partial class StationService : BackgroundService
 
         if (fixture.Rig != "simulator")
         {
-            _error.WriteLine($"linetest: fixture '{fixture.Id}' names real instruments; serial drivers are not available in this build. Use a simulator fixture.");
+            _error.WriteLine($"linetest: fixture '{fixture.Id}' names real instruments; use 'linetest probe' to bring them up. This build runs the station on a simulator fixture.");
             return ExitCodes.RuntimeFailure;
         }
 
         var sequence = sequenceResult.Value;
-        var serialPattern = new Regex(sequence.SerialPattern, RegexOptions.None, TimeSpan.FromSeconds(1));
+        var rules = new ScanRules(sequence.SerialPattern);
         var sensor = ReferenceConversion.SensorOf(fixture);
         var clock = new ScaledTimeProvider(_options.SimulatorSpeed);
         var rig = new SimulatedRig(fixture, _options.SimulatorSeed, clock, ReferenceConversion.FromCelsius(sensor));
         var factory = new SimulatedUnitFactory(_options.SimulatorSeed, rig.Simulation, SimulatedUnitDesign.Ctp40A);
-        await using var store = SqliteResultStore.Open(ContentRoot.Resolve(_root, _options.Results));
-        var sink = new StoreSink(store, run => _output.WriteLine(DemoCommand.UnitLine(run)));
+        var resultsDir = ContentRoot.Resolve(_root, _options.Results);
+        await using var store = SqliteResultStore.Open(resultsDir);
+        var reader = SqliteResultReader.InDirectory(resultsDir);
+        var model = new StationScreenModel(
+            new ScreenHeader(_options.Id, fixture.Name ?? fixture.Id, sequence.Id, sequence.Revision, _options.Lot, _options.Operator, _options.Mode),
+            fixture.Slots.Select(s => s.Slot),
+            ExpectedStepSeconds(sequence, fixture),
+            clock);
+        var interactive = ReferenceEquals(_input, Console.In) && !Console.IsInputRedirected && !Console.IsOutputRedirected;
+        using var input = interactive ? OperatorInput.FromConsoleKeys() : OperatorInput.FromLines(_input);
+        var plain = interactive ? null : _output;
+        var sink = new StoreSink(store, run => plain?.WriteLine(DemoCommand.UnitLine(run)));
         var coordinator = new BatchCoordinator(rig.Instruments, fixture, ReferenceConversion.ToCelsius(sensor), clock, sink,
-            new ConsoleOperator(_input, _output), null, _loggers.CreateLogger<BatchCoordinator>());
-        WriteBanner(fixture, sequence);
+            new ScreenOperator(model, WaitForConfirmAsync, plain), model, _loggers.CreateLogger<BatchCoordinator>());
+
+        WriteSafetyNote(interactive);
+        using var screenStop = new CancellationTokenSource();
+        var screen = interactive ? DrawScreenAsync(model, input, screenStop.Token) : Task.CompletedTask;
         try
         {
             while (!ct.IsCancellationRequested)
             {
-                var loads = await ScanBatchAsync(fixture, serialPattern, factory, rig, ct).ConfigureAwait(false);
+                var loads = await ScanBatchAsync(fixture, rules, reader, factory, rig, model, input, plain, clock, ct).ConfigureAwait(false);
                 if (loads is null)
                 {
                     return ExitCodes.Done;
                 }
 
-                _output.WriteLine($"Batch of {loads.Count} started. Keep clear of the block while it runs.");
-                var outcome = await coordinator.RunAsync(
+                Say(model, plain, $"Batch of {loads.Count} started. Keep clear of the block while it runs. Type 'cancel' or 'cancel N' to stop.");
+                using var batchCancel = CancellationTokenSource.CreateLinkedTokenSource(ct);
+                var batch = coordinator.RunAsync(
                     new BatchRequest
                     {
                         Sequence = sequence,
@@ -122,40 +143,67 @@ public sealed partial class StationService : BackgroundService
                         Lot = _options.Lot,
                         Mode = _options.Mode,
                     },
-                    ct).ConfigureAwait(false);
+                    batchCancel.Token);
+                var commands = HandleCommandsAsync(input, coordinator, model, plain, batchCancel, batch);
+                BatchOutcome outcome;
+                try
+                {
+                    outcome = await batch.ConfigureAwait(false);
+                }
+                catch (RunStorageException ex)
+                {
+                    model.Alarm($"RESULTS CANNOT BE STORED: {ex.Message}. No new units are taken; call the test engineer.");
+                    throw;
+                }
+
+                await commands.ConfigureAwait(false);
+                var pass = outcome.Runs.Count(r => r.Verdict == Verdict.Pass);
+                var fail = outcome.Runs.Count(r => r.Verdict == Verdict.Fail);
+                var error = outcome.Runs.Count(r => r.Verdict == Verdict.Error);
+                Say(model, plain, $"Batch done: {pass} pass, {fail} fail, {error} error. Unload and sort the units (inserts may be hot or cold), then scan the next.");
                 foreach (var load in loads)
                 {
                     rig.Unload(load.Slot);
                 }
 
-                _output.WriteLine($"Batch done: {outcome.Runs.Count(r => r.Verdict == Verdict.Pass)} pass, {outcome.Runs.Count(r => r.Verdict == Verdict.Fail)} fail, {outcome.Runs.Count(r => r.Verdict == Verdict.Error)} error. Unload the units (caution: inserts may be hot or cold).");
+                if (interactive)
+                {
+                    await input.ReadLineAsync(ct).ConfigureAwait(false);
+                }
+
+                model.UnloadAll();
             }
         }
         finally
         {
             await coordinator.StandbyAsync("station stopping").ConfigureAwait(false);
+            await screenStop.CancelAsync().ConfigureAwait(false);
+            await screen.ConfigureAwait(false);
         }
 
         return ExitCodes.Done;
     }
 
     private async Task<List<SlotLoad>?> ScanBatchAsync(
-        FixtureDefinition fixture, Regex pattern, SimulatedUnitFactory factory, SimulatedRig rig, CancellationToken ct)
+        FixtureDefinition fixture, ScanRules rules, SqliteResultReader reader, SimulatedUnitFactory factory, SimulatedRig rig,
+        StationScreenModel model, OperatorInput input, TextWriter? plain, TimeProvider clock, CancellationToken ct)
     {
         var loads = new List<SlotLoad>();
         var slots = fixture.Slots.Select(s => s.Slot).Order().ToList();
         while (loads.Count < slots.Count)
         {
-            var slot = slots[loads.Count];
-            _output.WriteLine($"Scan the serial for slot {slot} (Enter on an empty line starts the batch):");
-            var line = await _input.ReadLineAsync(ct).ConfigureAwait(false);
+            var free = slots.Where(s => loads.All(l => l.Slot != s)).ToList();
+            Say(model, plain, loads.Count == 0
+                ? $"Scan the serial for slot {free[0]} (or type 'N SERIAL' for slot N)."
+                : $"Scan the serial for slot {free[0]}, or press Enter to start the batch of {loads.Count}.");
+            var line = await input.ReadLineAsync(ct).ConfigureAwait(false);
             if (line is null)
             {
                 return loads.Count > 0 ? loads : null;
             }
 
-            var serial = line.Trim();
-            if (serial.Length == 0)
+            var text = line.Trim();
+            if (text.Length == 0)
             {
                 if (loads.Count > 0)
                 {
@@ -165,35 +213,214 @@ public sealed partial class StationService : BackgroundService
                 continue;
             }
 
-            if (!pattern.IsMatch(serial))
+            if (text.Equals("quit", StringComparison.OrdinalIgnoreCase) && loads.Count == 0)
             {
-                _output.WriteLine($"Refused: '{serial}' is not a serial of this product (expected pattern {pattern}).");
+                return null;
+            }
+
+            var slot = free[0];
+            var parts = text.Split(' ', 2, StringSplitOptions.RemoveEmptyEntries | StringSplitOptions.TrimEntries);
+            if (parts.Length == 2 && int.TryParse(parts[0], NumberStyles.None, CultureInfo.InvariantCulture, out var named))
+            {
+                if (!free.Contains(named))
+                {
+                    Say(model, plain, $"Refused: slot {named} is {(slots.Contains(named) ? "already loaded" : "not a slot of this fixture")}.");
+                    continue;
+                }
+
+                slot = named;
+                text = parts[1];
+            }
+
+            var history = await HistoryAsync(reader, text, clock, ct).ConfigureAwait(false);
+            var decision = rules.Check(text, loads.Select(l => l.Serial).ToList(), history);
+            if (!decision.Accepted)
+            {
+                Say(model, plain, $"Refused: {decision.Reason}.");
                 continue;
             }
 
-            if (loads.Any(l => l.Serial == serial))
-            {
-                _output.WriteLine($"Refused: {serial} is already in slot {loads.First(l => l.Serial == serial).Slot}.");
-                continue;
-            }
-
-            rig.Load(slot, factory.NextUnit(serial));
-            loads.Add(new SlotLoad(slot, serial));
-            LogScanned(_logger, serial, slot);
+            rig.Load(slot, factory.NextUnit(decision.Serial));
+            loads.Add(new SlotLoad(slot, decision.Serial));
+            model.Loaded(slot, decision.Serial, decision.IsRetest);
+            plain?.WriteLine($"Loaded {decision.Serial} in slot {slot}{(decision.IsRetest ? " (retest)" : string.Empty)}.");
+            LogScanned(_logger, decision.Serial, slot, decision.IsRetest);
         }
 
         return loads;
     }
 
-    private void WriteBanner(FixtureDefinition fixture, SequenceDefinition sequence)
+    private static async Task<SerialHistory> HistoryAsync(SqliteResultReader reader, string serial, TimeProvider clock, CancellationToken ct)
     {
-        _output.WriteLine($"LineTest station {_options.Id} — fixture {fixture.Name ?? fixture.Id}, sequence {sequence.Id} r{sequence.Revision} ({sequence.Product}), {_options.Mode} mode");
-        foreach (var line in SafetyNote.Lines)
+        if (!File.Exists(reader.DatabasePath))
         {
-            _output.WriteLine(line);
+            return SerialHistory.None;
+        }
+
+        var today = new DateTimeOffset(clock.GetUtcNow().UtcDateTime.Date, TimeSpan.Zero);
+        int runs = 0;
+        var passedToday = false;
+        await foreach (var run in reader.ReadRunsAsync(new RunFilter { Serial = serial.Trim() }, ct).ConfigureAwait(false))
+        {
+            runs++;
+            passedToday |= run.Verdict == Verdict.Pass && run.EndedUtc >= today;
+        }
+
+        return new SerialHistory(runs, passedToday);
+    }
+
+    private async Task HandleCommandsAsync(
+        OperatorInput input, BatchCoordinator coordinator, StationScreenModel model, TextWriter? plain, CancellationTokenSource batchCancel, Task batch)
+    {
+        using var stop = new CancellationTokenSource();
+        _ = batch.ContinueWith(_ => stop.Cancel(), TaskScheduler.Default);
+        string? pendingCancel = null;
+        try
+        {
+            while (!batch.IsCompleted)
+            {
+                var line = await input.ReadLineAsync(stop.Token).ConfigureAwait(false);
+                if (line is null)
+                {
+                    await batch.ConfigureAwait(false);
+                    return;
+                }
+
+                if (TryCompleteConfirm(line))
+                {
+                    continue;
+                }
+
+                var text = line.Trim();
+                if (pendingCancel is not null)
+                {
+                    if (text.Equals("yes", StringComparison.OrdinalIgnoreCase))
+                    {
+                        if (pendingCancel == "batch")
+                        {
+                            await batchCancel.CancelAsync().ConfigureAwait(false);
+                        }
+                        else
+                        {
+                            coordinator.RequestSlotCancel(int.Parse(pendingCancel, CultureInfo.InvariantCulture), "cancelled by the operator");
+                        }
+
+                        Say(model, plain, "Cancelling. The block goes to standby if the whole batch stops.");
+                    }
+                    else
+                    {
+                        Say(model, plain, "Not cancelled; the batch carries on.");
+                    }
+
+                    pendingCancel = null;
+                    continue;
+                }
+
+                if (text.Equals("cancel", StringComparison.OrdinalIgnoreCase))
+                {
+                    pendingCancel = "batch";
+                    Say(model, plain, "Cancel the whole batch? Type 'yes' to confirm, anything else to carry on.");
+                }
+                else if (text.StartsWith("cancel ", StringComparison.OrdinalIgnoreCase)
+                    && int.TryParse(text[7..].Trim(), NumberStyles.None, CultureInfo.InvariantCulture, out var slot))
+                {
+                    pendingCancel = slot.ToString(CultureInfo.InvariantCulture);
+                    Say(model, plain, $"Cancel slot {slot}? Type 'yes' to confirm, anything else to carry on.");
+                }
+            }
+        }
+        catch (OperationCanceledException)
+        {
+            // The batch ended while waiting for a line.
         }
     }
 
-    [LoggerMessage(EventId = 2001, Level = LogLevel.Information, Message = "Scanned {Serial} into slot {Slot}")]
-    private static partial void LogScanned(ILogger logger, string serial, int slot);
+    private async Task<string?> WaitForConfirmAsync(CancellationToken ct)
+    {
+        var tcs = new TaskCompletionSource<string?>(TaskCreationOptions.RunContinuationsAsynchronously);
+        lock (_confirmGate)
+        {
+            _pendingConfirm = tcs;
+        }
+
+        using var registration = ct.Register(() => tcs.TrySetCanceled(ct));
+        return await tcs.Task.ConfigureAwait(false);
+    }
+
+    private bool TryCompleteConfirm(string line)
+    {
+        lock (_confirmGate)
+        {
+            if (_pendingConfirm is { } pending)
+            {
+                _pendingConfirm = null;
+                return pending.TrySetResult(line);
+            }
+        }
+
+        return false;
+    }
+
+    private static async Task DrawScreenAsync(StationScreenModel model, OperatorInput input, CancellationToken ct)
+    {
+        await AnsiConsole.Live(ScreenRenderer.Build(model.Snapshot()))
+            .AutoClear(false)
+            .Overflow(VerticalOverflow.Ellipsis)
+            .StartAsync(async ctx =>
+            {
+                while (!ct.IsCancellationRequested)
+                {
+                    ctx.UpdateTarget(ScreenRenderer.Build(model.Snapshot(), input.Buffer));
+                    try
+                    {
+                        await Task.Delay(200, ct).ConfigureAwait(false);
+                    }
+                    catch (OperationCanceledException)
+                    {
+                        break;
+                    }
+                }
+
+                ctx.UpdateTarget(ScreenRenderer.Build(model.Snapshot()));
+            }).ConfigureAwait(false);
+    }
+
+    private static IReadOnlyList<double> ExpectedStepSeconds(SequenceDefinition sequence, FixtureDefinition fixture)
+    {
+        // Settle steps dominate a batch: expect each to take its thermal-bound leg; other steps a few seconds.
+        var timing = new InstrumentTiming();
+        var bound = ThermalBound.Compute(sequence, fixture.Source, fixture.Source.StandbyC, fixture.Slots.Count, timing.ReferenceReadSeconds, timing.MeterReadSeconds);
+        var legs = new Queue<ThermalBoundLeg>(bound.Legs);
+        return sequence.Steps.Select(step => step switch
+        {
+            SettleStep when legs.Count > 0 => legs.Peek().TravelSeconds + legs.Peek().StableWindowSeconds + legs.Dequeue().SoakSeconds,
+            MeasureStep m => m.Samples * (timing.ReferenceReadSeconds + fixture.Slots.Count * timing.MeterReadSeconds),
+            VerifyStep v => v.Samples * (timing.ReferenceReadSeconds + fixture.Slots.Count * timing.MeterReadSeconds),
+            _ => 5.0,
+        }).ToList();
+    }
+
+    private void WriteSafetyNote(bool interactive)
+    {
+        if (interactive)
+        {
+            AnsiConsole.Write(new Panel(new Markup(string.Join("\n", SafetyNote.Lines.Select(Markup.Escape)))).Header("[bold red] Safety [/]").BorderColor(Color.Red));
+        }
+        else
+        {
+            foreach (var line in SafetyNote.Lines)
+            {
+                _output.WriteLine(line);
+            }
+        }
+    }
+
+    private static void Say(StationScreenModel model, TextWriter? plain, string text)
+    {
+        model.Prompt(text);
+        plain?.WriteLine(text);
+    }
+
+    [LoggerMessage(EventId = 2001, Level = LogLevel.Information, Message = "Scanned {Serial} into slot {Slot} (retest: {IsRetest})")]
+    private static partial void LogScanned(ILogger logger, string serial, int slot, bool isRetest);
 }

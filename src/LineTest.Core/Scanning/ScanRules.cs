@@ -1,0 +1,56 @@
+using System.Text.RegularExpressions;
+
+namespace LineTest.Core.Scanning;
+
+/// <summary>
+/// Decides whether a scanned serial may be loaded: it must match the sequence's serial pattern, must not already
+/// be in the fixture, and must not have passed today; a serial that ran before and did not pass is a retest.
+/// </summary>
+public sealed class ScanRules
+{
+    private readonly Regex _pattern;
+
+    /// <summary>Creates the rules for a sequence's serial pattern.</summary>
+    public ScanRules(string serialPattern)
+    {
+        ArgumentException.ThrowIfNullOrWhiteSpace(serialPattern);
+        _pattern = new Regex(serialPattern, RegexOptions.None, TimeSpan.FromSeconds(1));
+        Pattern = serialPattern;
+    }
+
+    /// <summary>The serial pattern.</summary>
+    public string Pattern { get; }
+
+    /// <summary>Checks a scan.</summary>
+    /// <param name="scanned">What the scanner typed (surrounding blanks and control characters are ignored).</param>
+    /// <param name="inFixture">Serials already loaded in this fixture.</param>
+    /// <param name="history">What the results say about this serial.</param>
+    public ScanDecision Check(string scanned, IReadOnlyCollection<string> inFixture, SerialHistory history)
+    {
+        ArgumentNullException.ThrowIfNull(scanned);
+        ArgumentNullException.ThrowIfNull(inFixture);
+        ArgumentNullException.ThrowIfNull(history);
+        var serial = new string(scanned.Where(c => !char.IsControl(c)).ToArray()).Trim();
+        if (serial.Length == 0)
+        {
+            return ScanDecision.Refuse(serial, "nothing was scanned");
+        }
+
+        if (!_pattern.IsMatch(serial))
+        {
+            return ScanDecision.Refuse(serial, $"'{serial}' is not a serial of this product (expected {Pattern})");
+        }
+
+        if (inFixture.Contains(serial, StringComparer.Ordinal))
+        {
+            return ScanDecision.Refuse(serial, $"{serial} is already loaded in this fixture");
+        }
+
+        if (history.PassedToday)
+        {
+            return ScanDecision.Refuse(serial, $"{serial} already passed today; it needs no retest");
+        }
+
+        return ScanDecision.Accept(serial, isRetest: history.PreviousRuns > 0);
+    }
+}

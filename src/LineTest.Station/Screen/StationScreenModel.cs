@@ -1,0 +1,177 @@
+using LineTest.Core.Results;
+using LineTest.Core.Units;
+using LineTest.Runtime.Batches;
+
+namespace LineTest.Station.Screen;
+
+/// <summary>
+/// The operator screen's state, fed by the coordinator (as its <see cref="IBatchObserver"/>) and by the scanner.
+/// Read by the renderer from another thread, so every member is guarded by one lock.
+/// </summary>
+public sealed class StationScreenModel : IBatchObserver
+{
+    /// <summary>Above this block temperature the screen warns of hot surfaces, °C (common practice: about 45 °C burns on contact).</summary>
+    public const double HotAboveC = 45;
+
+    /// <summary>Below this block temperature the screen warns of cold surfaces, °C.</summary>
+    public const double ColdBelowC = 5;
+
+    private readonly Lock _gate = new();
+    private readonly TimeProvider _time;
+    private readonly double[] _expectedStepSeconds;
+    private readonly Dictionary<int, SlotView> _slots;
+    private readonly Dictionary<int, (int Step, DateTimeOffset Since)> _stepStarted = [];
+    private double? _setpointC;
+    private double? _referenceC;
+    private string _phase = "idle";
+    private string _prompt = string.Empty;
+    private string? _alarm;
+
+    /// <summary>Creates the model.</summary>
+    /// <param name="header">Station, fixture, sequence, lot and operator line.</param>
+    /// <param name="slots">The fixture's slot numbers.</param>
+    /// <param name="expectedStepSeconds">Expected duration of each step (for time left), in sequence order.</param>
+    /// <param name="time">Clock used to time steps.</param>
+    public StationScreenModel(ScreenHeader header, IEnumerable<int> slots, IReadOnlyList<double> expectedStepSeconds, TimeProvider time)
+    {
+        ArgumentNullException.ThrowIfNull(header);
+        ArgumentNullException.ThrowIfNull(slots);
+        ArgumentNullException.ThrowIfNull(expectedStepSeconds);
+        Header = header;
+        _time = time;
+        _expectedStepSeconds = [.. expectedStepSeconds];
+        _slots = slots.ToDictionary(s => s, s => new SlotView(s));
+        _prompt = "Scan the serial of the unit in slot " + _slots.Keys.Min() + ".";
+    }
+
+    /// <summary>Header facts.</summary>
+    public ScreenHeader Header { get; }
+
+    /// <summary>A consistent copy of everything on screen.</summary>
+    public ScreenSnapshot Snapshot()
+    {
+        lock (_gate)
+        {
+            return new ScreenSnapshot(Header, _slots.Values.OrderBy(s => s.Slot).Select(WithTimeLeft).ToList(), _setpointC, _referenceC, _phase, _prompt, Caution(), _alarm);
+        }
+    }
+
+    /// <summary>Shows a prompt to the operator.</summary>
+    public void Prompt(string text)
+    {
+        lock (_gate)
+        {
+            _prompt = text;
+        }
+    }
+
+    /// <summary>Shows a station-wide alarm (e.g. results cannot be stored) until cleared.</summary>
+    public void Alarm(string? text)
+    {
+        lock (_gate)
+        {
+            _alarm = text;
+        }
+    }
+
+    /// <summary>A serial was scanned into a slot.</summary>
+    public void Loaded(int slot, string serial, bool isRetest)
+    {
+        lock (_gate)
+        {
+            _slots[slot] = new SlotView(slot) { Serial = serial, State = UnitState.Loaded, Step = "waiting for start", IsRetest = isRetest };
+            _stepStarted.Remove(slot);
+        }
+    }
+
+    /// <summary>The operator unloaded the fixture.</summary>
+    public void UnloadAll()
+    {
+        lock (_gate)
+        {
+            foreach (var slot in _slots.Keys.ToList())
+            {
+                _slots[slot] = new SlotView(slot);
+            }
+
+            _stepStarted.Clear();
+        }
+    }
+
+    /// <inheritdoc />
+    public void UnitChanged(int slot, string serial, UnitState state, string step, int stepIndex, int stepCount)
+    {
+        lock (_gate)
+        {
+            if (!_stepStarted.TryGetValue(slot, out var started) || started.Step != stepIndex)
+            {
+                _stepStarted[slot] = (stepIndex, _time.GetUtcNow());
+            }
+
+            var current = _slots.TryGetValue(slot, out var view) ? view : new SlotView(slot);
+            var done = state is UnitState.Passed or UnitState.Failed or UnitState.Errored;
+            _slots[slot] = current with
+            {
+                Serial = serial,
+                State = state,
+                Step = done ? string.Empty : step,
+                Progress = done ? 1 : stepCount == 0 ? 0 : (double)stepIndex / stepCount,
+            };
+        }
+    }
+
+    /// <inheritdoc />
+    public void UnitFinished(RunRecord run)
+    {
+        ArgumentNullException.ThrowIfNull(run);
+        lock (_gate)
+        {
+            var current = _slots.TryGetValue(run.Slot, out var view) ? view : new SlotView(run.Slot);
+            _slots[run.Slot] = current with { Verdict = run.Verdict, Reason = run.Reason, Progress = 1, Step = string.Empty, TimeLeft = TimeSpan.Zero };
+        }
+    }
+
+    /// <inheritdoc />
+    public void SourceChanged(double? setpointC, double? referenceC, string phase)
+    {
+        lock (_gate)
+        {
+            _setpointC = setpointC ?? _setpointC;
+            _referenceC = referenceC ?? _referenceC;
+            _phase = phase;
+        }
+    }
+
+    private SlotView WithTimeLeft(SlotView view)
+    {
+        if (view.Verdict is not null || view.State is null or UnitState.Loaded || !_stepStarted.TryGetValue(view.Slot, out var started))
+        {
+            return view;
+        }
+
+        var inStep = (_time.GetUtcNow() - started.Since).TotalSeconds;
+        var left = 0.0;
+        for (var i = started.Step; i < _expectedStepSeconds.Length; i++)
+        {
+            left += i == started.Step ? Math.Max(0, _expectedStepSeconds[i] - inStep) : _expectedStepSeconds[i];
+        }
+
+        return view with { TimeLeft = TimeSpan.FromSeconds(Math.Round(left)) };
+    }
+
+    private string? Caution()
+    {
+        var t = _referenceC;
+        if (t is > HotAboveC)
+        {
+            return $"HOT: the block is at {t:0} °C. Do not touch the block or inserts; use tongs or gloves.";
+        }
+
+        if (t is < ColdBelowC)
+        {
+            return $"COLD: the block is at {t:0} °C. Cold surfaces can freeze skin; use gloves.";
+        }
+
+        return null;
+    }
+}
