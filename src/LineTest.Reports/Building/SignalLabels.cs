@@ -22,7 +22,9 @@ public static class SignalLabels
     };
 
     /// <summary>Signal counts per rule in rule order, e.g. "WE1×2 N1×2 N5×1"; "none" when there are none.</summary>
-    public static string Summary(IReadOnlyList<RunRuleSignal> signals)
+    /// <param name="signals">The signals.</param>
+    /// <param name="times">Text between rule and count ("×" on screen, "=" in CSV).</param>
+    public static string Summary(IReadOnlyList<RunRuleSignal> signals, string times = "×")
     {
         ArgumentNullException.ThrowIfNull(signals);
         if (signals.Count == 0)
@@ -36,6 +38,6 @@ public static class SignalLabels
             counts[(s.Family, s.Rule)] = counts.TryGetValue((s.Family, s.Rule), out var c) ? c + 1 : 1;
         }
 
-        return string.Join(" ", counts.Select(kv => string.Create(CultureInfo.InvariantCulture, $"{Label(kv.Key.Item1, kv.Key.Item2)}×{kv.Value}")));
+        return string.Join(" ", counts.Select(kv => string.Create(CultureInfo.InvariantCulture, $"{Label(kv.Key.Item1, kv.Key.Item2)}{times}{kv.Value}")));
     }
 }

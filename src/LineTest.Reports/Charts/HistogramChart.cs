@@ -32,9 +32,14 @@ public static class HistogramChart
             high += 0.5;
         }
 
+        // Bins cover the data only (so a capable process still shows its shape); the axis also spans the limits.
         var bins = (int)Math.Clamp(Math.Ceiling(Math.Sqrt(values.Length)), 8, 60);
+        var dataSpan = max > min ? max - min : Math.Max(Math.Abs(min) * 1e-3, 1e-9);
+        var binSize = dataSpan / bins;
+        var histogram = ScottPlot.Statistics.Histogram.WithBinSize(binSize, min - (binSize / 2), max + (binSize / 2));
         var span = high - low;
-        var histogram = ScottPlot.Statistics.Histogram.WithBinCount(bins, low - (span * 0.02), high + (span * 0.02));
+        var left = Math.Min(low, min - binSize) - (span * 0.04);
+        var right = Math.Max(high, max + binSize) + (span * 0.04);
         foreach (var v in values)
         {
             histogram.Add(v);
@@ -49,6 +54,7 @@ public static class HistogramChart
             bar.LineColor = Colors.White;
         }
 
+        var top = (double)Math.Max(1, histogram.Counts.Max());
         if (reading.Capability is { Mean: { } mean, StdDevOverall: { } sigma } && sigma > 0)
         {
             var scale = values.Length * histogram.FirstBinSize;
@@ -56,31 +62,41 @@ public static class HistogramChart
             curve.LineColor = ChartColors.Fit;
             curve.LineWidth = 2;
             curve.LegendText = "Normal fit";
+            top = Math.Max(top, scale * Density(0) / sigma);
             var meanLine = plot.Add.VerticalLine(mean, 1.5f, ChartColors.Centre, LinePattern.Dotted);
             meanLine.LegendText = "Mean";
         }
 
-        AddLimit(plot, reading.Low, "LSL");
-        AddLimit(plot, reading.High, "USL");
+        top *= 1.15;
+        AddLimit(plot, reading.Low, "LSL", top);
+        AddLimit(plot, reading.High, "USL", top);
         plot.Axes.Left.Label.Text = "Count";
         plot.Axes.Bottom.Label.Text = string.IsNullOrEmpty(reading.Unit) ? reading.Name : $"{reading.Name} ({reading.Unit})";
-        plot.Axes.Margins(bottom: 0);
+        // Fixed axes: the fitted curve is a function of unlimited extent and must not widen the view.
+        plot.Axes.SetLimitsX(left, right);
+        plot.Axes.SetLimitsY(0, top);
         return plot;
     }
 
     // Standard normal density φ(z) = exp(−z²/2)/√(2π).
     private static double Density(double z) => Math.Exp(-0.5 * z * z) / Math.Sqrt(2 * Math.PI);
 
-    private static void AddLimit(Plot plot, double? limit, string label)
+    private static void AddLimit(Plot plot, double? limit, string label, double top)
     {
         if (limit is not { } x)
         {
             return;
         }
 
-        var line = plot.Add.VerticalLine(x, 2, ChartColors.Limit, LinePattern.Dashed);
-        line.Text = label;
-        line.LabelOppositeAxis = true;
-        line.LabelBackgroundColor = ChartColors.Limit;
+        plot.Add.VerticalLine(x, 2, ChartColors.Limit, LinePattern.Dashed);
+
+        // Labels inside the data area: a line's own label sits outside it and is cut off at the figure edge.
+        var text = plot.Add.Text(label, x, top);
+        text.LabelFontColor = ChartColors.Limit;
+        text.LabelBold = true;
+        text.LabelFontSize = 12;
+        text.LabelAlignment = Alignment.UpperLeft;
+        text.OffsetX = 4;
+        text.OffsetY = 2;
     }
 }

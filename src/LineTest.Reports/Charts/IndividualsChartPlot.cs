@@ -39,9 +39,10 @@ public static class IndividualsChartPlot
         data.LineWidth = 1;
         data.MarkerSize = xs.Length > 300 ? 0 : 3;
 
-        AddLevel(plot, chart.UpperControlLimit, ChartColors.Control, LinePattern.Dashed, "UCL");
-        AddLevel(plot, chart.Centre, ChartColors.Centre, LinePattern.Solid, "X̄");
-        AddLevel(plot, chart.LowerControlLimit, ChartColors.Control, LinePattern.Dashed, "LCL");
+        var right = xs.Length > 0 ? xs[^1] : 1;
+        AddLevel(plot, chart.UpperControlLimit, ChartColors.Control, LinePattern.Dashed, "UCL", right);
+        AddLevel(plot, chart.Centre, ChartColors.Centre, LinePattern.Solid, "X̄", right);
+        AddLevel(plot, chart.LowerControlLimit, ChartColors.Control, LinePattern.Dashed, "LCL", right);
 
         var signalled = new SortedSet<int>();
         foreach (var signal in chart.Signals)
@@ -73,11 +74,17 @@ public static class IndividualsChartPlot
         return plot;
     }
 
-    private static void AddLevel(Plot plot, double y, Color color, LinePattern pattern, string label)
+    private static void AddLevel(Plot plot, double y, Color color, LinePattern pattern, string label, double right)
     {
-        var line = plot.Add.HorizontalLine(y, 1.5f, color, pattern);
-        line.Text = label;
-        line.LabelOppositeAxis = true;
-        line.LabelBackgroundColor = color;
+        plot.Add.HorizontalLine(y, 1.5f, color, pattern);
+
+        // Label at the right end, inside the data area, where it cannot be cut off at the figure edge.
+        var text = plot.Add.Text($"{label} {NumberText.Value(y)}", right, y);
+        text.LabelFontColor = color;
+        text.LabelBold = true;
+        text.LabelFontSize = 11;
+        text.LabelBackgroundColor = Colors.White.WithAlpha(0.8);
+        text.LabelAlignment = Alignment.LowerRight;
+        text.OffsetY = -2;
     }
 }

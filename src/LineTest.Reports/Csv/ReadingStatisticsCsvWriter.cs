@@ -45,7 +45,7 @@ public static class ReadingStatisticsCsvWriter
                 N(c.Cp), N(c.CpInterval?.Lower), N(c.CpInterval?.Upper), N(c.Cpk), N(c.CpkInterval?.Lower), N(c.CpkInterval?.Upper),
                 N(c.Pp), N(c.Ppk), N(c.ObservedPpmTotal), N(c.ExpectedPpmTotal), N(r.Normality?.AStarSquared), N(r.Normality?.PValue),
                 N(r.Chart?.LowerControlLimit), N(r.Chart?.Centre), N(r.Chart?.UpperControlLimit),
-                r.Chart is { } chart ? string.Join(" ", chart.Signals.Select(s => string.Create(CultureInfo.InvariantCulture, $"{SignalLabels.Label(s)}@{s.Index}"))) : string.Empty,
+                r.Chart is { } chart ? SignalLabels.Summary(chart.Signals, "=") : string.Empty,
                 N(slots?.FStatistic), N(slots?.PValue),
             ];
             foreach (var field in fields)

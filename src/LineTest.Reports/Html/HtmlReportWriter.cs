@@ -75,6 +75,7 @@ public static class HtmlReportWriter
         th:first-child, td:first-child { text-align: left; white-space: normal; }
         th { background: #eef2f6; font-weight: 600; }
         td.low { color: var(--bad); font-weight: 600; }
+        td.sig { white-space: normal; text-align: left; font-size: 11px; min-width: 9em; }
         figure { margin: 10px 0; }
         figure img { display: block; width: 100%; max-width: 100%; height: auto; border: 1px solid var(--line); border-radius: 4px; }
         figcaption { color: var(--muted); font-size: 12px; margin-top: 3px; }
@@ -182,7 +183,7 @@ public static class HtmlReportWriter
             Cell(h, NumberText.Index(c.Ppk), c.Ppk < 1.33);
             Cell(h, NumberText.Ppm(c.ObservedPpmTotal));
             Cell(h, NumberText.Ppm(c.ExpectedPpmTotal));
-            Cell(h, r.Chart is { } chart ? SignalLabels.Summary(chart.Signals) : NumberText.NotDefined);
+            h.Append("<td class=\"sig\">").Append(E(r.Chart is { } chart ? SignalLabels.Summary(chart.Signals) : NumberText.NotDefined)).Append("</td>");
             h.Append("</tr>\n");
         }
 

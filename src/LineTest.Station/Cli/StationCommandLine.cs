@@ -13,6 +13,8 @@ public static class StationCommandLine
             DemoCommand.Create(context),
             RunCommand.Create(context),
             GraphCommand.Create(context),
+            ReportCommand.Create(context),
+            ExportCommand.Create(context),
         };
         return root;
     }
