@@ -95,8 +95,10 @@ public static class HistogramChart
         text.LabelFontColor = ChartColors.Limit;
         text.LabelBold = true;
         text.LabelFontSize = 12;
-        text.LabelAlignment = Alignment.UpperLeft;
-        text.OffsetX = 4;
+        // LSL to the right of its line, USL to the left, so neither runs off the plot.
+        var isUpper = label == "USL";
+        text.LabelAlignment = isUpper ? Alignment.UpperRight : Alignment.UpperLeft;
+        text.OffsetX = isUpper ? -4 : 4;
         text.OffsetY = 2;
     }
 }
