@@ -187,7 +187,7 @@ public static class HtmlReportWriter
             h.Append("</tr>\n");
         }
 
-        h.Append("</table>\n<p class=\"meta\">Indices below 1.33 are shown in red ([common practice] minimum for an established process).</p>\n");
+        h.Append("</table>\n<p class=\"meta\">Indices below 1.33, a usual minimum for an established process, are shown in red.</p>\n");
     }
 
     private static void ReadingSection(StringBuilder h, ReadingStatistics r, SlotBiasEntry slots, int number)
