@@ -17,6 +17,8 @@ public static class StationCommandLine
             CheckCommand.Create(context),
             SchemaCommand.Create(context),
             DryRunCommand.Create(context),
+            ReportCommand.Create(context),
+            ExportCommand.Create(context),
         };
         return root;
     }

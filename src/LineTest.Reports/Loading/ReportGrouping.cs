@@ -1,0 +1,23 @@
+namespace LineTest.Reports.Loading;
+
+/// <summary>How a report splits its runs into groups (the <c>--by</c> option).</summary>
+public enum ReportGrouping
+{
+    /// <summary>No grouping: one report over all runs.</summary>
+    None,
+
+    /// <summary>By station id.</summary>
+    Station,
+
+    /// <summary>By slot number.</summary>
+    Slot,
+
+    /// <summary>By production lot.</summary>
+    Lot,
+
+    /// <summary>By the UTC calendar day on which a run ended.</summary>
+    Day,
+
+    /// <summary>By sequence id and revision.</summary>
+    Revision,
+}
