@@ -20,7 +20,8 @@ internal sealed class DacTrimExecutor
         var points = step.Points
             .Select(p => new CalibrationPoint(p, unit.CalibrationPoints[p].ReferenceC, unit.CalibrationPoints[p].Output))
             .ToList();
-        var checkpoints = step.Points.Concat(step.PredictAt).Distinct(StringComparer.Ordinal)
+        // The trim predicts at its calibration points itself; checkpoints are the further setpoints only.
+        var checkpoints = step.PredictAt.Except(step.Points, StringComparer.Ordinal)
             .Select(p => new TrimCheckpoint(p, sequence.Setpoints.First(s => s.Name == p).Celsius))
             .ToList();
         var name = step.DisplayName;
