@@ -76,7 +76,7 @@ public static class ScreenRenderer
         table.AddColumn(new TableColumn("Verdict").Centered());
         foreach (var slot in slots)
         {
-            var doing = slot.State is null ? "[grey]empty[/]" : E(Shorten(StateWords.Of(slot.State) + (slot.Step.Length > 0 && slot.Verdict is null ? $" · {slot.Step}" : string.Empty), 24));
+            var doing = slot.State is null ? "[grey]empty[/]" : E(Shorten(StateWords.Of(slot.State) + (slot.Step.Length > 0 && slot.Verdict is null && slot.State is Core.Units.UnitState.Measuring or Core.Units.UnitState.Verifying ? $" {slot.Step}" : string.Empty), 24));
             if (slot.IsRetest && slot.Verdict is null)
             {
                 doing += " [grey](retest)[/]";

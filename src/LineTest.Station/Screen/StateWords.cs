@@ -13,7 +13,7 @@ public static class StateWords
         UnitState.Loaded => "loaded",
         UnitState.Identifying => "identifying",
         UnitState.CheckingSupply => "checking supply",
-        UnitState.WaitingForSource => "block heading to setpoint",
+        UnitState.WaitingForSource => "waiting for block",
         UnitState.Soaking => "soaking",
         UnitState.Measuring => "measuring",
         UnitState.Trimming => "trimming",
