@@ -17,6 +17,7 @@ public static class StationCommandLine
             CheckCommand.Create(context),
             SchemaCommand.Create(context),
             DryRunCommand.Create(context),
+            VerifyCommand.Create(context),
             ReportCommand.Create(context),
             ExportCommand.Create(context),
         };
