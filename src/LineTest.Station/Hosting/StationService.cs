@@ -94,11 +94,18 @@ public sealed partial class StationService : BackgroundService
         var sensor = ReferenceConversion.SensorOf(fixture);
         var clock = new ScaledTimeProvider(_options.SimulatorSpeed);
         var rig = new SimulatedRig(fixture, _options.SimulatorSeed, clock, ReferenceConversion.FromCelsius(sensor));
-        var factory = new SimulatedUnitFactory(_options.SimulatorSeed, rig.Simulation, SimulatedUnitDesign.Ctp40A);
+        var design = SimulatedUnitDesign.ForProduct(sequence.Product);
+        if (design is null)
+        {
+            _error.WriteLine($"linetest: sequence '{sequence.Id}' tests '{sequence.Product}', but the simulator builds only {string.Join(", ", SimulatedUnitDesign.Demo.Select(d => d.Product))}.");
+            return ExitCodes.BadInput;
+        }
+
+        var factory = new SimulatedUnitFactory(_options.SimulatorSeed, rig.Simulation, design);
         await using var store = SqliteResultStore.Open(ContentRoot.Resolve(_root, _options.Results));
         var sink = new StoreSink(store, run => _output.WriteLine(DemoCommand.UnitLine(run)));
         var coordinator = new BatchCoordinator(rig.Instruments, fixture, ReferenceConversion.ToCelsius(sensor), clock, sink,
-            new ConsoleOperator(_input, _output), null, _loggers.CreateLogger<BatchCoordinator>());
+            new ConsoleOperator(_input, _output), null, _loggers.CreateLogger<BatchCoordinator>(), partFitting: new SimulatedPartFitting(rig));
         WriteBanner(fixture, sequence);
         try
         {
