@@ -208,7 +208,9 @@ public static class SequenceChecker
         }
         else
         {
-            problems.AddIf(soak.OutputVoltsPerC is null && sequence.Trim?.AnalogTarget is null, "$.soak",
+            // Any analog target the trim object carries will do: a misspelt method is reported once, at the method.
+            var target = sequence.Trim?.Dac?.Target ?? sequence.Trim?.Resistor?.Target;
+            problems.AddIf(soak.OutputVoltsPerC is null && target is null, "$.soak",
                 "give soak.outputVoltsPerC (the unit's output sensitivity) so the soak can judge the unit's drift in °C");
         }
 
