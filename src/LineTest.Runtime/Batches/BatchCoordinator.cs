@@ -257,7 +257,7 @@ public sealed class BatchCoordinator
                 var executor = sequence.Trim?.Method switch
                 {
                     TrimMethods.Dac => new DacTrimExecutor(this).RunAsync(sequence, trim, unit, ct),
-                    TrimMethods.Resistor => new ResistorTrimExecutor(this).RunAsync(sequence, trim, unit, ct),
+                    TrimMethods.Resistor => new ResistorTrimExecutor(this, batch).RunAsync(sequence, trim, unit, ct),
                     TrimMethods.Firmware => new FirmwareTrimExecutor(this).RunAsync(sequence, trim, unit, ct),
                     var method => throw new InvalidOperationException($"Trim method '{method}' has no executor (the checker accepts only known methods)."),
                 };
@@ -614,8 +614,18 @@ public sealed class BatchCoordinator
         await FinishAsync(batch, unit).ConfigureAwait(false);
     }
 
-    /// <summary>Shows a prompt that needs the operator's confirmation (e.g. which parts to fit).</summary>
-    internal Task PromptOperatorAsync(string text, CancellationToken ct) => _operator.PromptAsync(text, confirm: true, ct);
+    /// <summary>
+    /// Shows a prompt about one unit that needs the operator's confirmation (e.g. which parts to fit); the unit shows
+    /// as awaiting the operator until it is confirmed, then returns to its trim.
+    /// </summary>
+    internal async Task PromptOperatorAsync(BatchState batch, UnitContext unit, string text, CancellationToken ct)
+    {
+        unit.Machine.BeginPrompt();
+        Notify(batch, unit);
+        await _operator.PromptAsync(text, confirm: true, ct).ConfigureAwait(false);
+        unit.Machine.BeginTrim();
+        Notify(batch, unit);
+    }
 
     /// <summary>Reports parts the operator confirmed fitting (nothing to do on a real station).</summary>
     internal Task PartsFittedAsync(UnitContext unit, IReadOnlyList<Core.Trims.ResistorChoice> parts, CancellationToken ct) =>

@@ -17,8 +17,13 @@ namespace LineTest.Runtime.Batches;
 internal sealed class ResistorTrimExecutor
 {
     private readonly BatchCoordinator _coordinator;
+    private readonly BatchState _batch;
 
-    public ResistorTrimExecutor(BatchCoordinator coordinator) => _coordinator = coordinator;
+    public ResistorTrimExecutor(BatchCoordinator coordinator, BatchState batch)
+    {
+        _coordinator = coordinator;
+        _batch = batch;
+    }
 
     public async Task RunAsync(SequenceDefinition sequence, TrimStep step, UnitContext unit, CancellationToken ct)
     {
@@ -57,7 +62,7 @@ internal sealed class ResistorTrimExecutor
         }
 
         var prompt = PromptText(unit, trim.Instructions);
-        await _coordinator.PromptOperatorAsync(prompt, ct).ConfigureAwait(false);
+        await _coordinator.PromptOperatorAsync(_batch, unit, prompt, ct).ConfigureAwait(false);
         await _coordinator.PartsFittedAsync(unit, [trim.Gain, trim.Offset], ct).ConfigureAwait(false);
         unit.Add(new Reading($"{name}.fitted", 1, "1", null, null, Verdict.Pass)
         {
