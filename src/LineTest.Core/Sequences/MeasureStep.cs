@@ -19,6 +19,12 @@ public sealed record MeasureStep : StepDefinition
     /// <summary>Readings averaged (reference and unit interleaved).</summary>
     public int Samples { get; init; } = 10;
 
-    /// <summary>Optional limits on the unit's output (unit V or mV).</summary>
+    /// <summary>
+    /// Where the unit's output is read: <c>meter</c> (volts on the slot's output channel, the default) or <c>link</c>
+    /// (raw ADC counts over the unit's link, see <see cref="UnitOutputs"/>).
+    /// </summary>
+    public string Output { get; init; } = UnitOutputs.Meter;
+
+    /// <summary>Optional limits on the unit's output (unit V, mV or uV from the meter; count from the link).</summary>
     public LimitSpec? OutputLimits { get; init; }
 }

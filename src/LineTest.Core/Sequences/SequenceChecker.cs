@@ -16,6 +16,7 @@ public static class SequenceChecker
     private static readonly string[] CurrentUnits = ["A", "mA", "uA"];
     private static readonly string[] VoltageUnits = ["V", "mV", "uV"];
     private static readonly string[] TemperatureDifferenceUnits = ["degC", "K"];
+    private static readonly string[] CountUnits = ["count"];
 
     /// <summary>Checks <paramref name="sequence"/>; with a fixture, also that every setpoint is inside its safe range.</summary>
     public static ProblemList Check(SequenceDefinition sequence, FixtureDefinition? fixture)
@@ -30,10 +31,7 @@ public static class SequenceChecker
         CheckSoak(sequence.Soak, problems);
         var setpoints = CheckSetpoints(sequence.Setpoints, fixture, problems);
         CheckTrim(sequence.Trim, problems);
-        problems.AddIf(sequence.Soak.OutputVoltsPerC is null && sequence.Trim?.Dac is null, "$.soak",
-            "give soak.outputVoltsPerC (the unit's output sensitivity) so the soak can judge the unit's drift in °C");
-        problems.AddIf(sequence.Soak.OutputVoltsPerC is { } sens && (sens == 0 || !double.IsFinite(sens)), "$.soak.outputVoltsPerC",
-            "the output sensitivity must be a non-zero number");
+        CheckSoakSensitivity(sequence, problems);
         CheckSteps(sequence, setpoints, problems);
         return problems;
     }
@@ -128,7 +126,7 @@ public static class SequenceChecker
 
         switch (trim.Method)
         {
-            case "dac":
+            case TrimMethods.Dac:
                 if (trim.Dac is null)
                 {
                     problems.Add("$.trim", "method 'dac' needs a 'dac' object with gain, offset and target");
@@ -139,10 +137,99 @@ public static class SequenceChecker
                 }
 
                 break;
+            case TrimMethods.Resistor:
+                if (trim.Resistor is null)
+                {
+                    problems.Add("$.trim", "method 'resistor' needs a 'resistor' object with series, tolerancePercent, gain, offset and target");
+                }
+                else
+                {
+                    AddSpecProblems(trim.Resistor.Check(), "$.trim.resistor", problems);
+                }
+
+                break;
+            case TrimMethods.Firmware:
+                if (trim.Firmware is null)
+                {
+                    problems.Add("$.trim", "method 'firmware' needs a 'firmware' object with order and coefficients");
+                }
+                else
+                {
+                    AddSpecProblems(trim.Firmware.Check(), "$.trim.firmware", problems);
+                }
+
+                break;
             default:
-                problems.Add("$.trim.method", $"unknown trim method '{trim.Method}' (known: dac)");
+                problems.Add("$.trim.method", $"unknown trim method '{trim.Method}' (known: {string.Join(", ", TrimMethods.All)})");
                 break;
         }
+
+        var others = new (string Method, object? Spec)[] { (TrimMethods.Dac, trim.Dac), (TrimMethods.Resistor, trim.Resistor), (TrimMethods.Firmware, trim.Firmware) };
+        foreach (var (method, spec) in others)
+        {
+            problems.AddIf(spec is not null && method != trim.Method && TrimMethods.All.Contains(trim.Method), $"$.trim.{method}",
+                $"a '{method}' object does not belong to method '{trim.Method}': remove it or change the method");
+        }
+    }
+
+    /// <summary>
+    /// A trim spec's own problems come as "relative.path: reason"; each is placed at its JSON path under
+    /// <paramref name="root"/> so the engineer is taken to the offending key.
+    /// </summary>
+    private static void AddSpecProblems(IReadOnlyList<string> specProblems, string root, ProblemList problems)
+    {
+        foreach (var problem in specProblems)
+        {
+            var colon = problem.IndexOf(": ", StringComparison.Ordinal);
+            if (colon > 0 && !problem[..colon].Contains(' ', StringComparison.Ordinal))
+            {
+                problems.Add($"{root}.{problem[..colon]}", problem[(colon + 2)..]);
+            }
+            else
+            {
+                problems.Add(root, problem);
+            }
+        }
+    }
+
+    private static void CheckSoakSensitivity(SequenceDefinition sequence, ProblemList problems)
+    {
+        var soak = sequence.Soak;
+        if (!UnitOutputs.All.Contains(soak.Output, StringComparer.Ordinal))
+        {
+            problems.Add("$.soak.output", $"unknown output '{soak.Output}' (known: {string.Join(", ", UnitOutputs.All)})");
+            return;
+        }
+
+        if (soak.Output == UnitOutputs.Link)
+        {
+            problems.AddIf(soak.OutputCountsPerC is null, "$.soak",
+                "give soak.outputCountsPerC (the unit's raw sensitivity, counts per °C) so the soak can judge the unit's drift in °C over its link");
+        }
+        else
+        {
+            // Any analog target the trim object carries will do: a misspelt method is reported once, at the method.
+            var target = sequence.Trim?.Dac?.Target ?? sequence.Trim?.Resistor?.Target;
+            problems.AddIf(soak.OutputVoltsPerC is null && target is null, "$.soak",
+                "give soak.outputVoltsPerC (the unit's output sensitivity) so the soak can judge the unit's drift in °C");
+        }
+
+        problems.AddIf(soak.OutputVoltsPerC is { } sens && (sens == 0 || !double.IsFinite(sens)), "$.soak.outputVoltsPerC",
+            "the output sensitivity must be a non-zero number");
+        problems.AddIf(soak.OutputCountsPerC is { } counts && (counts == 0 || !double.IsFinite(counts)), "$.soak.outputCountsPerC",
+            "the raw sensitivity must be a non-zero number");
+    }
+
+    /// <summary>Checks an <c>output</c> word; returns true when it is known.</summary>
+    private static bool CheckOutput(string output, string path, ProblemList problems)
+    {
+        if (UnitOutputs.All.Contains(output, StringComparer.Ordinal))
+        {
+            return true;
+        }
+
+        problems.Add($"{path}.output", $"unknown output '{output}' (known: {string.Join(", ", UnitOutputs.All)})");
+        return false;
     }
 
     private static void CheckDac(DacTrimSpec dac, ProblemList problems)
@@ -169,6 +256,7 @@ public static class SequenceChecker
         var measured = new HashSet<string>(StringComparer.Ordinal);
         var readingNames = new Dictionary<string, int>(StringComparer.Ordinal);
         var trimmed = false;
+        var firmware = sequence.Trim?.Method == TrimMethods.Firmware;
         for (var i = 0; i < sequence.Steps.Count; i++)
         {
             var step = sequence.Steps[i];
@@ -200,9 +288,12 @@ public static class SequenceChecker
                 case MeasureStep measure:
                     RequireSettled(measure.Setpoint, settledAt, setpoints, path, problems);
                     Samples(measure.Samples, path, problems);
+                    var measureOutputKnown = CheckOutput(measure.Output, path, problems);
+                    problems.AddIf(measureOutputKnown && firmware && measure.Output != UnitOutputs.Link, $"{path}.output",
+                        "a firmware trim is computed from the unit's raw counts: read them with \"output\": \"link\"");
                     if (measure.OutputLimits is { } outputLimits)
                     {
-                        CheckLimits(outputLimits, $"{path}.outputLimits", VoltageUnits, problems);
+                        CheckLimits(outputLimits, $"{path}.outputLimits", measure.Output == UnitOutputs.Link ? CountUnits : VoltageUnits, problems);
                     }
 
                     measured.Add(measure.Setpoint);
@@ -210,6 +301,9 @@ public static class SequenceChecker
                 case VerifyStep verify:
                     RequireSettled(verify.Setpoint, settledAt, setpoints, path, problems);
                     Samples(verify.Samples, path, problems);
+                    var verifyOutputKnown = CheckOutput(verify.Output, path, problems);
+                    problems.AddIf(verifyOutputKnown && firmware && verify.Output != UnitOutputs.Link, $"{path}.output",
+                        "a firmware-trimmed unit reports its temperature itself: verify it with \"output\": \"link\"");
                     CheckLimits(verify.Limits, $"{path}.limits", TemperatureDifferenceUnits, problems);
                     problems.AddIf(sequence.Trim is not null && !trimmed, path,
                         "a verify step must come after the trim step (it confirms the trim)");

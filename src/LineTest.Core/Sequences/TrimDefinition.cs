@@ -2,7 +2,7 @@ using LineTest.Core.Trims;
 
 namespace LineTest.Core.Sequences;
 
-/// <summary>Which trim method the product uses, and its parameters.</summary>
+/// <summary>Which trim method the product uses, and its parameters (the object named after the method).</summary>
 public sealed record TrimDefinition
 {
     /// <summary><c>dac</c>, <c>resistor</c> or <c>firmware</c>.</summary>
@@ -10,4 +10,21 @@ public sealed record TrimDefinition
 
     /// <summary>Parameters of the DAC trim (method <c>dac</c>).</summary>
     public DacTrimSpec? Dac { get; init; }
+
+    /// <summary>Parameters of the select-on-test resistor trim (method <c>resistor</c>).</summary>
+    public ResistorTrimSpec? Resistor { get; init; }
+
+    /// <summary>Parameters of the firmware coefficient trim (method <c>firmware</c>).</summary>
+    public FirmwareTrimSpec? Firmware { get; init; }
+
+    /// <summary>
+    /// The analog transfer function the trimmed unit must follow (DAC or resistor trim); null for a firmware trim,
+    /// whose unit reports °C itself.
+    /// </summary>
+    public LinearTransfer? AnalogTarget => Method switch
+    {
+        TrimMethods.Dac => Dac?.Target,
+        TrimMethods.Resistor => Resistor?.Target,
+        _ => null,
+    };
 }

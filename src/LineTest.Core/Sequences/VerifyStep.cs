@@ -19,6 +19,12 @@ public sealed record VerifyStep : StepDefinition
     /// <summary>Readings averaged.</summary>
     public int Samples { get; init; } = 10;
 
+    /// <summary>
+    /// Where the indicated temperature comes from: <c>meter</c> (the output volts through the trim's target transfer
+    /// function, the default) or <c>link</c> (the temperature the unit reports over its link, see <see cref="UnitOutputs"/>).
+    /// </summary>
+    public string Output { get; init; } = UnitOutputs.Meter;
+
     /// <summary>Limits on the indicated error (unit degC or K).</summary>
     public required LimitSpec Limits { get; init; }
 }

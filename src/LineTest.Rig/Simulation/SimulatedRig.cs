@@ -1,4 +1,5 @@
 using LineTest.Core.Fixtures;
+using LineTest.Core.Trims;
 using LineTest.Rig.Instruments;
 
 namespace LineTest.Rig.Simulation;
@@ -21,6 +22,10 @@ public sealed class SimulatedRig
     private readonly IReadOnlyDictionary<int, SimulatedSlot> _slots;
     private readonly Dictionary<int, SimulatedUnitLink> _links;
 
+    // Concurrency: guarded by _partsLock (the simulated operator may fit parts from any thread).
+    private readonly Random _parts;
+    private readonly Lock _partsLock = new();
+
     /// <summary>Builds the rig of <paramref name="fixture"/>.</summary>
     /// <param name="fixture">The fixture; its <see cref="FixtureDefinition.Simulation"/> (or the defaults) gives the physics.</param>
     /// <param name="seed">Seed for every noise source of the rig.</param>
@@ -42,6 +47,7 @@ public sealed class SimulatedRig
         _slots = fixture.Slots.ToDictionary(s => s.Slot, s => new SimulatedSlot(s, Block, timeProvider));
         Meter = new SimulatedVoltmeter(fixture.Meter, _slots.Values, seeds.Next());
         _links = _slots.ToDictionary(p => p.Key, p => new SimulatedUnitLink(p.Value));
+        _parts = new Random(seeds.Next());
         Instruments = new RigInstruments(Block, Reference, Meter, _links.ToDictionary(p => p.Key, p => (IUnitLink)p.Value));
     }
 
@@ -92,6 +98,43 @@ public sealed class SimulatedRig
 
     /// <summary>The unit in <paramref name="slot"/>, or null.</summary>
     public SimulatedUnit? UnitIn(int slot) => SlotOf(slot).Unit;
+
+    /// <summary>
+    /// The simulated operator fits select-on-test parts into the resistor-trimmed unit in <paramref name="slot"/>:
+    /// each part's actual value is drawn around its nominal within the design's part tolerance (normal, σ = half the
+    /// tolerance, cut at ±tolerance), pairs are combined as connected. Returns the actual ohms now at each position.
+    /// </summary>
+    /// <exception cref="InvalidOperationException">The slot is empty, or its unit has no such position.</exception>
+    public IReadOnlyDictionary<string, double> FitParts(int slot, IEnumerable<ResistorChoice> choices)
+    {
+        ArgumentNullException.ThrowIfNull(choices);
+        var target = SlotOf(slot);
+        var fitted = new Dictionary<string, double>(StringComparer.Ordinal);
+        lock (target.Gate)
+        {
+            var unit = target.CurrentUnitLocked() ?? throw new InvalidOperationException($"Slot {slot} is empty: there is no unit to fit parts into.");
+            if (unit.Design.Kind != SimulatedUnitKind.ResistorTrimmed)
+            {
+                throw new InvalidOperationException($"Unit {unit.Serial} is a {unit.Design.Product}: it has no select-on-test positions.");
+            }
+
+            var tolerance = unit.Design.TrimPartTolerancePercent / 100.0;
+            foreach (var choice in choices)
+            {
+                double[] actual;
+                lock (_partsLock)
+                {
+                    actual = choice.Parts.Select(p => p * _parts.NextTruncatedNormal(1, tolerance / 2, 1 - tolerance, 1 + tolerance)).ToArray();
+                }
+
+                var ohms = ResistorChoice.Combine(choice.Connection, actual);
+                unit.Fit(choice.Position, ohms);
+                fitted[choice.Position] = ohms;
+            }
+        }
+
+        return fitted;
+    }
 
     /// <summary>
     /// Injects a fault. Command-counted faults hold from the (<see cref="RigFault.AfterCommands"/> + 1)-th command to

@@ -3,9 +3,11 @@ using LineTest.Core.Trims;
 namespace LineTest.Rig.Simulation;
 
 /// <summary>
-/// One simulated analog unit: a diode sensor at constant bias current, an inverting amplifier with a gain DAC and
-/// an offset DAC, trim registers with non-volatile storage, and its ground truth (part parameters and defect) for
-/// tests and campaigns that must know whether the station's verdict was right.
+/// One simulated unit: a diode sensor at constant bias current followed by the output stage of its design
+/// (<see cref="SimulatedUnitKind"/>): an inverting amplifier with a gain DAC and an offset DAC (CTP-40A), a
+/// pre-amplifier and a select-on-test resistor network (CTP-40R), or an ADC and firmware coefficients (CTP-40D);
+/// trim registers with non-volatile storage, and its ground truth (part parameters and defect) for tests and
+/// campaigns that must know whether the station's verdict was right.
 /// </summary>
 /// <remarks>
 /// The sensor follows its well with a first-order lag; its temperature is advanced exactly whenever the rig queries
@@ -18,6 +20,7 @@ public sealed class SimulatedUnit
     private readonly Random _noise;
     private readonly Dictionary<string, long> _working;
     private readonly Dictionary<string, long> _stored;
+    private readonly Dictionary<string, double?> _fittedOhms;
 
     internal SimulatedUnit(
         string serial,
@@ -33,12 +36,26 @@ public sealed class SimulatedUnit
         Defect = defect;
         OutputNoiseVolts = outputNoiseVolts;
         _noise = new Random(noiseSeed);
-        _working = new Dictionary<string, long>(StringComparer.Ordinal)
+        _working = design.Kind switch
         {
-            [design.GainRegister] = design.CodeNominal,
-            [design.OffsetRegister] = design.CodeNominal,
+            SimulatedUnitKind.FirmwareTrimmed => new Dictionary<string, long>(design.FactoryCoefficientRegisters(), StringComparer.Ordinal),
+            SimulatedUnitKind.ResistorTrimmed => new Dictionary<string, long>(StringComparer.Ordinal),
+            _ => new Dictionary<string, long>(StringComparer.Ordinal)
+            {
+                [design.GainRegister] = design.CodeNominal,
+                [design.OffsetRegister] = design.CodeNominal,
+            },
         };
         _stored = new Dictionary<string, long>(_working, StringComparer.Ordinal);
+
+        // A resistor-trimmed unit is calibrated with precision parts of exactly the design's calibration values.
+        _fittedOhms = new Dictionary<string, double?>(StringComparer.Ordinal);
+        if (design.Kind == SimulatedUnitKind.ResistorTrimmed)
+        {
+            _fittedOhms[design.GainPosition] = design.GainFittedOhms;
+            _fittedOhms[design.OffsetPosition] = design.OffsetFittedOhms;
+        }
+
         SensorC = SimulatedRig.DefaultAmbientC;
     }
 
@@ -93,13 +110,69 @@ public sealed class SimulatedUnit
         return Math.Clamp(output, Design.OutputMinVolts, Design.OutputMaxVolts);
     }
 
-    /// <summary>Noise-free output with the working registers, volts.</summary>
-    public double TrueOutputVolts(double sensorC)
-        => TrueOutputVolts(sensorC, _working[Design.GainRegister], _working[Design.OffsetRegister]);
+    /// <summary>
+    /// Noise-free output with the working registers (or the parts now fitted), volts. A digital unit has no analog
+    /// output: its output pin reads 0 V.
+    /// </summary>
+    public double TrueOutputVolts(double sensorC) => Design.Kind switch
+    {
+        SimulatedUnitKind.ResistorTrimmed => ResistorOutputVolts(sensorC),
+        SimulatedUnitKind.FirmwareTrimmed => 0.0,
+        _ => TrueOutputVolts(sensorC, _working[Design.GainRegister], _working[Design.OffsetRegister]),
+    };
 
-    /// <summary>Noise-free output as shipped (stored registers, which load at power-up), volts.</summary>
-    public double TrueOutputVoltsAsShipped(double sensorC)
-        => TrueOutputVolts(sensorC, _stored[Design.GainRegister], _stored[Design.OffsetRegister]);
+    /// <summary>Noise-free output as shipped (stored registers, which load at power-up, or the fitted parts), volts.</summary>
+    public double TrueOutputVoltsAsShipped(double sensorC) => Design.Kind switch
+    {
+        SimulatedUnitKind.ResistorTrimmed => ResistorOutputVolts(sensorC),
+        SimulatedUnitKind.FirmwareTrimmed => 0.0,
+        _ => TrueOutputVolts(sensorC, _stored[Design.GainRegister], _stored[Design.OffsetRegister]),
+    };
+
+    /// <summary>
+    /// The actual resistance now at each select-on-test position of a resistor-trimmed unit, ohms (null: open);
+    /// empty for other designs.
+    /// </summary>
+    public IReadOnlyDictionary<string, double?> FittedOhms => new Dictionary<string, double?>(_fittedOhms, StringComparer.Ordinal);
+
+    /// <summary>
+    /// Noise-free raw ADC reading of a digital unit with the sensor at <paramref name="sensorC"/>, counts (not rounded);
+    /// an open sensor reads full scale. For an analog unit: its output in microvolts.
+    /// </summary>
+    public double TrueRawCounts(double sensorC)
+    {
+        if (Design.Kind != SimulatedUnitKind.FirmwareTrimmed)
+        {
+            return TrueOutputVolts(sensorC) * 1e6;
+        }
+
+        if (Defect == UnitDefect.OpenSensor)
+        {
+            return Design.AdcFullScaleCounts;
+        }
+
+        var counts = Parameters.Diode.ForwardVolts(sensorC, Design.BiasCurrentAmps) / Parameters.AdcReferenceVolts * (1L << Design.AdcBits);
+        return Math.Clamp(counts, 0, Design.AdcFullScaleCounts);
+    }
+
+    /// <summary>
+    /// The temperature a digital unit's firmware reports for raw reading <paramref name="raw"/> with the given
+    /// registers (c0 + c1·r + c2·r², missing registers count as 0), °C.
+    /// </summary>
+    public double ReportedC(double raw, IReadOnlyDictionary<string, long> registers)
+    {
+        ArgumentNullException.ThrowIfNull(registers);
+        var coefficients = Design.CoefficientRegisters
+            .Select(r => registers.TryGetValue(r.Register, out var q) ? r.Dequantise(q) : 0.0)
+            .ToArray();
+        return Core.Trims.FirmwareTrim.Evaluate(coefficients, raw);
+    }
+
+    /// <summary>
+    /// Temperature error of a digital unit as shipped, °C: what its firmware reports from its stored coefficients with
+    /// the sensor settled at <paramref name="celsius"/> (noise-free), minus <paramref name="celsius"/>.
+    /// </summary>
+    public double TrueReportedErrorC(double celsius) => ReportedC(TrueRawCounts(celsius), _stored) - celsius;
 
     /// <summary>Output error as shipped against <paramref name="target"/>, volts, with the sensor settled at <paramref name="celsius"/>.</summary>
     public double TrueErrorVolts(LinearTransfer target, double celsius)
@@ -116,6 +189,26 @@ public sealed class SimulatedUnit
     {
         ArgumentNullException.ThrowIfNull(target);
         return target.IndicatedC(TrueOutputVoltsAsShipped(celsius)) - celsius;
+    }
+
+    /// <summary>
+    /// Output of a resistor-trimmed unit: <c>V = (1 + Rf/Rg)·u(T) + Vref·Rfo/Ro</c> with the parts now fitted
+    /// (an open position gives G = 1 or no offset) and <c>u(T) = A·(V_b − V_f(T) + e_in)</c>, clipped to the swing.
+    /// </summary>
+    private double ResistorOutputVolts(double sensorC)
+    {
+        if (Defect == UnitDefect.OpenSensor)
+        {
+            return Parameters.OpenRailVolts;
+        }
+
+        var rg = _fittedOhms[Design.GainPosition];
+        var ro = _fittedOhms[Design.OffsetPosition];
+        var gain = rg is { } g ? 1.0 + (Design.GainFeedbackOhms / g) : 1.0;
+        var offset = ro is { } o ? Design.OffsetNetworkReferenceVolts * Design.OffsetFeedbackOhms / o : 0.0;
+        var forward = Parameters.Diode.ForwardVolts(sensorC, Design.BiasCurrentAmps);
+        var u = Parameters.DesignGain * (Design.ReferenceVolts - forward + Parameters.InputOffsetVolts);
+        return Math.Clamp((gain * u) + offset, Design.OutputMinVolts, Design.OutputMaxVolts);
     }
 
     /// <summary>Whether the unit as shipped is within ±<paramref name="limitC"/> of the target at every one of <paramref name="temperaturesC"/>.</summary>
@@ -154,6 +247,41 @@ public sealed class SimulatedUnit
         return OutputNoiseVolts > 0 ? value + _noise.NextNormal(0, OutputNoiseVolts) : value;
     }
 
+    /// <summary>The raw reading with its noise, as the unit's link reports it: ADC counts (digital) or output microvolts (analog).</summary>
+    internal long SampleRawCounts()
+    {
+        if (Design.Kind != SimulatedUnitKind.FirmwareTrimmed)
+        {
+            return (long)Math.Round(SampleOutputVolts() * 1e6);
+        }
+
+        var counts = TrueRawCounts(SensorC);
+        if (Defect != UnitDefect.OpenSensor && Design.AdcNoiseCounts > 0)
+        {
+            counts += _noise.NextNormal(0, Design.AdcNoiseCounts);
+        }
+
+        return (long)Math.Clamp(Math.Round(counts), 0, Design.AdcFullScaleCounts);
+    }
+
+    /// <summary>The temperature the unit reports over its link: firmware coefficients on a noisy raw reading (digital).</summary>
+    internal double SampleReportedC() => ReportedC(SampleRawCounts(), _working);
+
+    /// <summary>
+    /// Fits a part of actual value <paramref name="actualOhms"/> at <paramref name="position"/> (the operator's hands).
+    /// A unit with the trim-does-not-take defect has a bad joint at its gain position: it stays open.
+    /// </summary>
+    internal void Fit(string position, double actualOhms)
+    {
+        if (!_fittedOhms.ContainsKey(position))
+        {
+            throw new InvalidOperationException(
+                $"Unit {Serial} has no select-on-test position {position} (it has {string.Join(", ", _fittedOhms.Keys)}).");
+        }
+
+        _fittedOhms[position] = Defect == UnitDefect.StuckDac && position == Design.GainPosition ? null : actualOhms;
+    }
+
     internal void WriteWorking(IReadOnlyDictionary<string, long> values)
     {
         foreach (var (name, code) in values)
@@ -164,6 +292,12 @@ public sealed class SimulatedUnit
 
     internal void Store()
     {
+        // A digital unit whose non-volatile memory fails acknowledges the store but keeps what it had.
+        if (Defect == UnitDefect.StuckDac && Design.Kind == SimulatedUnitKind.FirmwareTrimmed)
+        {
+            return;
+        }
+
         foreach (var (name, code) in _working)
         {
             _stored[name] = code;

@@ -4,8 +4,9 @@ using LineTest.Core.Trims;
 namespace LineTest.Rig.Simulation;
 
 /// <summary>
-/// Design values of the simulated analog unit (the invented CTP-40A) and the part-to-part spread of its components.
-/// The output follows the model a DAC trim assumes (<see cref="DacTrimSpec"/>):
+/// Design values of a simulated unit (the invented CTP-40 family) and the part-to-part spread of its components.
+/// The default values are the analog CTP-40A (<see cref="Ctp40A"/>); <see cref="Ctp40R"/> and <see cref="Ctp40D"/> change
+/// what differs. The CTP-40A's output follows the model a DAC trim assumes (<see cref="DacTrimSpec"/>):
 /// <c>V_out = G(g)·(V_ref − V_f(T) + e_in) + OffsetStep·(o − CodeNominal)</c> with
 /// <c>G(g) = G_design·(1 + GainStep·(g − CodeNominal))</c>, clipped to the amplifier's output swing.
 /// With nominal codes a typical part gives about 0.50 V at 0 °C and +10 mV/°C: the diode's ≈ −2 mV/°C times the
@@ -22,6 +23,48 @@ public sealed record SimulatedUnitDesign
 {
     /// <summary>The CTP-40A as shipped in the demo.</summary>
     public static SimulatedUnitDesign Ctp40A { get; } = new();
+
+    /// <summary>
+    /// The CTP-40R: the same diode and a bipolar pre-amplifier <c>u(T) = A·(V_b − V_f(T) + e_in)</c> with A = 2.5 and
+    /// V_b = 0.680 V, then the select-on-test network of <see cref="ResistorTrimSpec"/>:
+    /// <c>V(T) = (1 + Rf/Rg)·u(T) + Vref·Rfo/Ro</c>, Rf = 10 kΩ, Rg at R7 (10 kΩ fitted for calibration),
+    /// Vref = 2.5 V, Rfo = 10 kΩ, Ro at R8 (71.5 kΩ fitted for calibration). A typical part needs G ≈ 2 and
+    /// Voff ≈ 0.35 V; the spread of the diode and pre-amplifier asks for Rg ≈ 8…12 kΩ and Ro ≈ 40…180 kΩ.
+    /// Trim parts are 0.1 % thin-film E96 parts.
+    /// </summary>
+    public static SimulatedUnitDesign Ctp40R { get; } = new()
+    {
+        Kind = SimulatedUnitKind.ResistorTrimmed,
+        Product = "CTP-40R",
+        Firmware = "id-1.0",
+        SerialPrefix = "CTP40R",
+        DesignGain = 2.5,
+        ReferenceVolts = 0.680,
+    };
+
+    /// <summary>
+    /// The CTP-40D: the same diode read by a 20-bit ADC against a 1.25 V reference (±0.2 % 1σ between parts), about
+    /// −1670 counts/°C; the firmware reports <c>T = c0 + c1·r + c2·r²</c> from Q-format registers C0, C1, C2 loaded
+    /// from non-volatile memory. It has no analog output.
+    /// </summary>
+    public static SimulatedUnitDesign Ctp40D { get; } = new()
+    {
+        Kind = SimulatedUnitKind.FirmwareTrimmed,
+        Product = "CTP-40D",
+        Firmware = "2.0.3",
+        SerialPrefix = "CTP40D",
+        SupplyCurrentAmps = 0.0032,
+    };
+
+    /// <summary>The three demo designs by product name: the one place that maps a sequence's product to a design.</summary>
+    public static IReadOnlyList<SimulatedUnitDesign> Demo { get; } = [Ctp40A, Ctp40R, Ctp40D];
+
+    /// <summary>The demo design whose product is <paramref name="product"/>, or null when there is none.</summary>
+    public static SimulatedUnitDesign? ForProduct(string product) =>
+        Demo.FirstOrDefault(d => string.Equals(d.Product, product, StringComparison.Ordinal));
+
+    /// <summary>How the design is trimmed.</summary>
+    public SimulatedUnitKind Kind { get; init; } = SimulatedUnitKind.DacTrimmed;
 
     /// <summary>Product name the unit reports when identified.</summary>
     public string Product { get; init; } = "CTP-40A";
@@ -113,6 +156,53 @@ public sealed record SimulatedUnitDesign
     /// <summary>Spread (1σ) of the supply current, amperes.</summary>
     public double SupplyCurrentSpreadAmps { get; init; } = 0.00005;
 
+    /// <summary>Resistor trim: board position of the gain resistor Rg.</summary>
+    public string GainPosition { get; init; } = "R7";
+
+    /// <summary>Resistor trim: fixed feedback resistor Rf of the gain stage, Ω.</summary>
+    public double GainFeedbackOhms { get; init; } = 10_000;
+
+    /// <summary>Resistor trim: Rg fitted (a precision part) while the unit is calibrated, Ω.</summary>
+    public double GainFittedOhms { get; init; } = 10_000;
+
+    /// <summary>Resistor trim: board position of the offset resistor Ro.</summary>
+    public string OffsetPosition { get; init; } = "R8";
+
+    /// <summary>Resistor trim: the offset network's reference voltage, volts.</summary>
+    public double OffsetNetworkReferenceVolts { get; init; } = 2.5;
+
+    /// <summary>Resistor trim: feedback resistor Rfo of the summing stage, Ω.</summary>
+    public double OffsetFeedbackOhms { get; init; } = 10_000;
+
+    /// <summary>Resistor trim: Ro fitted (a precision part) while the unit is calibrated, Ω.</summary>
+    public double OffsetFittedOhms { get; init; } = 71_500;
+
+    /// <summary>Resistor trim: ± tolerance of the trim parts the operator fits, percent (each part drawn within it).</summary>
+    public double TrimPartTolerancePercent { get; init; } = 0.1;
+
+    /// <summary>Firmware trim: ADC resolution, bits (counts run from 0 to 2^bits − 1).</summary>
+    public int AdcBits { get; init; } = 20;
+
+    /// <summary>Firmware trim: nominal ADC reference voltage, volts.</summary>
+    public double AdcReferenceVolts { get; init; } = 1.25;
+
+    /// <summary>Firmware trim: spread (1σ) of the ADC reference between parts, as a fraction; draws kept within ±2σ.</summary>
+    public double AdcReferenceSpread { get; init; } = 0.002;
+
+    /// <summary>Firmware trim: ADC noise (1σ), counts.</summary>
+    public double AdcNoiseCounts { get; init; } = 2.0;
+
+    /// <summary>Firmware trim: the coefficient registers c0, c1, c2 (Q formats: 32-bit C0 Q15.16, C1, C2 ).</summary>
+    public IReadOnlyList<FirmwareCoefficientSpec> CoefficientRegisters { get; init; } =
+    [
+        new() { Register = "C0", Bits = 32, FractionalBits = 16 },
+        new() { Register = "C1", Bits = 32, FractionalBits = 40 },
+        new() { Register = "C2", Bits = 32, FractionalBits = 60 },
+    ];
+
+    /// <summary>Highest raw reading of the ADC (full scale), counts.</summary>
+    public long AdcFullScaleCounts => (1L << AdcBits) - 1;
+
     /// <summary>The serial regular expression for this design (anchored).</summary>
     public string SerialPattern => $"^{Regex.Escape(SerialPrefix)}-[0-9]{{2}}(0[1-9]|[1-4][0-9]|5[0-3])-[0-9]{{6}}$";
 
@@ -123,6 +213,47 @@ public sealed record SimulatedUnitDesign
         Offset = new DacChannelSpec { Min = CodeMin, Max = CodeMax, Nominal = CodeNominal, Step = OffsetStepVolts, Register = OffsetRegister },
         Target = new LinearTransfer { OffsetVolts = TargetOffsetVolts, SlopeVoltsPerC = TargetSlopeVoltsPerC },
     };
+
+    /// <summary>The resistor trim parameters a sequence for this design uses (E96 parts, pairs allowed).</summary>
+    public ResistorTrimSpec ToResistorTrimSpec() => new()
+    {
+        Series = "E96",
+        AllowPairs = true,
+        TolerancePercent = TrimPartTolerancePercent,
+        Gain = new ResistorGainNetwork
+        {
+            Position = GainPosition, FeedbackOhms = GainFeedbackOhms, FittedOhms = GainFittedOhms, MinOhms = 2_000, MaxOhms = 100_000,
+        },
+        Offset = new ResistorOffsetNetwork
+        {
+            Position = OffsetPosition, ReferenceVolts = OffsetNetworkReferenceVolts, FeedbackOhms = OffsetFeedbackOhms,
+            FittedOhms = OffsetFittedOhms, MinOhms = 20_000, MaxOhms = 1_000_000,
+        },
+        Target = Target,
+    };
+
+    /// <summary>The firmware trim parameters of order <paramref name="order"/> (1 or 2) a sequence for this design uses.</summary>
+    public FirmwareTrimSpec ToFirmwareTrimSpec(int order = 1) => new()
+    {
+        Order = order,
+        Coefficients = CoefficientRegisters.Take(order + 1).ToArray(),
+    };
+
+    /// <summary>
+    /// The coefficients a CTP-40D leaves the factory with, as register values: the straight line through the
+    /// nominal part's readings at 0 °C and 40 °C, c2 = 0 (about right, never calibrated).
+    /// </summary>
+    public IReadOnlyDictionary<string, long> FactoryCoefficientRegisters()
+    {
+        var diode = NominalDiode();
+        double Counts(double c) => diode.ForwardVolts(c, BiasCurrentAmps) / AdcReferenceVolts * (1L << AdcBits);
+        var r0 = Counts(0);
+        var c1 = 40.0 / (Counts(40) - r0);
+        var c0 = -c1 * r0;
+        double[] coefficients = [c0, c1, 0.0];
+        return CoefficientRegisters.Select((r, i) => (r.Register, Value: (long)Math.Round(coefficients[i] / r.Lsb, MidpointRounding.AwayFromZero)))
+            .ToDictionary(p => p.Register, p => p.Value, StringComparer.Ordinal);
+    }
 
     /// <summary>The target transfer function of a trimmed unit.</summary>
     public LinearTransfer Target => new() { OffsetVolts = TargetOffsetVolts, SlopeVoltsPerC = TargetSlopeVoltsPerC };

@@ -124,7 +124,10 @@ public sealed class SimulatedUnitFactory
             OffsetStepVolts: d.OffsetStepVolts * part.NextTruncatedNormal(1, d.DacStepSpread, 1 - (2 * d.DacStepSpread), 1 + (2 * d.DacStepSpread)),
             LagTimeConstantSeconds: part.NextLogNormal(_simulation.UnitLagTimeConstantSeconds, _simulation.UnitLagSpread),
             SupplyCurrentAmps: part.NextNormal(d.SupplyCurrentAmps, d.SupplyCurrentSpreadAmps),
-            OpenRailVolts: d.OutputMaxVolts - (0.01 * part.NextDouble()));
+            OpenRailVolts: d.OutputMaxVolts - (0.01 * part.NextDouble()),
+
+            // Drawn last so the analog parts of a seed stay what they were before digital designs existed.
+            AdcReferenceVolts: d.AdcReferenceVolts * part.NextTruncatedNormal(1, d.AdcReferenceSpread, 1 - (2 * d.AdcReferenceSpread), 1 + (2 * d.AdcReferenceSpread)));
         return new SimulatedUnit(serial, d, parameters, defect, _simulation.UnitOutputNoiseVolts, noiseSeed);
     }
 }

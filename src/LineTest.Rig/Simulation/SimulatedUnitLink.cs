@@ -8,9 +8,13 @@ namespace LineTest.Rig.Simulation;
 /// <c>InstrumentError</c> and changes nothing.
 /// </summary>
 /// <remarks>
-/// The analog CTP-40A has no ADC of its own yet: <see cref="ReadRawAsync"/> returns its output in microvolts as counts
-/// and <see cref="ReadTemperatureAsync"/> the temperature its design's target transfer function indicates for that
-/// output.
+/// <para>The digital CTP-40D answers <see cref="ReadRawAsync"/> with its ADC counts and <see cref="ReadTemperatureAsync"/>
+/// with the temperature its firmware computes from its working coefficient registers; it accepts its coefficient
+/// registers within their two's-complement width.</para>
+/// <para>The analog units have no ADC of their own: <see cref="ReadRawAsync"/> returns the output in microvolts as
+/// counts and <see cref="ReadTemperatureAsync"/> the temperature the design's target transfer function indicates for
+/// that output. A CTP-40R's link only identifies the unit: it has no trim registers, its trim is the parts the operator
+/// fits (<see cref="SimulatedRig.FitParts"/>).</para>
 /// </remarks>
 public sealed class SimulatedUnitLink : IUnitLink
 {
@@ -32,11 +36,15 @@ public sealed class SimulatedUnitLink : IUnitLink
 
     /// <inheritdoc/>
     public Task<long> ReadRawAsync(CancellationToken cancellationToken)
-        => SimulatedCall.Run(() => Command(unit => (long)Math.Round(unit.SampleOutputVolts() * 1e6)), cancellationToken);
+        => SimulatedCall.Run(() => Command(unit => unit.SampleRawCounts()), cancellationToken);
 
     /// <inheritdoc/>
     public Task<double> ReadTemperatureAsync(CancellationToken cancellationToken)
-        => SimulatedCall.Run(() => Command(unit => unit.Design.Target.IndicatedC(unit.SampleOutputVolts())), cancellationToken);
+        => SimulatedCall.Run(
+            () => Command(unit => unit.Design.Kind == SimulatedUnitKind.FirmwareTrimmed
+                ? unit.SampleReportedC()
+                : unit.Design.Target.IndicatedC(unit.SampleOutputVolts())),
+            cancellationToken);
 
     /// <inheritdoc/>
     public Task WriteTrimAsync(IReadOnlyDictionary<string, long> values, CancellationToken cancellationToken)
@@ -45,17 +53,9 @@ public sealed class SimulatedUnitLink : IUnitLink
         return SimulatedCall.Run(
             () => Command(unit =>
             {
-                foreach (var (name, code) in values)
+                foreach (var (name, value) in values)
                 {
-                    if (name != unit.Design.GainRegister && name != unit.Design.OffsetRegister)
-                    {
-                        throw new InstrumentFaultException(_instrumentName, InstrumentFaultKind.InstrumentError, $"unit rejected unknown register '{name}' (it has {unit.Design.GainRegister} and {unit.Design.OffsetRegister})");
-                    }
-
-                    if (code < unit.Design.CodeMin || code > unit.Design.CodeMax)
-                    {
-                        throw new InstrumentFaultException(_instrumentName, InstrumentFaultKind.InstrumentError, $"unit rejected {name} = {code}: codes run from {unit.Design.CodeMin} to {unit.Design.CodeMax}");
-                    }
+                    CheckRegister(unit, name, value);
                 }
 
                 unit.WriteWorking(values);
@@ -77,6 +77,39 @@ public sealed class SimulatedUnitLink : IUnitLink
     /// <inheritdoc/>
     public Task<IReadOnlyDictionary<string, long>> ReadBackAsync(CancellationToken cancellationToken)
         => SimulatedCall.Run(() => Command(unit => unit.StoredRegisters), cancellationToken);
+
+    private void CheckRegister(SimulatedUnit unit, string name, long value)
+    {
+        var design = unit.Design;
+        switch (design.Kind)
+        {
+            case SimulatedUnitKind.ResistorTrimmed:
+                throw Rejected($"unit rejected register '{name}': a {design.Product} has no trim registers (its trim is the parts fitted at {design.GainPosition} and {design.OffsetPosition})");
+            case SimulatedUnitKind.FirmwareTrimmed:
+                var register = design.CoefficientRegisters.FirstOrDefault(r => r.Register == name)
+                    ?? throw Rejected($"unit rejected unknown register '{name}' (it has {string.Join(", ", design.CoefficientRegisters.Select(r => r.Register))})");
+                if (value < register.MinValue || value > register.MaxValue)
+                {
+                    throw Rejected($"unit rejected {name} = {value}: a {register.Bits}-bit register holds {register.MinValue} to {register.MaxValue}");
+                }
+
+                break;
+            default:
+                if (name != design.GainRegister && name != design.OffsetRegister)
+                {
+                    throw Rejected($"unit rejected unknown register '{name}' (it has {design.GainRegister} and {design.OffsetRegister})");
+                }
+
+                if (value < design.CodeMin || value > design.CodeMax)
+                {
+                    throw Rejected($"unit rejected {name} = {value}: codes run from {design.CodeMin} to {design.CodeMax}");
+                }
+
+                break;
+        }
+    }
+
+    private InstrumentFaultException Rejected(string message) => new(_instrumentName, InstrumentFaultKind.InstrumentError, message);
 
     private T Command<T>(Func<SimulatedUnit, T> action)
     {

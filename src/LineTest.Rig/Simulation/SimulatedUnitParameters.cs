@@ -9,6 +9,7 @@ namespace LineTest.Rig.Simulation;
 /// <param name="LagTimeConstantSeconds">Time constant with which the sensor follows its well, seconds.</param>
 /// <param name="SupplyCurrentAmps">Supply current, amperes.</param>
 /// <param name="OpenRailVolts">Where the output rails if the sensor is open, volts.</param>
+/// <param name="AdcReferenceVolts">Actual ADC reference of a digital unit, volts (unused by analog designs).</param>
 public sealed record SimulatedUnitParameters(
     SiliconDiode Diode,
     double DesignGain,
@@ -17,4 +18,5 @@ public sealed record SimulatedUnitParameters(
     double OffsetStepVolts,
     double LagTimeConstantSeconds,
     double SupplyCurrentAmps,
-    double OpenRailVolts);
+    double OpenRailVolts,
+    double AdcReferenceVolts);

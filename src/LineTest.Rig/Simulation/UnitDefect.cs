@@ -6,10 +6,17 @@ public enum UnitDefect
     /// <summary>A good unit.</summary>
     None,
 
-    /// <summary>The diode is open: the amplifier output rails near the supply and does not follow temperature.</summary>
+    /// <summary>
+    /// The diode is open: an analog unit's output rails near the supply, a digital unit's ADC reads full scale; neither
+    /// follows temperature.
+    /// </summary>
     OpenSensor,
 
-    /// <summary>The trim DACs are stuck: writes, store and read-back look normal but the output does not change.</summary>
+    /// <summary>
+    /// The trim does not take. CTP-40A: the trim DACs are stuck (writes, store and read-back look normal but the output
+    /// does not change). CTP-40R: a bad joint leaves the gain position open after the trim parts are fitted (G = 1).
+    /// CTP-40D: the non-volatile memory does not keep a store (read-back returns the old coefficients).
+    /// </summary>
     StuckDac,
 
     /// <summary>The unit's link never answers; the analog output still works.</summary>

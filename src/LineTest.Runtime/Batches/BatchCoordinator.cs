@@ -33,6 +33,7 @@ public sealed class BatchCoordinator
     private readonly IBatchObserver _observer;
     private readonly ILogger _logger;
     private readonly InstrumentTiming _timing;
+    private readonly IPartFitting? _partFitting;
     private double _lastReferenceRaw = double.NaN;
 
     // Written by the operator screen's thread, read by the coordinator's loop at step boundaries.
@@ -48,6 +49,10 @@ public sealed class BatchCoordinator
     /// <param name="observer">Live progress, or null.</param>
     /// <param name="logger">Logger.</param>
     /// <param name="timing">Instrument pacing, or null for defaults.</param>
+    /// <param name="partFitting">
+    /// Where select-on-test parts go once the operator confirms fitting them (the simulator fits them into its units);
+    /// null on a real station, where the run's record of the confirmation is all there is.
+    /// </param>
     public BatchCoordinator(
         RigInstruments rig,
         FixtureDefinition fixture,
@@ -57,7 +62,8 @@ public sealed class BatchCoordinator
         IOperatorChannel operatorChannel,
         IBatchObserver? observer,
         ILogger logger,
-        InstrumentTiming? timing = null)
+        InstrumentTiming? timing = null,
+        IPartFitting? partFitting = null)
     {
         ArgumentNullException.ThrowIfNull(rig);
         ArgumentNullException.ThrowIfNull(fixture);
@@ -75,6 +81,7 @@ public sealed class BatchCoordinator
         _observer = observer ?? NullBatchObserver.Instance;
         _logger = logger;
         _timing = timing ?? new InstrumentTiming();
+        _partFitting = partFitting;
     }
 
     /// <summary>Runs the batch to its end. Throws <see cref="RunStorageException"/> when a run could not be stored.</summary>
@@ -258,7 +265,15 @@ public sealed class BatchCoordinator
             case TrimStep trim:
                 unit.Machine.BeginTrim();
                 Notify(batch, unit);
-                await new DacTrimExecutor(this).RunAsync(batch.Request.Sequence, trim, unit, ct).ConfigureAwait(false);
+                var sequence = batch.Request.Sequence;
+                var executor = sequence.Trim?.Method switch
+                {
+                    TrimMethods.Dac => new DacTrimExecutor(this).RunAsync(sequence, trim, unit, ct),
+                    TrimMethods.Resistor => new ResistorTrimExecutor(this, batch).RunAsync(sequence, trim, unit, ct),
+                    TrimMethods.Firmware => new FirmwareTrimExecutor(this).RunAsync(sequence, trim, unit, ct),
+                    var method => throw new InvalidOperationException($"Trim method '{method}' has no executor (the checker accepts only known methods)."),
+                };
+                await executor.ConfigureAwait(false);
                 break;
             default:
                 throw new InvalidOperationException($"Step kind '{step.Kind}' has no executor.");
@@ -390,7 +405,12 @@ public sealed class BatchCoordinator
             await DelayAsync(soak.MinimumSeconds, ct).ConfigureAwait(false);
         }
 
-        var sensitivity = Math.Abs(soak.OutputVoltsPerC ?? sequence.Trim?.Dac?.Target.SlopeVoltsPerC ?? 0.01);
+        // Drift is judged in °C: volts from the meter over the output sensitivity, or raw counts from the link over
+        // the raw sensitivity (the checker requires outputCountsPerC for a link soak).
+        var overLink = soak.Output == UnitOutputs.Link;
+        var sensitivity = overLink
+            ? Math.Abs(soak.OutputCountsPerC ?? throw new InvalidOperationException("Checked sequences soaking over the link give outputCountsPerC."))
+            : Math.Abs(soak.OutputVoltsPerC ?? sequence.Trim?.AnalogTarget?.SlopeVoltsPerC ?? 0.01);
         var windows = batch.Active.ToDictionary(
             u => u,
             _ => new StabilityWindow(soak.WindowSeconds, double.PositiveInfinity, soak.MaxDriftCPerMinute));
@@ -421,8 +441,19 @@ public sealed class BatchCoordinator
                     continue;
                 }
 
-                var volts = await ReadMeterAsync(SlotOf(unit).OutputChannel, ct).ConfigureAwait(false);
-                window.Add((_time.GetUtcNow() - start).TotalSeconds, volts / sensitivity);
+                double output;
+                try
+                {
+                    output = await ReadUnitAsync(unit, overLink ? UnitRead.Raw : UnitRead.MeterVolts, ct).ConfigureAwait(false);
+                }
+                catch (UnitFaultException ex)
+                {
+                    windows.Remove(unit);
+                    await FaultUnitAsync(batch, unit, ex.Message).ConfigureAwait(false);
+                    continue;
+                }
+
+                window.Add((_time.GetUtcNow() - start).TotalSeconds, output / sensitivity);
                 if (window.Evaluate().IsStable)
                 {
                     windows.Remove(unit);
@@ -448,20 +479,26 @@ public sealed class BatchCoordinator
             Notify(batch, unit);
         }
 
-        var (references, outputs) = await SampleRoundsAsync(units, step.Samples, ct).ConfigureAwait(false);
+        var overLink = step.Output == UnitOutputs.Link;
+        var (references, outputs) = await SampleRoundsAsync(batch, units, overLink ? UnitRead.Raw : UnitRead.MeterVolts, step.Samples, ct)
+            .ConfigureAwait(false);
         var refMean = references.Average();
         var refU = ReferenceBudget(references).Expand();
         var now = _time.GetUtcNow();
-        foreach (var unit in units)
+        foreach (var (unit, samples) in outputs)
         {
-            var samples = outputs[unit];
             var mean = samples.Average();
-            var u = new UncertaintyBudget(
-            [
-                .. TypeA("repeatability", samples),
-                UncertaintyComponent.FromRectangular("meter accuracy", MeterHalfWidthVolts(mean)),
-                UncertaintyComponent.FromResolution("meter resolution", _fixture.Meter.ResolutionVolts),
-            ]).Expand();
+
+            // Raw counts carry their repeatability and the one-count resolution of the unit's ADC; volts the meter's
+            // specification and resolution as well (JCGM 100:2008 §4.2, §4.3).
+            var u = new UncertaintyBudget(overLink
+                ? [.. TypeA("repeatability", samples), UncertaintyComponent.FromResolution("unit resolution", 1)]
+                :
+                [
+                    .. TypeA("repeatability", samples),
+                    UncertaintyComponent.FromRectangular("meter accuracy", MeterHalfWidthVolts(mean)),
+                    UncertaintyComponent.FromResolution("meter resolution", _fixture.Meter.ResolutionVolts),
+                ]).Expand();
             unit.CalibrationPoints[step.Setpoint] = (refMean, mean);
             unit.Add(UnlimitedReading.Create($"{step.DisplayName}.reference", refMean, "degC", refU) with
             { Step = step.DisplayName, Setpoint = step.Setpoint, Samples = step.Samples, At = now });
@@ -474,7 +511,7 @@ public sealed class BatchCoordinator
             }
             else
             {
-                output = UnlimitedReading.Create($"{step.DisplayName}.output", mean, "V", u) with { Samples = step.Samples, At = now };
+                output = UnlimitedReading.Create($"{step.DisplayName}.output", mean, overLink ? "count" : "V", u) with { Samples = step.Samples, At = now };
             }
 
             unit.Add(output with { Step = step.DisplayName, Setpoint = step.Setpoint });
@@ -490,32 +527,40 @@ public sealed class BatchCoordinator
             Notify(batch, unit);
         }
 
-        var (references, outputs) = await SampleRoundsAsync(units, step.Samples, ct).ConfigureAwait(false);
-        var target = batch.Request.Sequence.Trim?.Dac?.Target;
+        var overLink = step.Output == UnitOutputs.Link;
+        var (references, outputs) = await SampleRoundsAsync(batch, units, overLink ? UnitRead.Temperature : UnitRead.MeterVolts, step.Samples, ct)
+            .ConfigureAwait(false);
+        var target = batch.Request.Sequence.Trim?.AnalogTarget;
         var slope = target?.SlopeVoltsPerC ?? batch.Request.Sequence.Soak.OutputVoltsPerC ?? 0.01;
         var offset = target?.OffsetVolts ?? 0;
         var referenceBudget = ReferenceBudget(references);
         var now = _time.GetUtcNow();
-        foreach (var unit in units)
+        foreach (var (unit, values) in outputs)
         {
-            var volts = outputs[unit];
-            var errors = new double[volts.Length];
-            for (var i = 0; i < volts.Length; i++)
+            // Over the link the unit reports °C itself; from the meter its volts go through the target transfer.
+            var errors = new double[values.Length];
+            for (var i = 0; i < values.Length; i++)
             {
-                errors[i] = (volts[i] - offset) / slope - references[i];
+                errors[i] = (overLink ? values[i] : (values[i] - offset) / slope) - references[i];
             }
 
             var meanError = errors.Average();
-            var meanVolts = volts.Average();
+            var meanVolts = values.Average();
 
             // Error = indicated − reference: the unit's repeatability (Type A of the error samples), the meter's
-            // specification and resolution through the sensitivity 1/S, and the reference certificate
-            // (JCGM 100:2008 §4.2, §4.3, §5.1).
+            // specification and resolution through the sensitivity 1/S (not for a unit that reports °C over its
+            // link), and the reference certificate (JCGM 100:2008 §4.2, §4.3, §5.1).
+            UncertaintyComponent[] meter = overLink
+                ? []
+                :
+                [
+                    UncertaintyComponent.FromRectangular("meter accuracy", MeterHalfWidthVolts(meanVolts), 1 / Math.Abs(slope)),
+                    UncertaintyComponent.FromResolution("meter resolution", _fixture.Meter.ResolutionVolts, 1 / Math.Abs(slope)),
+                ];
             var u = new UncertaintyBudget(
             [
                 .. TypeA("repeatability", errors),
-                UncertaintyComponent.FromRectangular("meter accuracy", MeterHalfWidthVolts(meanVolts), 1 / Math.Abs(slope)),
-                UncertaintyComponent.FromResolution("meter resolution", _fixture.Meter.ResolutionVolts, 1 / Math.Abs(slope)),
+                .. meter,
                 .. referenceBudget.Components.Where(c => c.Name != "reference repeatability"),
             ]).Expand();
             unit.Add(UnlimitedReading.Create($"{step.DisplayName}.reference", references.Average(), "degC", referenceBudget.Expand()) with
@@ -525,23 +570,78 @@ public sealed class BatchCoordinator
         }
     }
 
-    /// <summary>Reads the reference and then every unit's output, <paramref name="samples"/> rounds.</summary>
-    private async Task<(double[] References, Dictionary<UnitContext, double[]> Outputs)> SampleRoundsAsync(
-        IReadOnlyList<UnitContext> units, int samples, CancellationToken ct)
+    /// <summary>
+    /// Reads the reference and then every unit's output, <paramref name="samples"/> rounds. A unit whose link fails
+    /// ends in error at once and is left out of the result; the others go on.
+    /// </summary>
+    private async Task<(double[] References, List<(UnitContext Unit, double[] Values)> Outputs)> SampleRoundsAsync(
+        BatchState batch, IReadOnlyList<UnitContext> units, UnitRead read, int samples, CancellationToken ct)
     {
         var references = new double[samples];
-        var outputs = units.ToDictionary(u => u, _ => new double[samples]);
+        var outputs = units.Select(u => (Unit: u, Values: new double[samples])).ToList();
         for (var i = 0; i < samples; i++)
         {
             references[i] = await ReadReferenceAsync(ct).ConfigureAwait(false);
-            foreach (var unit in units)
+            foreach (var (unit, values) in outputs.ToList())
             {
-                outputs[unit][i] = await ReadMeterAsync(SlotOf(unit).OutputChannel, ct).ConfigureAwait(false);
+                try
+                {
+                    values[i] = await ReadUnitAsync(unit, read, ct).ConfigureAwait(false);
+                }
+                catch (UnitFaultException ex)
+                {
+                    outputs.RemoveAll(o => o.Unit == unit);
+                    await FaultUnitAsync(batch, unit, ex.Message).ConfigureAwait(false);
+                }
             }
         }
 
         return (references, outputs);
     }
+
+    /// <summary>One reading of a unit's value: meter volts on its output channel, or raw counts or °C over its link.</summary>
+    private async Task<double> ReadUnitAsync(UnitContext unit, UnitRead read, CancellationToken ct)
+    {
+        switch (read)
+        {
+            case UnitRead.Raw:
+                return await LinkAsync(unit, (link, token) => link.ReadRawAsync(token), ct).ConfigureAwait(false);
+            case UnitRead.Temperature:
+                var celsius = await LinkAsync(unit, (link, token) => link.ReadTemperatureAsync(token), ct).ConfigureAwait(false);
+                if (!double.IsFinite(celsius))
+                {
+                    throw new UnitFaultException($"the unit in slot {unit.Slot} reported a temperature that is not a number");
+                }
+
+                return celsius;
+            default:
+                return await ReadMeterAsync(SlotOf(unit).OutputChannel, ct).ConfigureAwait(false);
+        }
+    }
+
+    private async Task FaultUnitAsync(BatchState batch, UnitContext unit, string reason)
+    {
+        RuntimeLog.UnitFault(_logger, unit.Serial, unit.Slot, reason);
+        unit.Machine.Fault(reason);
+        await FinishAsync(batch, unit).ConfigureAwait(false);
+    }
+
+    /// <summary>
+    /// Shows a prompt about one unit that needs the operator's confirmation (e.g. which parts to fit); the unit shows
+    /// as awaiting the operator until it is confirmed, then returns to its trim.
+    /// </summary>
+    internal async Task PromptOperatorAsync(BatchState batch, UnitContext unit, string text, CancellationToken ct)
+    {
+        unit.Machine.BeginPrompt();
+        Notify(batch, unit);
+        await _operator.PromptAsync(text, confirm: true, ct).ConfigureAwait(false);
+        unit.Machine.BeginTrim();
+        Notify(batch, unit);
+    }
+
+    /// <summary>Reports parts the operator confirmed fitting (nothing to do on a real station).</summary>
+    internal Task PartsFittedAsync(UnitContext unit, IReadOnlyList<Core.Trims.ResistorChoice> parts, CancellationToken ct) =>
+        _partFitting?.PartsFittedAsync(unit.Slot, unit.Serial, parts, ct) ?? Task.CompletedTask;
 
     internal async Task<T> LinkAsync<T>(UnitContext unit, Func<IUnitLink, CancellationToken, Task<T>> call, CancellationToken ct)
     {

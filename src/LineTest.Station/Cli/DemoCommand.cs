@@ -2,6 +2,7 @@ using System.CommandLine;
 using System.Globalization;
 using System.Text.Json;
 using LineTest.Core.Results;
+using LineTest.Rig.Simulation;
 using LineTest.Runtime.Batches;
 using LineTest.Station.Composition;
 using LineTest.Station.Demo;
@@ -61,6 +62,12 @@ public static class DemoCommand
             if (!sequenceResult.IsSuccess)
             {
                 return ExitCodes.BadInput;
+            }
+
+            if (SimulatedUnitDesign.ForProduct(sequenceResult.Value.Product) is null)
+            {
+                return context.BadInput(
+                    $"sequence '{sequenceResult.Value.Id}' tests '{sequenceResult.Value.Product}', but the simulator builds only {string.Join(", ", SimulatedUnitDesign.Demo.Select(d => d.Product))}");
             }
 
             var asJson = parse.GetValue(json);

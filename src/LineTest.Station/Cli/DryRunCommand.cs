@@ -40,6 +40,11 @@ public static class DryRunCommand
                 return ExitCodes.BadInput;
             }
 
+            if (Rig.Simulation.SimulatedUnitDesign.ForProduct(sequenceResult.Value.Product) is null)
+            {
+                return context.BadInput($"the simulator builds no '{sequenceResult.Value.Product}' units (it builds {string.Join(", ", Rig.Simulation.SimulatedUnitDesign.Demo.Select(d => d.Product))})");
+            }
+
             var report = await DryRun.RunAsync(fx, sequenceResult.Value, sequenceResult.Sha256, count, context.Options.SimulatorSeed, ct).ConfigureAwait(false);
             if (parse.GetValue(json))
             {

@@ -25,11 +25,13 @@ public static class DryRun
         var sensor = ReferenceConversion.SensorOf(perfect);
         var clock = new VirtualTimeProvider(new DateTimeOffset(2026, 1, 1, 6, 0, 0, TimeSpan.Zero));
         var rig = new SimulatedRig(perfect, seed, clock, ReferenceConversion.FromCelsius(sensor));
-        var factory = new SimulatedUnitFactory(seed, simulation, SimulatedUnitDesign.Ctp40A);
+        var design = SimulatedUnitDesign.ForProduct(sequence.Product)
+            ?? throw new ArgumentException($"The simulator builds no '{sequence.Product}' units.", nameof(sequence));
+        var factory = new SimulatedUnitFactory(seed, simulation, design);
         var sink = new MemorySink();
         var timing = new InstrumentTiming();
         var coordinator = new BatchCoordinator(rig.Instruments, perfect, ReferenceConversion.ToCelsius(sensor), clock, sink,
-            new AutoConfirmOperator(), null, NullLogger.Instance, timing);
+            new AutoConfirmOperator(), null, NullLogger.Instance, timing, new SimulatedPartFitting(rig));
         var loads = new List<SlotLoad>();
         foreach (var slot in perfect.Slots.Select(s => s.Slot).Order().Take(units))
         {

@@ -9,7 +9,8 @@ namespace LineTest.Station.Demo;
 
 /// <summary>
 /// Runs a production shift on the built-in simulator in accelerated virtual time: units come off a seeded
-/// production line, are loaded batch by batch, tested by the real coordinator and stored in the real database.
+/// production line (the design of the sequence's product, <see cref="SimulatedUnitDesign.ForProduct"/>), are loaded
+/// batch by batch, tested by the real coordinator and stored in the real database.
 /// </summary>
 public sealed class SimulatedShift
 {
@@ -35,7 +36,10 @@ public sealed class SimulatedShift
         var clock = new VirtualTimeProvider(TimeProvider.System.GetUtcNow());
         var start = clock.GetUtcNow();
         var rig = new SimulatedRig(fixture, _options.Seed, clock, ReferenceConversion.FromCelsius(sensor));
-        var factory = new SimulatedUnitFactory(_options.Seed, rig.Simulation, SimulatedUnitDesign.Ctp40A);
+        var design = SimulatedUnitDesign.ForProduct(_options.Sequence.Product)
+            ?? throw new InvalidOperationException(
+                $"The simulator builds {string.Join(", ", SimulatedUnitDesign.Demo.Select(d => d.Product))}, not '{_options.Sequence.Product}'.");
+        var factory = new SimulatedUnitFactory(_options.Seed, rig.Simulation, design);
         var slots = fixture.Slots.Select(s => s.Slot).Order().Take(_options.Slots).ToList();
         var runs = new List<RunRecord>();
         await using var store = SqliteResultStore.Open(_options.ResultsDirectory);
@@ -52,7 +56,8 @@ public sealed class SimulatedShift
             sink,
             new AutoConfirmOperator(),
             observer: null,
-            _loggers.CreateLogger<BatchCoordinator>());
+            _loggers.CreateLogger<BatchCoordinator>(),
+            partFitting: new SimulatedPartFitting(rig));
 
         var remaining = _options.Units;
         try

@@ -101,7 +101,14 @@ public sealed partial class StationService : BackgroundService
         var sensor = ReferenceConversion.SensorOf(fixture);
         var clock = new ScaledTimeProvider(_options.SimulatorSpeed);
         var rig = new SimulatedRig(fixture, _options.SimulatorSeed, clock, ReferenceConversion.FromCelsius(sensor));
-        var factory = new SimulatedUnitFactory(_options.SimulatorSeed, rig.Simulation, SimulatedUnitDesign.Ctp40A);
+        var design = SimulatedUnitDesign.ForProduct(sequence.Product);
+        if (design is null)
+        {
+            _error.WriteLine($"linetest: sequence '{sequence.Id}' tests '{sequence.Product}', but the simulator builds only {string.Join(", ", SimulatedUnitDesign.Demo.Select(d => d.Product))}.");
+            return ExitCodes.BadInput;
+        }
+
+        var factory = new SimulatedUnitFactory(_options.SimulatorSeed, rig.Simulation, design);
         var resultsDir = ContentRoot.Resolve(_root, _options.Results);
         await using var store = SqliteResultStore.Open(resultsDir);
         var reader = SqliteResultReader.InDirectory(resultsDir);
@@ -115,7 +122,7 @@ public sealed partial class StationService : BackgroundService
         var plain = interactive ? null : _output;
         var sink = new StoreSink(store, run => plain?.WriteLine(DemoCommand.UnitLine(run)));
         var coordinator = new BatchCoordinator(rig.Instruments, fixture, ReferenceConversion.ToCelsius(sensor), clock, sink,
-            new ScreenOperator(model, WaitForConfirmAsync, plain), model, _loggers.CreateLogger<BatchCoordinator>());
+            new ScreenOperator(model, WaitForConfirmAsync, plain), model, _loggers.CreateLogger<BatchCoordinator>(), partFitting: new SimulatedPartFitting(rig));
 
         WriteSafetyNote(interactive);
         using var screenStop = new CancellationTokenSource();

@@ -96,10 +96,106 @@ public sealed class SequenceLoaderTests
         ["DAC min not below max"] = new("\"min\": 0, \"max\": 4095, \"nominal\": 2048, \"step\": 0.0005", "\"min\": 4095, \"max\": 4095, \"nominal\": 4095, \"step\": 0.0005", "\"OFFSET\"",
             "$.trim.dac.offset.min", "min (4095) must be below max (4095)"),
         ["DAC target slope zero"] = new("\"slopeVoltsPerC\": 0.01", "\"slopeVoltsPerC\": 0", "slopeVoltsPerC", "$.trim.dac.target.slopeVoltsPerC", "the target slope must be a non-zero number"),
-        ["unknown trim method"] = new("\"method\": \"dac\"", "\"method\": \"dacs\"", "\"method\"", "$.trim.method", "unknown trim method 'dacs' (known: dac)"),
+        ["unknown trim method"] = new("\"method\": \"dac\"", "\"method\": \"dacs\"", "\"method\"", "$.trim.method", "unknown trim method 'dacs' (known: dac, resistor, firmware)"),
     };
 
     public static TheoryData<string> BadSequenceNames => new(BadSequences.Keys);
+
+    /// <summary>Bad edits of the shipped resistor and firmware sequences (file, edit, where and why).</summary>
+    private static readonly Dictionary<string, (string File, BadSequence Bad)> BadVariantSequences = new(StringComparer.Ordinal)
+    {
+        ["resistor series unknown"] = ("ctp40r-resistor.json", new("\"series\": \"E96\"", "\"series\": \"E97\"", "\"series\"", "$.trim.resistor.series",
+            "'E97' is not one of E12, E24, E48, E96")),
+        ["resistor gain range reversed"] = ("ctp40r-resistor.json", new("\"minOhms\": 2000, \"maxOhms\": 100000", "\"minOhms\": 2000, \"maxOhms\": 1000",
+            "\"R7\"", "$.trim.resistor.gain.maxOhms", "must be at least minOhms")),
+        ["resistor tolerance negative"] = ("ctp40r-resistor.json", new("\"tolerancePercent\": 0.1", "\"tolerancePercent\": -1", "tolerancePercent",
+            "$.trim.resistor.tolerancePercent", "must be at least 0 and below 100")),
+        ["resistor object misspelt"] = ("ctp40r-resistor.json", new("\"resistor\": {", "\"resistors\": {", "\"resistors\"", "$.trim.resistors",
+            "unknown property 'resistors'")),
+        ["resistor object with a dac method"] = ("ctp40r-resistor.json", new("\"method\": \"resistor\"", "\"method\": \"dac\"", "\"trim\": {", "$.trim",
+            "method 'dac' needs a 'dac' object", 2)),
+        ["firmware register too wide"] = ("ctp40d-firmware.json", new("\"register\": \"C1\", \"bits\": 32", "\"register\": \"C1\", \"bits\": 60", "\"C1\"",
+            "$.trim.firmware.coefficients[1].bits", "60 is outside 2…53")),
+        ["firmware order without its registers"] = ("ctp40d-firmware.json", new("\"order\": 1", "\"order\": 2", "\"coefficients\"", "$.trim.firmware.coefficients",
+            "order 2 needs 3 registers, got 2")),
+        ["firmware register without a format"] = ("ctp40d-firmware.json", new("\"bits\": 32, \"fractionalBits\": 16", "\"bits\": 32", "\"C0\"",
+            "$.trim.firmware.coefficients[0]", "give exactly one of fractionalBits and scale")),
+        ["firmware measure over the meter"] = ("ctp40d-firmware.json", new("\"name\": \"cal-high\", \"setpoint\": \"cal-high\", \"samples\": 10, \"output\": \"link\"",
+            "\"name\": \"cal-high\", \"setpoint\": \"cal-high\", \"samples\": 10, \"output\": \"meter\"", "\"name\": \"cal-high\", \"setpoint\"", "$.steps[5].output",
+            "a firmware trim is computed from the unit's raw counts", 2)),
+        ["unknown output word"] = ("ctp40d-firmware.json", new("\"verify\", \"samples\": 10, \"output\": \"link\"", "\"verify\", \"samples\": 10, \"output\": \"usb\"",
+            "\"usb\"", "$.steps[8].output", "unknown output 'usb' (known: meter, link)")),
+        ["link soak without raw sensitivity"] = ("ctp40d-firmware.json", new(",\n    \"outputCountsPerC\": 1670", string.Empty, "\"soak\": {", "$.soak",
+            "give soak.outputCountsPerC")),
+    };
+
+    public static TheoryData<string> BadVariantSequenceNames => new(BadVariantSequences.Keys);
+
+    public static TheoryData<string> ShippedSequenceFiles => new("ctp40a-dac.json", "ctp40r-resistor.json", "ctp40d-firmware.json");
+
+    private static string ShippedSequence(string file) => Path.Combine(AppContext.BaseDirectory, "Shipped", "sequences", file);
+
+    [Theory]
+    [MemberData(nameof(ShippedSequenceFiles))]
+    public void LoadFile_EveryShippedSequenceAgainstShippedFixture_LoadsWithoutProblems(string file)
+    {
+        var fixture = FixtureLoader.LoadFile(TestFiles.ShippedFixturePath);
+        Assert.True(fixture.IsSuccess, string.Join(Environment.NewLine, fixture.Problems));
+
+        var result = SequenceLoader.LoadFile(ShippedSequence(file), fixture.Value);
+
+        Assert.Empty(result.Problems);
+        Assert.Equal(Path.GetFileNameWithoutExtension(file), result.Value!.Id);
+        Assert.All(result.Value.Setpoints, s => Assert.InRange(s.Celsius, fixture.Value.Source.SafeMinC, fixture.Value.Source.SafeMaxC));
+    }
+
+    [Fact]
+    public void LoadFile_ShippedResistorSequence_ReadsTheResistorSpec()
+    {
+        var result = SequenceLoader.LoadFile(ShippedSequence("ctp40r-resistor.json"));
+
+        Assert.True(result.IsSuccess, string.Join(Environment.NewLine, result.Problems));
+        var trim = result.Value.Trim!;
+        Assert.Equal("resistor", trim.Method);
+        Assert.Null(trim.Dac);
+        Assert.Equal(("E96", true, 0.1), (trim.Resistor!.Series, trim.Resistor.AllowPairs, trim.Resistor.TolerancePercent));
+        Assert.Equal(("R7", 10000.0), (trim.Resistor.Gain.Position, trim.Resistor.Gain.FittedOhms!.Value));
+        Assert.Equal(("R8", 2.5, 71500.0), (trim.Resistor.Offset.Position, trim.Resistor.Offset.ReferenceVolts, trim.Resistor.Offset.FittedOhms!.Value));
+        Assert.Same(trim.Resistor.Target, trim.AnalogTarget);
+        Assert.Equal("meter", result.Value.Steps.OfType<MeasureStep>().First().Output);
+    }
+
+    [Fact]
+    public void LoadFile_ShippedFirmwareSequence_ReadsRegistersAndLinkOutputs()
+    {
+        var result = SequenceLoader.LoadFile(ShippedSequence("ctp40d-firmware.json"));
+
+        Assert.True(result.IsSuccess, string.Join(Environment.NewLine, result.Problems));
+        var firmware = result.Value.Trim!.Firmware!;
+        Assert.Equal(1, firmware.Order);
+        Assert.Equal(["C0", "C1"], firmware.Coefficients.Select(c => c.Register));
+        Assert.Equal(Math.ScaleB(1.0, -40), firmware.Coefficients[1].Lsb);
+        Assert.Null(result.Value.Trim.AnalogTarget);
+        Assert.Equal(("link", 1670.0), (result.Value.Soak.Output, result.Value.Soak.OutputCountsPerC!.Value));
+        Assert.All(result.Value.Steps.OfType<MeasureStep>(), m => Assert.Equal(("link", "count"), (m.Output, m.OutputLimits!.Unit)));
+        Assert.Equal("link", result.Value.Steps.OfType<VerifyStep>().Single().Output);
+    }
+
+    [Theory]
+    [MemberData(nameof(BadVariantSequenceNames))]
+    public void Load_BadResistorOrFirmwareFile_ReportsLinePathAndReason(string name)
+    {
+        var (file, bad) = BadVariantSequences[name];
+        var text = TestFiles.Edit(System.IO.File.ReadAllText(ShippedSequence(file)), bad.Find, bad.Replace);
+
+        var result = SequenceLoader.Load(File, TestFiles.Utf8(text), Fixture);
+
+        Assert.False(result.IsSuccess);
+        var problem = Assert.Single(result.Problems, p => p.JsonPath == bad.Path);
+        Assert.Equal(TestFiles.LineOf(text, bad.LineMarker), problem.Line);
+        Assert.Contains(bad.Reason, problem.Reason, StringComparison.Ordinal);
+        Assert.Equal(bad.ProblemCount, result.Problems.Count);
+    }
 
     private static FixtureDefinition Fixture
     {

@@ -49,6 +49,6 @@ internal static class SimulatedFixtures
     public static SimulatedRig Rig(int seed = 7, SimulationDefinition? simulation = null, VirtualTimeProvider? clock = null)
         => new(FourWellBlock(simulation), seed, clock ?? Clock(), CelsiusReadout);
 
-    public static SimulatedUnitFactory Factory(int seed = 11, SimulationDefinition? simulation = null)
-        => new(seed, simulation ?? Simulation(), SimulatedUnitDesign.Ctp40A);
+    public static SimulatedUnitFactory Factory(int seed = 11, SimulationDefinition? simulation = null, SimulatedUnitDesign? design = null)
+        => new(seed, simulation ?? Simulation(), design ?? SimulatedUnitDesign.Ctp40A);
 }

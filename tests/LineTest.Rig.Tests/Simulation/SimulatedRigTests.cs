@@ -293,4 +293,41 @@ public sealed class SimulatedRigTests
 
         return readings;
     }
+
+    [Fact]
+    public void FitParts_ResistorUnit_EachPartWithinToleranceAndCombinedAsConnected()
+    {
+        var rig = SimulatedFixtures.Rig();
+        var design = SimulatedUnitDesign.Ctp40R;
+        var unit = SimulatedFixtures.Factory(design: design).NextUnit(UnitDefect.None);
+        rig.Load(3, unit);
+        var series = LineTest.Core.Trims.ESeries.TryParse("E96", out var e96) ? e96 : throw new InvalidOperationException("E96");
+        var single = new LineTest.Core.Trims.ResistorChoice
+        {
+            Position = "R7", IdealOhms = 9_530, Connection = LineTest.Core.Trims.ResistorConnection.Single, Parts = [9_530], Series = series,
+        };
+        var pair = new LineTest.Core.Trims.ResistorChoice
+        {
+            Position = "R8", IdealOhms = 71_400, Connection = LineTest.Core.Trims.ResistorConnection.Series, Parts = [68_100, 3_320], Series = series,
+        };
+
+        var fitted = rig.FitParts(3, [single, pair]);
+
+        var tolerance = design.TrimPartTolerancePercent / 100;
+        Assert.InRange(fitted["R7"], 9_530 * (1 - tolerance), 9_530 * (1 + tolerance));
+        Assert.InRange(fitted["R8"], 71_420 * (1 - tolerance), 71_420 * (1 + tolerance));
+        Assert.NotEqual(9_530, fitted["R7"]);
+        Assert.Equal(fitted["R7"], unit.FittedOhms["R7"]);
+        Assert.Equal(fitted["R8"], unit.FittedOhms["R8"]);
+    }
+
+    [Fact]
+    public void FitParts_EmptySlotOrUnitWithoutPositions_Throws()
+    {
+        var rig = SimulatedFixtures.Rig();
+        rig.Load(1, SimulatedFixtures.Factory().NextUnit(UnitDefect.None));
+
+        Assert.Throws<InvalidOperationException>(() => rig.FitParts(2, []));
+        Assert.Throws<InvalidOperationException>(() => rig.FitParts(1, []));
+    }
 }

@@ -7,10 +7,10 @@ public sealed class SimulatedUnitLinkTests
 {
     private static readonly CancellationToken None = CancellationToken.None;
 
-    private static (SimulatedRig Rig, SimulatedUnit Unit, IUnitLink Link) RigWith(UnitDefect defect, int slot = 2)
+    private static (SimulatedRig Rig, SimulatedUnit Unit, IUnitLink Link) RigWith(UnitDefect defect, int slot = 2, SimulatedUnitDesign? design = null)
     {
         var rig = SimulatedFixtures.Rig();
-        var unit = SimulatedFixtures.Factory().NextUnit(defect);
+        var unit = SimulatedFixtures.Factory(design: design).NextUnit(defect);
         rig.Load(slot, unit);
         return (rig, unit, rig.Instruments.UnitLinks[slot]);
     }
@@ -128,5 +128,59 @@ public sealed class SimulatedUnitLinkTests
         var celsius = await link.ReadTemperatureAsync(None);
 
         Assert.Equal(unit.Design.Target.IndicatedC(unit.TrueOutputVolts(unit.SensorC)), celsius, 0.03);
+    }
+
+    [Fact]
+    public async Task ReadRawAndTemperature_DigitalUnit_CountsAndFirmwareTemperature()
+    {
+        var (_, unit, link) = RigWith(UnitDefect.None, design: SimulatedUnitDesign.Ctp40D);
+
+        var raw = await link.ReadRawAsync(None);
+        var celsius = await link.ReadTemperatureAsync(None);
+
+        // The unit sits at room temperature; ADC noise is 2 counts (1σ), the factory line is right within a few °C.
+        Assert.InRange(raw, unit.TrueRawCounts(unit.SensorC) - 12, unit.TrueRawCounts(unit.SensorC) + 12);
+        Assert.InRange(celsius, unit.SensorC - 5, unit.SensorC + 5);
+    }
+
+    [Fact]
+    public async Task WriteStoreReadBack_DigitalUnit_ReturnsStoredCoefficients()
+    {
+        var (_, unit, link) = RigWith(UnitDefect.None, design: SimulatedUnitDesign.Ctp40D);
+        var values = new Dictionary<string, long> { ["C0"] = 21_000_000, ["C1"] = -650_000_000 };
+
+        await link.WriteTrimAsync(values, None);
+        await link.StoreAsync(None);
+        var readBack = await link.ReadBackAsync(None);
+
+        Assert.Equal(21_000_000, readBack["C0"]);
+        Assert.Equal(-650_000_000, readBack["C1"]);
+        Assert.Equal(unit.StoredRegisters, readBack);
+    }
+
+    [Theory]
+    [InlineData("C3", 1L)]
+    [InlineData("C0", 2_147_483_648L)]
+    [InlineData("GAIN", 2048L)]
+    public async Task WriteTrimAsync_DigitalUnitBadRegisterOrWidth_InstrumentErrorAndNothingWritten(string register, long value)
+    {
+        var (_, unit, link) = RigWith(UnitDefect.None, design: SimulatedUnitDesign.Ctp40D);
+        var before = unit.WorkingRegisters;
+
+        var fault = await Assert.ThrowsAsync<InstrumentFaultException>(() => link.WriteTrimAsync(new Dictionary<string, long> { [register] = value }, None));
+
+        Assert.Equal(InstrumentFaultKind.InstrumentError, fault.Kind);
+        Assert.Equal(before, unit.WorkingRegisters);
+    }
+
+    [Fact]
+    public async Task WriteTrimAsync_ResistorUnit_RejectedNamingItsPositions()
+    {
+        var (_, _, link) = RigWith(UnitDefect.None, design: SimulatedUnitDesign.Ctp40R);
+
+        var fault = await Assert.ThrowsAsync<InstrumentFaultException>(() => link.WriteTrimAsync(new Dictionary<string, long> { ["R7"] = 10_000_000 }, None));
+
+        Assert.Equal(InstrumentFaultKind.InstrumentError, fault.Kind);
+        Assert.Contains("R7 and R8", fault.Message, StringComparison.Ordinal);
     }
 }

@@ -126,4 +126,111 @@ public sealed class SimulatedUnitTests
         var offsetCode = (long)Math.Round(spec.Offset.Nominal + (offsetVolts / spec.Offset.Step));
         return new Dictionary<string, long> { [spec.Gain.Register] = gainCode, [spec.Offset.Register] = offsetCode };
     }
+
+    [Fact]
+    public void ResistorOutput_TrimmedWithExactPartsFromResistorTrim_HasThePredictedErrorAtItsCalibrationPoints()
+    {
+        // The simulator's network and ResistorTrimSpec's model must agree: with noise-free calibration outputs and
+        // parts of exactly the chosen nominal values, the unit's error at each calibration point is the one predicted.
+        var design = SimulatedUnitDesign.Ctp40R;
+        var spec = design.ToResistorTrimSpec();
+        var factory = SimulatedFixtures.Factory(seed: 41, design: design);
+        for (var i = 0; i < 100; i++)
+        {
+            var unit = factory.NextUnit(UnitDefect.None);
+            var points = new[] { -20.0, 40.0 }.Select(t => new LineTest.Core.Calibration.CalibrationPoint($"p{t}", t, unit.TrueOutputVolts(t))).ToList();
+            var trim = ResistorTrim.Compute(spec, points).Value;
+            Assert.True(trim.InRange, string.Join("; ", trim.Problems));
+
+            unit.Fit(trim.Gain.Position, trim.Gain.EffectiveOhms);
+            unit.Fit(trim.Offset.Position, trim.Offset.EffectiveOhms);
+
+            foreach (var predicted in trim.PredictedErrors)
+            {
+                Assert.Equal(predicted.ErrorC, unit.TrueErrorC(design.Target, predicted.TemperatureC), 1e-9);
+            }
+        }
+    }
+
+    [Fact]
+    public void ResistorOutput_GoodParts_NeedValuesInsideTheDesignRanges()
+    {
+        var design = SimulatedUnitDesign.Ctp40R;
+        var spec = design.ToResistorTrimSpec();
+        var factory = SimulatedFixtures.Factory(seed: 42, design: design);
+
+        var trims = Enumerable.Range(0, 400).Select(_ => factory.NextUnit(UnitDefect.None))
+            .Select(u => ResistorTrim.Compute(spec, [new("low", -20, u.TrueOutputVolts(-20)), new("high", 40, u.TrueOutputVolts(40))]).Value)
+            .ToList();
+
+        Assert.All(trims, t => Assert.True(t.InRange, string.Join("; ", t.Problems)));
+
+        // Untrimmed, the parts are far from the target: a real trim is needed.
+        Assert.Contains(trims, t => Math.Abs(t.Gain.IdealOhms / design.GainFittedOhms - 1) > 0.05);
+    }
+
+    [Fact]
+    public void Fit_BadJointDefect_LeavesTheGainPositionOpen()
+    {
+        var unit = SimulatedFixtures.Factory(seed: 43, design: SimulatedUnitDesign.Ctp40R).NextUnit(UnitDefect.StuckDac);
+
+        unit.Fit("R7", 9_530);
+        unit.Fit("R8", 68_100);
+
+        Assert.Null(unit.FittedOhms["R7"]);
+        Assert.Equal(68_100, unit.FittedOhms["R8"]);
+        Assert.Throws<InvalidOperationException>(() => unit.Fit("R9", 1_000));
+    }
+
+    [Fact]
+    public void ReportedC_TrimmedWithFirmwareTrimCoefficients_HasThePredictedErrorAtItsCalibrationPoints()
+    {
+        var design = SimulatedUnitDesign.Ctp40D;
+        var spec = design.ToFirmwareTrimSpec(2);
+        var factory = SimulatedFixtures.Factory(seed: 44, design: design);
+        for (var i = 0; i < 100; i++)
+        {
+            var unit = factory.NextUnit(UnitDefect.None);
+            var points = new[] { -20.0, 5.0, 40.0 }.Select(t => new LineTest.Core.Calibration.CalibrationPoint($"p{t}", t, unit.TrueRawCounts(t))).ToList();
+            var trim = FirmwareTrim.Compute(spec, points).Value;
+            Assert.True(trim.InRange, string.Join("; ", trim.Problems));
+
+            unit.WriteWorking(trim.Registers.ToDictionary(r => r.Register, r => r.Value));
+            unit.Store();
+
+            foreach (var predicted in trim.PredictedErrors)
+            {
+                Assert.Equal(predicted.ErrorC, unit.TrueReportedErrorC(predicted.TemperatureC), 1e-6);
+            }
+
+            // A quadratic through three points of the diode leaves only millidegrees between them.
+            Assert.InRange(unit.TrueReportedErrorC(20), -0.01, 0.01);
+        }
+    }
+
+    [Fact]
+    public void Store_DigitalUnitWithFailingMemory_KeepsTheFactoryCoefficients()
+    {
+        var design = SimulatedUnitDesign.Ctp40D;
+        var unit = SimulatedFixtures.Factory(seed: 45, design: design).NextUnit(UnitDefect.StuckDac);
+
+        unit.WriteWorking(new Dictionary<string, long> { ["C0"] = 1 });
+        unit.Store();
+
+        Assert.Equal(design.FactoryCoefficientRegisters()["C0"], unit.StoredRegisters["C0"]);
+        Assert.Equal(1, unit.WorkingRegisters["C0"]);
+    }
+
+    [Fact]
+    public void TrueRawCounts_OpenSensor_ReadsFullScale()
+    {
+        var design = SimulatedUnitDesign.Ctp40D;
+        var open = SimulatedFixtures.Factory(seed: 46, design: design).NextUnit(UnitDefect.OpenSensor);
+        var good = SimulatedFixtures.Factory(seed: 46, design: design).NextUnit(UnitDefect.None);
+
+        Assert.Equal(design.AdcFullScaleCounts, open.TrueRawCounts(5));
+
+        // About −1670 counts/°C: 2 mV/°C of the diode on a 1.25 V, 20-bit converter.
+        Assert.InRange((good.TrueRawCounts(40) - good.TrueRawCounts(-20)) / 60, -1800, -1550);
+    }
 }

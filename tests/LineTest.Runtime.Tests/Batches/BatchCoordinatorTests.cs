@@ -187,6 +187,79 @@ public sealed class BatchCoordinatorTests
         Assert.Equal(await Once(), await Once());
     }
 
+    public static TheoryData<string> TrimSequences => new(CoordinatorHarness.DacSequence, CoordinatorHarness.ResistorSequence, CoordinatorHarness.FirmwareSequence);
+
+    /// <summary>
+    /// Property: for many good simulated units, the error each trim predicts is the error the trimmed unit really has
+    /// (simulator ground truth, noise-free, sensor settled), at each calibration setpoint and at the verify setpoint.
+    /// </summary>
+    /// <remarks>
+    /// A straight-line calibration cannot know the diode's own curvature between its calibration setpoints, so at the
+    /// verify setpoint the unit's true deviation from the chord through its true errors at the calibration setpoints
+    /// (about −0.2 °C at +5 °C for this diode) is taken out, and bounded on its own. Allowance 0.06 °C: after the soak a
+    /// unit may still lag its well by drift × time constant ≈ 0.05 °C/min × 40 s ≈ 0.03 °C, a well sits up to 0.02 °C
+    /// from the reference well, and 10 averaged samples leave about 0.005 °C of noise. For resistors the predicted worst
+    /// case over part tolerance (minus the nominal error) is added, as fitted parts are drawn within that tolerance.
+    /// </remarks>
+    [Theory]
+    [MemberData(nameof(TrimSequences))]
+    public async Task RunAsync_ManyRandomGoodUnits_TrueErrorWithinPredictedResidual(string sequenceFile)
+    {
+        const double AllowanceC = 0.06;
+        const double MaxCurvatureC = 0.35;
+        var h = new CoordinatorHarness(seed: 4242, sequenceFile: sequenceFile);
+        var setpoints = h.Sequence.Setpoints.ToDictionary(s => s.Name, s => s.Celsius);
+        var target = h.Sequence.Trim!.AnalogTarget;
+        var checkedUnits = 0;
+        for (var batch = 0; batch < 10; batch++)
+        {
+            var units = h.Load(UnitDefect.None, UnitDefect.None, UnitDefect.None, UnitDefect.None);
+            var outcome = await h.RunAsync(units);
+            foreach (var unit in units)
+            {
+                h.Rig.Unload(units.IndexOf(unit) + 1);
+                var run = outcome.Runs.Single(r => r.Serial == unit.Serial);
+                Assert.True(run.Trim is { InRange: true }, $"{unit.Serial}: {run.Reason}");
+                double TrueErrorC(double celsius) => target is null ? unit.TrueReportedErrorC(celsius) : unit.TrueErrorC(target, celsius);
+                double Extra(string name) => run.Trim.PredictedErrorC.TryGetValue($"{name}.worstCase", out var worst)
+                    ? worst - Math.Abs(run.Trim.PredictedErrorC[name])
+                    : run.Trim.Method == "dac" ? DacStepExtraC(h, run, setpoints[name]) : 0;
+
+                var low = setpoints["cal-low"];
+                var high = setpoints["cal-high"];
+                var check = setpoints["verify"];
+                foreach (var name in new[] { "cal-low", "cal-high" })
+                {
+                    var miss = TrueErrorC(setpoints[name]) - run.Trim.PredictedErrorC[name];
+                    Assert.True(Math.Abs(miss) <= AllowanceC + Extra(name), $"{unit.Serial} at {name}: true − predicted = {miss} °C");
+                }
+
+                var chord = TrueErrorC(low) + ((TrueErrorC(high) - TrueErrorC(low)) * (check - low) / (high - low));
+                var curvature = TrueErrorC(check) - chord;
+                Assert.InRange(curvature, -MaxCurvatureC, MaxCurvatureC);
+                var verifyMiss = chord - run.Trim.PredictedErrorC["verify"];
+                Assert.True(Math.Abs(verifyMiss) <= AllowanceC + Extra("verify"), $"{unit.Serial} at verify: true (less curvature) − predicted = {verifyMiss} °C");
+                checkedUnits++;
+            }
+        }
+
+        Assert.Equal(40, checkedUnits);
+    }
+
+    /// <summary>
+    /// The DAC trim computes codes with the declared steps, while each part's DACs are drawn within ±2σ of them
+    /// (<see cref="SimulatedUnitDesign.DacStepSpread"/>): the error that can leave at temperature <paramref name="celsius"/>, °C.
+    /// </summary>
+    private static double DacStepExtraC(CoordinatorHarness h, RunRecord run, double celsius)
+    {
+        var d = h.Design;
+        var spread = 2 * d.DacStepSpread;
+        var gainCodes = Math.Abs(run.Trim!.Values["gainCode"] - d.CodeNominal);
+        var offsetCodes = Math.Abs(run.Trim.Values["offsetCode"] - d.CodeNominal);
+        var volts = Math.Abs(d.Target.VoltsAt(celsius));
+        return spread * ((offsetCodes * d.OffsetStepVolts) + (gainCodes * d.GainStepPerCode * volts)) / d.TargetSlopeVoltsPerC;
+    }
+
     private sealed class FailingSink : IRunSink
     {
         public Task RunEndedAsync(RunRecord run, CancellationToken cancellationToken) =>

@@ -9,25 +9,34 @@ using Microsoft.Extensions.Logging.Abstractions;
 
 namespace LineTest.Runtime.Tests.Batches;
 
-/// <summary>The real coordinator over the simulated rig of the committed demo fixture and sequence, in virtual time.</summary>
+/// <summary>
+/// The real coordinator over the simulated rig of the committed demo fixture and one of the committed sequences (the
+/// CTP-40A DAC sequence unless told), with units of the sequence's product, in virtual time.
+/// </summary>
 internal sealed class CoordinatorHarness
 {
-    public CoordinatorHarness(int seed = 11, Func<SequenceDefinition, SequenceDefinition>? editSequence = null, IRunSink? sink = null)
+    public const string DacSequence = "sequences/ctp40a-dac.json";
+    public const string ResistorSequence = "sequences/ctp40r-resistor.json";
+    public const string FirmwareSequence = "sequences/ctp40d-firmware.json";
+
+    public CoordinatorHarness(
+        int seed = 11, Func<SequenceDefinition, SequenceDefinition>? editSequence = null, IRunSink? sink = null, string sequenceFile = DacSequence)
     {
         var fixture = FixtureLoader.LoadFile(RepoFiles.Path("fixtures/sim-dryblock-4.json"));
         Assert.True(fixture.IsSuccess, string.Join("\n", fixture.Problems));
         Fixture = fixture.Value!;
-        var sequence = SequenceLoader.LoadFile(RepoFiles.Path("sequences/ctp40a-dac.json"), Fixture);
+        var sequence = SequenceLoader.LoadFile(RepoFiles.Path(sequenceFile), Fixture);
         Assert.True(sequence.IsSuccess, string.Join("\n", sequence.Problems));
         Sequence = editSequence is null ? sequence.Value! : editSequence(sequence.Value!);
         Sha256 = sequence.Sha256!;
         var sensor = ReferenceSensorFactory.Create(Fixture.Reference.Sensor).Sensor!;
         Clock = new VirtualTimeProvider(new DateTimeOffset(2026, 12, 2, 6, 0, 0, TimeSpan.Zero));
         Rig = new SimulatedRig(Fixture, seed, Clock, c => sensor.FromCelsius(c).Value);
-        Factory = new SimulatedUnitFactory(seed, Rig.Simulation, SimulatedUnitDesign.Ctp40A);
+        Design = SimulatedUnitDesign.ForProduct(Sequence.Product)!;
+        Factory = new SimulatedUnitFactory(seed, Rig.Simulation, Design);
         Sink = sink ?? new ListSink();
         Coordinator = new BatchCoordinator(Rig.Instruments, Fixture, raw => sensor.ToCelsius(raw) is { IsSuccess: true } r ? r.Value : double.NaN,
-            Clock, Sink, Operator, null, NullLogger.Instance);
+            Clock, Sink, Operator, null, NullLogger.Instance, partFitting: new SimulatedPartFitting(Rig));
     }
 
     public FixtureDefinition Fixture { get; }
@@ -39,6 +48,8 @@ internal sealed class CoordinatorHarness
     public VirtualTimeProvider Clock { get; }
 
     public SimulatedRig Rig { get; }
+
+    public SimulatedUnitDesign Design { get; }
 
     public SimulatedUnitFactory Factory { get; }
 
