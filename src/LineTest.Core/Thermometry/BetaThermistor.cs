@@ -82,29 +82,14 @@ public sealed class BetaThermistor : IReferenceSensor
         R25Ohms * Math.Exp(BetaK * ((1.0 / (celsius + ThermistorRange.ZeroCelsiusK)) - (1.0 / ReferenceK)));
 
     /// <inheritdoc />
-    public ConversionResult FromCelsius(double celsius)
-    {
-        if (!double.IsFinite(celsius))
-        {
-            return ConversionResult.Failure($"temperature is not a finite number; {Name} needs °C");
-        }
-
-        return celsius < MinC || celsius > MaxC
-            ? RangeText.TemperatureOutOfRange(this, celsius)
-            : ConversionResult.Success(ResistanceOhms(celsius));
-    }
+    public ConversionResult FromCelsius(double celsius) => RangeText.Forward(this, celsius, ResistanceOhms);
 
     /// <inheritdoc />
     public ConversionResult ToCelsius(double raw)
     {
-        if (!double.IsFinite(raw))
+        if (RangeText.CheckResistance(this, raw, _lowOhms, _highOhms) is { } unusable)
         {
-            return RangeText.NotANumber(this, "resistance");
-        }
-
-        if (raw < _lowOhms || raw > _highOhms)
-        {
-            return RangeText.RawOutOfRange(this, "resistance", raw, _lowOhms, _highOhms);
+            return unusable;
         }
 
         // 1/T = 1/T0 + ln(R/R25)/β.

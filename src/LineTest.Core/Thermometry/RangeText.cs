@@ -32,4 +32,28 @@ internal static class RangeText
 
     public static ConversionResult NotANumber(IReferenceSensor sensor, string quantity) =>
         ConversionResult.Failure($"{quantity} is not a finite number; {sensor.Name} needs a value in {Unit(sensor.RawUnit)}");
+
+    /// <summary>°C to the raw quantity with the checks every resistive sensor shares: finite, inside the sensor's range.</summary>
+    public static ConversionResult Forward(IReferenceSensor sensor, double celsius, Func<double, double> rawAt)
+    {
+        if (!double.IsFinite(celsius))
+        {
+            return ConversionResult.Failure($"temperature is not a finite number; {sensor.Name} needs °C");
+        }
+
+        return celsius < sensor.MinC || celsius > sensor.MaxC
+            ? TemperatureOutOfRange(sensor, celsius)
+            : ConversionResult.Success(rawAt(celsius));
+    }
+
+    /// <summary>The failure for a raw resistance that is not a number or outside the sensor's range, or null when usable.</summary>
+    public static ConversionResult? CheckResistance(IReferenceSensor sensor, double ohms, double lowOhms, double highOhms)
+    {
+        if (!double.IsFinite(ohms))
+        {
+            return NotANumber(sensor, "resistance");
+        }
+
+        return ohms < lowOhms || ohms > highOhms ? RawOutOfRange(sensor, "resistance", ohms, lowOhms, highOhms) : null;
+    }
 }

@@ -95,29 +95,14 @@ public sealed class SteinhartHartThermistor : IReferenceSensor
     public double ResistanceOhms(double celsius) => Math.Exp(LogResistance(celsius));
 
     /// <inheritdoc />
-    public ConversionResult FromCelsius(double celsius)
-    {
-        if (!double.IsFinite(celsius))
-        {
-            return ConversionResult.Failure($"temperature is not a finite number; {Name} needs °C");
-        }
-
-        return celsius < MinC || celsius > MaxC
-            ? RangeText.TemperatureOutOfRange(this, celsius)
-            : ConversionResult.Success(ResistanceOhms(celsius));
-    }
+    public ConversionResult FromCelsius(double celsius) => RangeText.Forward(this, celsius, ResistanceOhms);
 
     /// <inheritdoc />
     public ConversionResult ToCelsius(double raw)
     {
-        if (!double.IsFinite(raw))
+        if (RangeText.CheckResistance(this, raw, _lowOhms, _highOhms) is { } unusable)
         {
-            return RangeText.NotANumber(this, "resistance");
-        }
-
-        if (raw < _lowOhms || raw > _highOhms)
-        {
-            return RangeText.RawOutOfRange(this, "resistance", raw, _lowOhms, _highOhms);
+            return unusable;
         }
 
         var logR = Math.Log(raw);
