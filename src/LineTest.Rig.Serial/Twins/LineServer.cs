@@ -29,6 +29,7 @@ public sealed class LineServer : IDisposable
     // Concurrency: _pty and _received are guarded by _gate; _stop is volatile.
     private readonly Lock _gate = new();
     private readonly List<string> _received = [];
+    private readonly List<string> _receivedLines = [];
     private PseudoTerminal? _pty;
     private volatile bool _stop;
 
@@ -78,6 +79,18 @@ public sealed class LineServer : IDisposable
             lock (_gate)
             {
                 return [.. _received];
+            }
+        }
+    }
+
+    /// <summary>Every line received so far exactly as it came (frame included, line end removed), in order.</summary>
+    public IReadOnlyList<string> ReceivedLines
+    {
+        get
+        {
+            lock (_gate)
+            {
+                return [.. _receivedLines];
             }
         }
     }
@@ -170,6 +183,11 @@ public sealed class LineServer : IDisposable
 
     private void Answer(PseudoTerminal pty, string line)
     {
+        lock (_gate)
+        {
+            _receivedLines.Add(line);
+        }
+
         var frame = _framing.Decode(line);
         if (!frame.IsOk)
         {
