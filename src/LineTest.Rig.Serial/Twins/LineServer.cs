@@ -18,7 +18,8 @@ namespace LineTest.Rig.Serial.Twins;
 /// </remarks>
 public sealed class LineServer : IDisposable
 {
-    private const int PollSliceMs = 20;
+    // poll() returns as soon as bytes arrive; the slice only bounds how long Dispose and Unplug wait.
+    private const int PollSliceMs = 200;
 
     private readonly string _name;
     private readonly ILineFraming _framing;

@@ -3,11 +3,11 @@ namespace LineTest.Rig.Serial.Twins;
 /// <summary>Port settings of a simulated serial rig. The twins answer at once, so short timeouts are safe.</summary>
 public sealed record SimulatedSerialRigOptions
 {
-    /// <summary>Reply timeout per command, ms. Default 250: long enough for a loaded 2-core machine, short enough that a silent unit costs under a second.</summary>
-    public int TimeoutMs { get; init; } = 250;
+    /// <summary>Reply timeout per command, ms. Default 500: the twins answer within milliseconds, but a busy machine can hold a thread back for a good part of a second.</summary>
+    public int TimeoutMs { get; init; } = 500;
 
-    /// <summary>Retries of idempotent queries. Default 1.</summary>
-    public int Retries { get; init; } = 1;
+    /// <summary>Retries of idempotent queries. Default 2, as in the committed real fixture.</summary>
+    public int Retries { get; init; } = 2;
 
     /// <summary>Baud rate written into the fixture (a pseudo-terminal ignores it). Default 115200.</summary>
     public int Baud { get; init; } = 115200;
