@@ -145,13 +145,13 @@ public sealed class SerialLine : IDisposable
                 {
                     return await Task.Run(() => ExchangeOnce(command, parse), cancellationToken).ConfigureAwait(false);
                 }
-                catch (InstrumentFaultException fault) when (attempt < attempts && fault.Kind != InstrumentFaultKind.InstrumentError)
+                catch (InstrumentFaultException fault) when (attempt < attempts && Retryable(fault))
                 {
                     SerialLog.Retrying(_logger, Name, _port.Name, attempt, attempts, command, fault.Message);
                 }
-                catch (InstrumentFaultException fault) when (attempts > 1 && fault.Kind != InstrumentFaultKind.InstrumentError)
+                catch (InstrumentFaultException fault) when (attempt > 1 && fault.Kind != InstrumentFaultKind.InstrumentError)
                 {
-                    throw new InstrumentFaultException(Instrument, fault.Kind, $"{Detail(fault)} ({attempts} attempts)", fault);
+                    throw new InstrumentFaultException(Instrument, fault.Kind, $"{Detail(fault)} ({attempt} attempts)", fault);
                 }
             }
         }
@@ -160,6 +160,11 @@ public sealed class SerialLine : IDisposable
             _exclusive.Release();
         }
     }
+
+    // An instrument error is the instrument's considered answer, and a port whose device node is gone will not be
+    // back within milliseconds: repeating either only delays the message.
+    private bool Retryable(InstrumentFaultException fault)
+        => fault.Kind != InstrumentFaultKind.InstrumentError && (fault.Kind != InstrumentFaultKind.PortLost || PortStillThere());
 
     private string Detail(InstrumentFaultException fault)
         => fault.Message.StartsWith(Instrument + ": ", StringComparison.Ordinal) ? fault.Message[(Instrument.Length + 2)..] : fault.Message;

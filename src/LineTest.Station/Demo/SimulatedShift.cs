@@ -1,4 +1,5 @@
 using LineTest.Core.Results;
+using LineTest.Rig.Serial.Twins;
 using LineTest.Rig.Simulation;
 using LineTest.Runtime.Batches;
 using LineTest.Station.Composition;
@@ -35,6 +36,7 @@ public sealed class SimulatedShift
         var clock = new VirtualTimeProvider(TimeProvider.System.GetUtcNow());
         var start = clock.GetUtcNow();
         var rig = new SimulatedRig(fixture, _options.Seed, clock, ReferenceConversion.FromCelsius(sensor));
+        using var serialRig = _options.Serial ? new SimulatedSerialRig(rig, _loggers) : null;
         var factory = new SimulatedUnitFactory(_options.Seed, rig.Simulation, SimulatedUnitDesign.Ctp40A);
         var slots = fixture.Slots.Select(s => s.Slot).Order().Take(_options.Slots).ToList();
         var runs = new List<RunRecord>();
@@ -45,7 +47,7 @@ public sealed class SimulatedShift
             runEnded(run);
         });
         var coordinator = new BatchCoordinator(
-            rig.Instruments,
+            serialRig?.Instruments ?? rig.Instruments,
             fixture,
             ReferenceConversion.ToCelsius(sensor),
             clock,
