@@ -123,9 +123,22 @@ public sealed class PseudoTerminal : IDisposable
 
         _disposed = true;
         Master.Dispose();
-        if (LinkPath is not null && File.ResolveLinkTarget(LinkPath, returnFinalTarget: false)?.FullName == SlavePath)
+        if (LinkPath is null)
         {
-            File.Delete(LinkPath);
+            return;
+        }
+
+        try
+        {
+            // Only our own link: after a replug the same name may already point at a newer terminal.
+            if (File.ResolveLinkTarget(LinkPath, returnFinalTarget: false)?.FullName == SlavePath)
+            {
+                File.Delete(LinkPath);
+            }
+        }
+        catch (IOException)
+        {
+            // The link is already gone.
         }
     }
 }
