@@ -16,7 +16,7 @@ namespace LineTest.Rig.Serial.Tests;
 /// </summary>
 internal sealed class SerialHarness : IDisposable
 {
-    public SerialHarness(int seed = 11, int timeoutMs = 400, int retries = 1)
+    public SerialHarness(int seed = 11, int timeoutMs = 400, int retries = 1, int? unitTimeoutMs = null)
     {
         var fixture = FixtureLoader.LoadFile(RepoFiles.Path("fixtures/sim-dryblock-4.json"));
         Assert.True(fixture.IsSuccess, string.Join("\n", fixture.Problems));
@@ -26,10 +26,15 @@ internal sealed class SerialHarness : IDisposable
         Clock = new VirtualTimeProvider(new DateTimeOffset(2026, 12, 2, 6, 0, 0, TimeSpan.Zero));
         Rig = new SimulatedRig(Fixture, seed, Clock, c => sensor.FromCelsius(c).Value);
         Factory = new SimulatedUnitFactory(seed, Rig.Simulation, SimulatedUnitDesign.Ctp40A);
-        Serial = new SimulatedSerialRig(Rig, NullLoggerFactory.Instance, new SimulatedSerialRigOptions { TimeoutMs = timeoutMs, Retries = retries });
+        Serial = new SimulatedSerialRig(Rig, Loggers, new SimulatedSerialRigOptions { TimeoutMs = timeoutMs, Retries = retries, UnitTimeoutMs = unitTimeoutMs });
     }
 
     public FixtureDefinition Fixture { get; }
+
+    /// <summary>Warnings and errors of the drivers and twins (retries, lost ports, twin failures).</summary>
+    public CapturingLoggers Loggers { get; } = new();
+
+    public string Log => string.Join("\n", Loggers.Lines);
 
     public IReferenceSensor Sensor { get; }
 

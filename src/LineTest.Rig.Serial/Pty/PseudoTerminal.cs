@@ -16,6 +16,8 @@ namespace LineTest.Rig.Serial.Pty;
 /// </remarks>
 public sealed class PseudoTerminal : IDisposable
 {
+    private const int HangUpPauseMs = 5;
+
     private readonly int _fd;
     private bool _disposed;
 
@@ -90,7 +92,7 @@ public sealed class PseudoTerminal : IDisposable
 
     /// <summary>
     /// Waits up to <paramref name="timeoutMs"/> for bytes from the slave side. Returns true when bytes can be read;
-    /// false on timeout or while no slave is open (then it waits out the timeout so callers do not spin).
+    /// false on timeout, or after a short pause while no slave is open.
     /// </summary>
     public unsafe bool WaitReadable(int timeoutMs)
     {
@@ -107,9 +109,9 @@ public sealed class PseudoTerminal : IDisposable
             return true;
         }
 
-        // Hang-up: no slave is open just now (closed by the driver, or not yet opened). Poll reports it at once,
-        // so sleep out the timeout instead of spinning.
-        Thread.Sleep(timeoutMs);
+        // Hang-up: no slave is open just now (closed by the driver, or not yet opened). Poll reports it at once;
+        // pause briefly so as not to spin, but not so long that a driver opening the port waits for its first reply.
+        Thread.Sleep(Math.Min(timeoutMs, HangUpPauseMs));
         return false;
     }
 

@@ -21,6 +21,8 @@ public sealed class LineServer : IDisposable
     // poll() returns as soon as bytes arrive; the slice only bounds how long Dispose and Unplug wait.
     private const int PollSliceMs = 200;
 
+    private const int PausedMs = 5;
+
     private readonly string _name;
     private readonly ILineFraming _framing;
     private readonly Func<string, TwinReply> _handler;
@@ -137,8 +139,9 @@ public sealed class LineServer : IDisposable
 
             if (pty is null)
             {
+                // Unplugged: wait briefly for a replug, which a test or a driver's reopen may be waiting on.
                 pending.Clear();
-                Thread.Sleep(PollSliceMs);
+                Thread.Sleep(PausedMs);
                 continue;
             }
 
@@ -177,7 +180,7 @@ public sealed class LineServer : IDisposable
             {
                 // The slave side closed (EIO) or the port was unplugged meanwhile: wait for the next opener.
                 pending.Clear();
-                Thread.Sleep(PollSliceMs);
+                Thread.Sleep(PausedMs);
             }
         }
     }

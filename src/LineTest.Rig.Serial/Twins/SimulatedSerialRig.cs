@@ -44,14 +44,14 @@ public sealed class SimulatedSerialRig : IDisposable
                 _units[slot] = new UnitLinkTwin(link, Port($"unit{slot}"), logger);
             }
 
-            PortDefinition Def(string name) => new() { Name = name, Baud = options.Baud, TimeoutMs = options.TimeoutMs, Retries = options.Retries };
+            PortDefinition Def(string name, int? timeoutMs = null) => new() { Name = name, Baud = options.Baud, TimeoutMs = timeoutMs ?? options.TimeoutMs, Retries = options.Retries };
             Fixture = fixture with
             {
                 Rig = "serial",
                 Source = fixture.Source with { Port = Def(Source.Server.PortName) },
                 Reference = fixture.Reference with { Port = Def(Reference.Server.PortName) },
                 Meter = fixture.Meter with { Port = Def(Meter.Server.PortName) },
-                Slots = [.. fixture.Slots.Select(s => s with { UnitPort = Def(_units[s.Slot].Server.PortName) })],
+                Slots = [.. fixture.Slots.Select(s => s with { UnitPort = Def(_units[s.Slot].Server.PortName, options.UnitTimeoutMs) })],
             };
             Drivers = SerialRig.Open(Fixture, loggers);
         }

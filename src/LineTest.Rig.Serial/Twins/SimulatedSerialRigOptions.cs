@@ -6,6 +6,9 @@ public sealed record SimulatedSerialRigOptions
     /// <summary>Reply timeout per command, ms. Default 500: the twins answer within milliseconds, but a busy machine can hold a thread back for a good part of a second.</summary>
     public int TimeoutMs { get; init; } = 500;
 
+    /// <summary>Reply timeout of the unit links, ms; <see cref="TimeoutMs"/> when null. Lets a test make a silent unit cheap without shortening the instruments' timeouts.</summary>
+    public int? UnitTimeoutMs { get; init; }
+
     /// <summary>Retries of idempotent queries. Default 2, as in the committed real fixture.</summary>
     public int Retries { get; init; } = 2;
 

@@ -30,7 +30,7 @@ public sealed class RigProbeTests
     [LinuxFact]
     public async Task RunAsync_EmptySlot_NoUnitNotUnusable()
     {
-        using var h = new SerialHarness(timeoutMs: 200, retries: 0);
+        using var h = new SerialHarness(timeoutMs: 1500, retries: 1, unitTimeoutMs: 200);
         h.Load(UnitDefect.None);
 
         var results = await RigProbe.RunAsync(h.Serial.Drivers, 101, default);

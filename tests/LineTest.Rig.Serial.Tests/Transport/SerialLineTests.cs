@@ -25,7 +25,7 @@ public sealed class SerialLineTests : IDisposable
     [LinuxFact]
     public async Task QueryAsync_Silent_RetriesThenNoAnswerNamingPortTimeoutAndCommand()
     {
-        var (server, line) = Pair(_ => TwinReply.Silence, retries: 2);
+        var (server, line) = Pair(_ => TwinReply.Silence, retries: 2, timeoutMs: 100);
 
         var fault = await Assert.ThrowsAsync<InstrumentFaultException>(() => line.QueryAsync("SOUR:TEMP?", ReplyParse<string>.Ok, default));
 
@@ -38,7 +38,7 @@ public sealed class SerialLineTests : IDisposable
     [LinuxFact]
     public async Task CommandAsync_Silent_IsNeverRetried()
     {
-        var (server, line) = Pair(_ => TwinReply.Silence, retries: 2);
+        var (server, line) = Pair(_ => TwinReply.Silence, retries: 2, timeoutMs: 100);
 
         var fault = await Assert.ThrowsAsync<InstrumentFaultException>(() => line.CommandAsync("SOUR:SETP 50", ReplyParse<string>.Ok, default));
 
@@ -69,7 +69,7 @@ public sealed class SerialLineTests : IDisposable
     [MemberData(nameof(GarbageReplies))]
     public async Task QueryAsync_BadFraming_GarbageReply(byte[] bytes, string expected)
     {
-        var (_, line) = Pair(_ => TwinReply.Raw(bytes), retries: 0);
+        var (_, line) = Pair(_ => TwinReply.Raw(bytes), retries: 0, timeoutMs: 100);
 
         var fault = await Assert.ThrowsAsync<InstrumentFaultException>(() => line.QueryAsync("X?", ReplyParse<string>.Ok, default));
 
@@ -140,12 +140,12 @@ public sealed class SerialLineTests : IDisposable
         _folder.Dispose();
     }
 
-    private (LineServer Server, SerialLine Line) Pair(Func<string, TwinReply> handler, int retries = 2, ILineFraming? framing = null)
+    private (LineServer Server, SerialLine Line) Pair(Func<string, TwinReply> handler, int retries = 2, ILineFraming? framing = null, int timeoutMs = 300)
     {
         framing ??= PlainFraming.Instance;
         var server = new LineServer("scripted", _folder.Port($"tty{_owned.Count}"), framing, handler, NullLogger.Instance);
         _owned.Add(server);
-        var line = new SerialLine("source", new PortDefinition { Name = server.PortName, TimeoutMs = 100, Retries = retries }, framing, NullLogger.Instance, TimeProvider.System);
+        var line = new SerialLine("source", new PortDefinition { Name = server.PortName, TimeoutMs = timeoutMs, Retries = retries }, framing, NullLogger.Instance, TimeProvider.System);
         _owned.Add(line);
         return (server, line);
     }

@@ -27,13 +27,14 @@ public sealed class SimulatedSerialRigTests
     [LinuxFact]
     public async Task RunBatch_UnitStopsAnsweringMidRun_ThatUnitErrorsWithPortAndOthersFinish()
     {
-        using var h = new SerialHarness(timeoutMs: 200, retries: 1);
+        // Generous instrument timeouts: on a busy machine a short one could lose the meter instead of the unit.
+        using var h = new SerialHarness(timeoutMs: 1500, retries: 1, unitTimeoutMs: 200);
         var units = h.Load(UnitDefect.None, UnitDefect.None, UnitDefect.None);
         h.Rig.InjectFault(RigFault.UnitSilent(slot: 2, afterCommands: 3));
 
         var outcome = await h.RunBatchAsync(units);
 
-        Assert.True(outcome.Aborted is null, outcome.Aborted);
+        Assert.True(outcome.Aborted is null, outcome.Aborted + "\n" + h.Log);
         var silent = outcome.Runs.Single(r => r.Slot == 2);
         Assert.Equal(Verdict.Error, silent.Verdict);
         Assert.Contains("does not answer", silent.Reason, StringComparison.Ordinal);
@@ -44,7 +45,7 @@ public sealed class SimulatedSerialRigTests
     [LinuxFact]
     public async Task RunBatch_UnitGarbled_ThatUnitErrorsNeverPasses()
     {
-        using var h = new SerialHarness(timeoutMs: 200, retries: 1);
+        using var h = new SerialHarness(timeoutMs: 1500, retries: 1);
         var units = h.Load(UnitDefect.None, UnitDefect.None);
         h.Rig.InjectFault(RigFault.UnitGarbage(slot: 1, afterCommands: 1));
 
