@@ -10,7 +10,7 @@ internal sealed class ScriptedPort : IDisposable
 {
     private readonly PortFolder _folder = new();
 
-    public ScriptedPort(Func<string, TwinReply> handler, ILineFraming? framing = null, int timeoutMs = 300, int retries = 1, string name = "source")
+    public ScriptedPort(Func<string, TwinReply> handler, ILineFraming? framing = null, int timeoutMs = 2000, int retries = 1, string name = "source")
     {
         framing ??= PlainFraming.Instance;
         Server = new LineServer("scripted", _folder.Port("tty"), framing, handler, NullLogger.Instance);

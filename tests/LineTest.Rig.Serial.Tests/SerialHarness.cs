@@ -16,7 +16,11 @@ namespace LineTest.Rig.Serial.Tests;
 /// </summary>
 internal sealed class SerialHarness : IDisposable
 {
-    public SerialHarness(int seed = 11, int timeoutMs = 400, int retries = 1, int? unitTimeoutMs = null)
+    /// <remarks>
+    /// Timeouts default to 2 s: twins answer within milliseconds, but this machine may be shared and heavily loaded.
+    /// A test that makes an instrument silent shortens that instrument's timeout only (<paramref name="timeouts"/>).
+    /// </remarks>
+    public SerialHarness(int seed = 11, int timeoutMs = 2000, int retries = 1, int? unitTimeoutMs = null, Dictionary<string, int>? timeouts = null)
     {
         var fixture = FixtureLoader.LoadFile(RepoFiles.Path("fixtures/sim-dryblock-4.json"));
         Assert.True(fixture.IsSuccess, string.Join("\n", fixture.Problems));
@@ -26,7 +30,7 @@ internal sealed class SerialHarness : IDisposable
         Clock = new VirtualTimeProvider(new DateTimeOffset(2026, 12, 2, 6, 0, 0, TimeSpan.Zero));
         Rig = new SimulatedRig(Fixture, seed, Clock, c => sensor.FromCelsius(c).Value);
         Factory = new SimulatedUnitFactory(seed, Rig.Simulation, SimulatedUnitDesign.Ctp40A);
-        Serial = new SimulatedSerialRig(Rig, Loggers, new SimulatedSerialRigOptions { TimeoutMs = timeoutMs, Retries = retries, UnitTimeoutMs = unitTimeoutMs });
+        Serial = new SimulatedSerialRig(Rig, Loggers, new SimulatedSerialRigOptions { TimeoutMs = timeoutMs, Retries = retries, UnitTimeoutMs = unitTimeoutMs, TimeoutsMs = timeouts });
     }
 
     public FixtureDefinition Fixture { get; }

@@ -7,8 +7,11 @@ namespace LineTest.Rig.Serial.Source;
 
 /// <summary>
 /// A dry block, bath or chamber on a serial line, speaking <see cref="SourceCommands"/>. A setpoint outside the
-/// fixture's safe range is refused before anything is sent: the sequence checker should have caught it, so reaching
-/// here is a bug, and the source must never be asked for a temperature that can burn or freeze skin.
+/// fixture's safe range is refused before anything is sent: the source must never be asked for a temperature that
+/// can burn or freeze skin. The sequence checker should have caught it, but the refusal is an
+/// <see cref="InstrumentFaultException"/> (kind <see cref="InstrumentFaultKind.Other"/>) rather than an argument
+/// exception so that the coordinator handles it like a lost source: the batch ends in <c>error</c> and the source
+/// goes to standby.
 /// </summary>
 public sealed class SerialTemperatureSource : ITemperatureSource, IIdentifiableInstrument
 {
@@ -33,13 +36,13 @@ public sealed class SerialTemperatureSource : ITemperatureSource, IIdentifiableI
         => Line.QueryAsync(SourceCommands.Identify, Replies.ParseIdentity, cancellationToken);
 
     /// <inheritdoc/>
-    /// <exception cref="ArgumentOutOfRangeException">The setpoint is not finite or lies outside the fixture's safe range; nothing was sent.</exception>
+    /// <exception cref="InstrumentFaultException">The setpoint is not finite or lies outside the fixture's safe range; nothing was sent.</exception>
     public Task SetSetpointAsync(double celsius, CancellationToken cancellationToken)
     {
         if (!double.IsFinite(celsius) || celsius < _source.SafeMinC || celsius > _source.SafeMaxC)
         {
-            throw new ArgumentOutOfRangeException(nameof(celsius), celsius, string.Create(CultureInfo.InvariantCulture,
-                $"{Line.Instrument}: setpoint {celsius} °C refused, outside the fixture's safe range {_source.SafeMinC} to {_source.SafeMaxC} °C; nothing was sent"));
+            return Task.FromException(new InstrumentFaultException(Line.Instrument, InstrumentFaultKind.Other, string.Create(CultureInfo.InvariantCulture,
+                $"setpoint {celsius} °C refused, outside the fixture's safe range {_source.SafeMinC} to {_source.SafeMaxC} °C; nothing was sent (check the sequence against the fixture)")));
         }
 
         return Line.CommandAsync(SourceCommands.SetSetpoint(celsius), Replies.ParseOk, cancellationToken);

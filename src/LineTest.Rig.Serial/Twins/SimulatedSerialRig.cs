@@ -44,14 +44,20 @@ public sealed class SimulatedSerialRig : IDisposable
                 _units[slot] = new UnitLinkTwin(link, Port($"unit{slot}"), logger);
             }
 
-            PortDefinition Def(string name, int? timeoutMs = null) => new() { Name = name, Baud = options.Baud, TimeoutMs = timeoutMs ?? options.TimeoutMs, Retries = options.Retries };
+            PortDefinition Def(string instrument, string name, int? timeoutMs = null) => new()
+            {
+                Name = name,
+                Baud = options.Baud,
+                TimeoutMs = options.TimeoutsMs?.GetValueOrDefault(instrument) is > 0 and var own ? own : timeoutMs ?? options.TimeoutMs,
+                Retries = options.Retries,
+            };
             Fixture = fixture with
             {
                 Rig = "serial",
-                Source = fixture.Source with { Port = Def(Source.Server.PortName) },
-                Reference = fixture.Reference with { Port = Def(Reference.Server.PortName) },
-                Meter = fixture.Meter with { Port = Def(Meter.Server.PortName) },
-                Slots = [.. fixture.Slots.Select(s => s with { UnitPort = Def(_units[s.Slot].Server.PortName, options.UnitTimeoutMs) })],
+                Source = fixture.Source with { Port = Def("source", Source.Server.PortName) },
+                Reference = fixture.Reference with { Port = Def("reference", Reference.Server.PortName) },
+                Meter = fixture.Meter with { Port = Def("meter", Meter.Server.PortName) },
+                Slots = [.. fixture.Slots.Select(s => s with { UnitPort = Def($"unit slot {s.Slot}", _units[s.Slot].Server.PortName, options.UnitTimeoutMs) })],
             };
             Drivers = SerialRig.Open(Fixture, loggers);
         }

@@ -41,7 +41,7 @@ public sealed class ScpiVoltmeterTests
     [LinuxFact]
     public async Task ReadDcVoltsAsync_MeterRefusesReadings_InstrumentErrorQuotingTheErrorQueue()
     {
-        using var h = new SerialHarness(retries: 0);
+        using var h = new SerialHarness(retries: 0, timeouts: new() { ["meter"] = 200 });
         h.Load(UnitDefect.None);
         await h.Serial.Drivers.Meter.ReadDcVoltsAsync(101, default);
         h.Serial.Meter.RefuseReadings(ScpiCommands.ErrorEntry(-240, "Hardware error; input stage"));
@@ -69,7 +69,7 @@ public sealed class ScpiVoltmeterTests
     [LinuxFact]
     public async Task ReadDcVoltsAsync_Silent_NoAnswerAfterRetries()
     {
-        using var h = new SerialHarness(timeoutMs: 200, retries: 1);
+        using var h = new SerialHarness(timeouts: new() { ["meter"] = 200 });
         await h.Serial.Drivers.Meter.ReadDcVoltsAsync(101, default);
         h.Rig.InjectFault(RigFault.MeterSilent());
 
@@ -95,7 +95,7 @@ public sealed class ScpiVoltmeterTests
     [LinuxFact]
     public async Task ReadDcVoltsAsync_PortLostThenBack_ReopensAndReconfiguresBeforeReading()
     {
-        using var h = new SerialHarness(retries: 0);
+        using var h = new SerialHarness(retries: 0, timeouts: new() { ["meter"] = 200 });
         var meter = h.Serial.Drivers.Meter;
         await meter.ReadDcVoltsAsync(101, default);
         h.Rig.InjectFault(RigFault.MeterPortLost());

@@ -30,7 +30,7 @@ public sealed class RigProbeTests
     [LinuxFact]
     public async Task RunAsync_EmptySlot_NoUnitNotUnusable()
     {
-        using var h = new SerialHarness(timeoutMs: 1500, retries: 1, unitTimeoutMs: 200);
+        using var h = new SerialHarness(unitTimeoutMs: 200);
         h.Load(UnitDefect.None);
 
         var results = await RigProbe.RunAsync(h.Serial.Drivers, 101, default);
@@ -44,7 +44,7 @@ public sealed class RigProbeTests
     [LinuxFact]
     public async Task RunAsync_MeterErrorQueueRefusesReadings_MeterUnusableQuotingTheQueue()
     {
-        using var h = new SerialHarness(timeoutMs: 200, retries: 0);
+        using var h = new SerialHarness(retries: 0, timeouts: new() { ["meter"] = 200 });
         h.Serial.Meter.RefuseReadings("-240,\"Hardware error\"");
 
         var results = await RigProbe.RunAsync(h.Serial.Drivers, 101, default);

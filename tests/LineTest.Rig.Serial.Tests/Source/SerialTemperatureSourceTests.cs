@@ -61,9 +61,10 @@ public sealed class SerialTemperatureSourceTests
         using var port = new ScriptedPort(_ => TwinReply.Answer("OK"));
         var source = new SerialTemperatureSource(Definition, port.Line);
 
-        var refused = await Assert.ThrowsAsync<ArgumentOutOfRangeException>(() => source.SetSetpointAsync(celsius, default));
+        var refused = await Assert.ThrowsAsync<InstrumentFaultException>(() => source.SetSetpointAsync(celsius, default));
 
-        Assert.Contains("safe range -30 to 125 °C", refused.Message, StringComparison.Ordinal);
+        Assert.Equal(InstrumentFaultKind.Other, refused.Kind);
+        Assert.Contains("safe range -30 to 125 °C; nothing was sent", refused.Message, StringComparison.Ordinal);
         await Task.Delay(50);
         Assert.Empty(port.Server.ReceivedLines);
     }
@@ -84,7 +85,7 @@ public sealed class SerialTemperatureSourceTests
     [LinuxFact]
     public async Task GoToStandbyAsync_Silent_NoAnswerAndNotRepeated()
     {
-        using var port = new ScriptedPort(_ => TwinReply.Silence, retries: 2);
+        using var port = new ScriptedPort(_ => TwinReply.Silence, timeoutMs: 300, retries: 2);
         var source = new SerialTemperatureSource(Definition, port.Line);
 
         var fault = await Assert.ThrowsAsync<InstrumentFaultException>(() => source.GoToStandbyAsync(default));

@@ -140,7 +140,7 @@ public sealed class SerialLineTests : IDisposable
         _folder.Dispose();
     }
 
-    private (LineServer Server, SerialLine Line) Pair(Func<string, TwinReply> handler, int retries = 2, ILineFraming? framing = null, int timeoutMs = 300)
+    private (LineServer Server, SerialLine Line) Pair(Func<string, TwinReply> handler, int retries = 2, ILineFraming? framing = null, int timeoutMs = 2000)
     {
         framing ??= PlainFraming.Instance;
         var server = new LineServer("scripted", _folder.Port($"tty{_owned.Count}"), framing, handler, NullLogger.Instance);

@@ -27,8 +27,7 @@ public sealed class SimulatedSerialRigTests
     [LinuxFact]
     public async Task RunBatch_UnitStopsAnsweringMidRun_ThatUnitErrorsWithPortAndOthersFinish()
     {
-        // Generous instrument timeouts: on a busy machine a short one could lose the meter instead of the unit.
-        using var h = new SerialHarness(timeoutMs: 1500, retries: 1, unitTimeoutMs: 200);
+        using var h = new SerialHarness(unitTimeoutMs: 200);
         var units = h.Load(UnitDefect.None, UnitDefect.None, UnitDefect.None);
         h.Rig.InjectFault(RigFault.UnitSilent(slot: 2, afterCommands: 3));
 
@@ -45,7 +44,7 @@ public sealed class SimulatedSerialRigTests
     [LinuxFact]
     public async Task RunBatch_UnitGarbled_ThatUnitErrorsNeverPasses()
     {
-        using var h = new SerialHarness(timeoutMs: 1500, retries: 1);
+        using var h = new SerialHarness();
         var units = h.Load(UnitDefect.None, UnitDefect.None);
         h.Rig.InjectFault(RigFault.UnitGarbage(slot: 1, afterCommands: 1));
 
@@ -60,7 +59,7 @@ public sealed class SimulatedSerialRigTests
     [LinuxFact]
     public async Task RunBatch_SourceSilent_AllUnitsErrorAndStandbyIsSent()
     {
-        using var h = new SerialHarness(timeoutMs: 200, retries: 1);
+        using var h = new SerialHarness(timeouts: new() { ["source"] = 200 });
         var units = h.Load(UnitDefect.None, UnitDefect.None);
         h.Rig.InjectFault(RigFault.SourceSilent(afterCommands: 1));
 
@@ -94,7 +93,7 @@ public sealed class SimulatedSerialRigTests
     [LinuxFact]
     public async Task RunBatch_MeterPortLostMidBatch_AllUnitsErrorAndSourceGoesToStandby()
     {
-        using var h = new SerialHarness(timeoutMs: 200, retries: 1);
+        using var h = new SerialHarness(timeouts: new() { ["meter"] = 200 });
         var units = h.Load(UnitDefect.None, UnitDefect.None);
         h.Rig.InjectFault(RigFault.MeterPortLost(afterCommands: 40));
 
@@ -105,7 +104,7 @@ public sealed class SimulatedSerialRigTests
         {
             Assert.Equal(Verdict.Error, r.Verdict);
             Assert.Contains("voltmeter lost", r.Reason, StringComparison.Ordinal);
-            Assert.Contains($"port {h.Serial.Meter.Server.PortName}", r.Reason, StringComparison.Ordinal);
+            Assert.Contains(h.Serial.Meter.Server.PortName, r.Reason, StringComparison.Ordinal);
 
         });
         Assert.Equal(h.Fixture.Source.StandbyC, h.Rig.Block.SetpointC);
@@ -115,7 +114,7 @@ public sealed class SimulatedSerialRigTests
     [LinuxFact]
     public async Task RunBatch_ReferenceSilent_AllUnitsErrorNamingTheReference()
     {
-        using var h = new SerialHarness(timeoutMs: 200, retries: 1);
+        using var h = new SerialHarness(timeouts: new() { ["reference"] = 200 });
         var units = h.Load(UnitDefect.None);
         h.Rig.InjectFault(RigFault.ReferenceSilent(afterCommands: 10));
 

@@ -40,7 +40,7 @@ public sealed class SerialUnitLinkTests
     [LinuxFact]
     public async Task WriteTrimAsync_Silent_NoAnswerAndWrittenOnlyOnce()
     {
-        using var port = new ScriptedPort(_ => TwinReply.Silence, ChecksumFraming.Instance, retries: 3, name: "unit slot 2");
+        using var port = new ScriptedPort(_ => TwinReply.Silence, ChecksumFraming.Instance, timeoutMs: 150, retries: 3, name: "unit slot 2");
         var link = new SerialUnitLink(port.Line);
 
         var fault = await Assert.ThrowsAsync<InstrumentFaultException>(() => link.WriteTrimAsync(new Dictionary<string, long> { ["GAIN"] = 1 }, default));
