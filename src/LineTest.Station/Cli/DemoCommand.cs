@@ -25,9 +25,10 @@ public static class DemoCommand
         var sequence = new Option<string?>("--sequence") { Description = "Sequence file (default: the station's)" };
         var fixture = new Option<string?>("--fixture") { Description = "Simulated fixture file (default: the station's)" };
         var lot = new Option<string?>("--lot") { Description = "Lot stored with every run" };
+        var serial = new Option<bool>("--serial") { Description = "Reach the simulated instruments through the real serial drivers over pseudo-terminal ports (Linux)" };
         var command = new Command("demo", "Run a simulated production shift on the built-in simulator")
         {
-            units, slots, seed, results, json, sequence, fixture, lot,
+            units, slots, seed, results, json, sequence, fixture, lot, serial,
         };
         command.SetAction(async (parse, ct) =>
         {
@@ -84,6 +85,7 @@ public static class DemoCommand
                     ResultsDirectory = Path.GetFullPath(parse.GetValue(results)!),
                     Station = options.Id,
                     Lot = parse.GetValue(lot) ?? options.Lot,
+                    Serial = parse.GetValue(serial),
                 },
                 context.Loggers);
             ShiftSummary summary;
@@ -94,6 +96,11 @@ public static class DemoCommand
             catch (Exception ex) when (ex is ResultStoreException or RunStorageException)
             {
                 context.Error.WriteLine($"linetest: results could not be stored, the shift was stopped: {ex.Message}");
+                return ExitCodes.RuntimeFailure;
+            }
+            catch (PlatformNotSupportedException ex)
+            {
+                context.Error.WriteLine($"linetest: --serial cannot run here: {ex.Message}");
                 return ExitCodes.RuntimeFailure;
             }
 

@@ -13,6 +13,7 @@ public static class StationCommandLine
             DemoCommand.Create(context),
             RunCommand.Create(context),
             GraphCommand.Create(context),
+            ProbeCommand.Create(context),
             ConvertCommand.Create(context.Output, context.Error),
             CheckCommand.Create(context),
             SchemaCommand.Create(context),

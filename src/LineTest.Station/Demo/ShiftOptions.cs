@@ -36,6 +36,12 @@ public sealed record ShiftOptions
     /// <summary>Operator stored with every run.</summary>
     public string? Operator { get; init; } = "simulated operator";
 
+    /// <summary>
+    /// When true the coordinator reaches the simulated instruments through the real serial drivers, over
+    /// pseudo-terminal ports (Linux only); verdicts are the same as without.
+    /// </summary>
+    public bool Serial { get; init; }
+
     /// <summary>Virtual seconds the operator takes to unload one batch and load the next.</summary>
     public double ReloadSeconds { get; init; } = 30;
 }

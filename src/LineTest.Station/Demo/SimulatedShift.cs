@@ -1,4 +1,5 @@
 using LineTest.Core.Results;
+using LineTest.Rig.Serial.Twins;
 using LineTest.Rig.Simulation;
 using LineTest.Runtime.Batches;
 using LineTest.Station.Composition;
@@ -39,6 +40,7 @@ public sealed class SimulatedShift
         var design = SimulatedUnitDesign.ForProduct(_options.Sequence.Product)
             ?? throw new InvalidOperationException(
                 $"The simulator builds {string.Join(", ", SimulatedUnitDesign.Demo.Select(d => d.Product))}, not '{_options.Sequence.Product}'.");
+        using var serialRig = _options.Serial ? new SimulatedSerialRig(rig, _loggers) : null;
         var factory = new SimulatedUnitFactory(_options.Seed, rig.Simulation, design);
         var slots = fixture.Slots.Select(s => s.Slot).Order().Take(_options.Slots).ToList();
         var runs = new List<RunRecord>();
@@ -49,7 +51,7 @@ public sealed class SimulatedShift
             runEnded(run);
         });
         var coordinator = new BatchCoordinator(
-            rig.Instruments,
+            serialRig?.Instruments ?? rig.Instruments,
             fixture,
             ReferenceConversion.ToCelsius(sensor),
             clock,

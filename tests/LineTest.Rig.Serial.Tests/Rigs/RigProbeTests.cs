@@ -1,0 +1,81 @@
+using LineTest.Core.Fixtures;
+using LineTest.Rig.Serial.Rigs;
+using LineTest.Rig.Serial.Twins;
+using LineTest.Rig.Simulation;
+using Microsoft.Extensions.Logging.Abstractions;
+
+namespace LineTest.Rig.Serial.Tests.Rigs;
+
+public sealed class RigProbeTests
+{
+    [LinuxFact]
+    public async Task RunAsync_SimulatedSerialRigWithUnits_EveryInstrumentUsableWithIdentityAndReading()
+    {
+        using var h = new SerialHarness();
+        h.Load(UnitDefect.None, UnitDefect.None, UnitDefect.None, UnitDefect.None);
+
+        var results = await RigProbe.RunAsync(h.Serial.Drivers, 101, default);
+
+        Assert.Equal(["source", "reference", "meter", "unit slot 1", "unit slot 2", "unit slot 3", "unit slot 4"], results.Select(r => r.Instrument));
+        Assert.All(results, r =>
+        {
+            Assert.Equal(ProbeStatus.Usable, r.Status);
+            Assert.NotNull(r.Identity);
+            Assert.NotNull(r.Reading);
+        });
+        Assert.Equal(SourceTwin.Identity.ToString(), results[0].Identity);
+        Assert.EndsWith("°C", results[0].Reading, StringComparison.Ordinal);
+    }
+
+    [LinuxFact]
+    public async Task RunAsync_EmptySlot_NoUnitNotUnusable()
+    {
+        using var h = new SerialHarness(unitTimeoutMs: 200);
+        h.Load(UnitDefect.None);
+
+        var results = await RigProbe.RunAsync(h.Serial.Drivers, 101, default);
+
+        Assert.Equal(ProbeStatus.Usable, results.Single(r => r.Instrument == "unit slot 1").Status);
+        var empty = results.Single(r => r.Instrument == "unit slot 2");
+        Assert.Equal(ProbeStatus.NoUnit, empty.Status);
+        Assert.Contains("no unit answered in slot 2", empty.Problem, StringComparison.Ordinal);
+    }
+
+    [LinuxFact]
+    public async Task RunAsync_MeterErrorQueueRefusesReadings_MeterUnusableQuotingTheQueue()
+    {
+        using var h = new SerialHarness(retries: 0, timeouts: new() { ["meter"] = 200 });
+        h.Serial.Meter.RefuseReadings("-240,\"Hardware error\"");
+
+        var results = await RigProbe.RunAsync(h.Serial.Drivers, 101, default);
+
+        var meter = results.Single(r => r.Instrument == "meter");
+        Assert.Equal(ProbeStatus.Unusable, meter.Status);
+        Assert.Contains("-240,\"Hardware error\"", meter.Problem, StringComparison.Ordinal);
+    }
+
+    [LinuxFact]
+    public async Task RunAsync_PortsThatDoNotExist_EveryInstrumentUnusableSayingSo()
+    {
+        var fixture = FixtureLoader.LoadFile(LineTest.TestSupport.RepoFiles.Path("fixtures/rig-dryblock-4.json"));
+        Assert.True(fixture.IsSuccess, string.Join("\n", fixture.Problems));
+        var missing = "/dev/linetest-no-such-port-";
+        var f = fixture.Value!;
+        f = f with
+        {
+            Source = f.Source with { Port = f.Source.Port! with { Name = missing + "0" } },
+            Reference = f.Reference with { Port = f.Reference.Port! with { Name = missing + "1" } },
+            Meter = f.Meter with { Port = f.Meter.Port! with { Name = missing + "2" } },
+            Slots = [.. f.Slots.Select(s => s with { UnitPort = s.UnitPort! with { Name = missing + "u" + s.Slot } })],
+        };
+        using var rig = SerialRig.Open(f, NullLoggerFactory.Instance);
+
+        var results = await RigProbe.RunAsync(rig, f.Slots[0].OutputChannel, default);
+
+        Assert.All(results, r =>
+        {
+            Assert.Equal(ProbeStatus.Unusable, r.Status);
+            Assert.Contains($"port {r.Port} does not exist", r.Problem, StringComparison.Ordinal);
+        });
+    }
+}

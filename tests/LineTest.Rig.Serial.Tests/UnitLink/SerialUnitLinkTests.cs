@@ -1,0 +1,98 @@
+using LineTest.Rig.Instruments;
+using LineTest.Rig.Serial.Transport;
+using LineTest.Rig.Serial.Twins;
+using LineTest.Rig.Serial.UnitLink;
+using LineTest.Rig.Simulation;
+
+namespace LineTest.Rig.Serial.Tests.UnitLink;
+
+public sealed class SerialUnitLinkTests
+{
+    [LinuxFact]
+    public async Task Commands_EachMethod_SendsChecksummedLinesByteForByte()
+    {
+        using var port = new ScriptedPort(cmd => TwinReply.Answer(cmd switch
+        {
+            "ID?" => "ID CTP40A-000123,CTP-40A,1.4.2",
+            "RAW?" => "RAW -1234",
+            "TEMP?" => "TEMP 21.5",
+            "TRIM?" => "TRIM GAIN=2050,OFFSET=1990",
+            _ => "OK",
+        }), ChecksumFraming.Instance, name: "unit slot 1");
+        var link = new SerialUnitLink(port.Line);
+
+        var id = await link.IdentifyAsync(default);
+        var raw = await link.ReadRawAsync(default);
+        var temp = await link.ReadTemperatureAsync(default);
+        await link.WriteTrimAsync(new Dictionary<string, long> { ["OFFSET"] = 1990, ["GAIN"] = 2050 }, default);
+        await link.StoreAsync(default);
+        var back = await link.ReadBackAsync(default);
+
+        // Checksums: byte sums modulo 256, worked out independently of the framing code [derived].
+        Assert.Equal(["ID?*CC", "RAW?*29", "TEMP?*75", "TRIM GAIN=2050,OFFSET=1990*82", "STORE*8D", "TRIM?*7B"], port.Server.ReceivedLines);
+        Assert.Equal(new UnitIdentity("CTP40A-000123", "CTP-40A", "1.4.2"), id);
+        Assert.Equal(-1234, raw);
+        Assert.Equal(21.5, temp);
+        Assert.Equal(2050, back["GAIN"]);
+        Assert.Equal(1990, back["OFFSET"]);
+    }
+
+    [LinuxFact]
+    public async Task WriteTrimAsync_Silent_NoAnswerAndWrittenOnlyOnce()
+    {
+        using var port = new ScriptedPort(_ => TwinReply.Silence, ChecksumFraming.Instance, timeoutMs: 150, retries: 3, name: "unit slot 2");
+        var link = new SerialUnitLink(port.Line);
+
+        var fault = await Assert.ThrowsAsync<InstrumentFaultException>(() => link.WriteTrimAsync(new Dictionary<string, long> { ["GAIN"] = 1 }, default));
+
+        Assert.Equal(InstrumentFaultKind.NoAnswer, fault.Kind);
+        Assert.Single(port.Server.ReceivedLines);
+    }
+
+    [LinuxFact]
+    public async Task ReadRawAsync_UnitGarbled_GarbageReplyNamingTheChecksum()
+    {
+        using var h = new SerialHarness(retries: 0);
+        h.Load(UnitDefect.None);
+        h.Rig.InjectFault(RigFault.UnitGarbage(1));
+
+        var fault = await Assert.ThrowsAsync<InstrumentFaultException>(() => h.Serial.Instruments.UnitLinks[1].ReadRawAsync(default));
+
+        Assert.Equal(InstrumentFaultKind.GarbageReply, fault.Kind);
+        Assert.Contains("does not match its message", fault.Message, StringComparison.Ordinal);
+    }
+
+    [LinuxFact]
+    public async Task WriteTrimAsync_CodeOutOfRange_InstrumentErrorFromTheUnit()
+    {
+        using var h = new SerialHarness();
+        h.Load(UnitDefect.None);
+
+        var fault = await Assert.ThrowsAsync<InstrumentFaultException>(() =>
+            h.Serial.Instruments.UnitLinks[1].WriteTrimAsync(new Dictionary<string, long> { ["GAIN"] = 1_000_000 }, default));
+
+        Assert.Equal(InstrumentFaultKind.InstrumentError, fault.Kind);
+        Assert.Contains("GAIN = 1000000", fault.Message, StringComparison.Ordinal);
+    }
+
+    [LinuxFact]
+    public async Task TrimStoreReadBack_OverSerial_UnitHoldsTheStoredCodes()
+    {
+        using var h = new SerialHarness();
+        var unit = h.Load(UnitDefect.None)[0];
+        var link = h.Serial.Instruments.UnitLinks[1];
+
+        await link.WriteTrimAsync(new Dictionary<string, long> { ["GAIN"] = 2100, ["OFFSET"] = 1900 }, default);
+        await link.StoreAsync(default);
+        var back = await link.ReadBackAsync(default);
+        var id = await link.IdentifyAsync(default);
+
+        Assert.Equal(2100, back["GAIN"]);
+        Assert.Equal(1900, back["OFFSET"]);
+        Assert.Equal(unit.Serial, id.Serial);
+    }
+
+    [Fact]
+    public void TrimList_BadRegisterName_ArgumentExceptionBeforeSending()
+        => Assert.Throws<ArgumentException>(() => UnitLinkCommands.TrimList(new Dictionary<string, long> { ["gain*"] = 1 }));
+}
