@@ -40,8 +40,11 @@ public static class RunCommand
             builder.Services.AddSingleton<StationService>();
             builder.Services.AddHostedService(sp => sp.GetRequiredService<StationService>());
             using var host = builder.Build();
+            var station = host.Services.GetRequiredService<StationService>();
+
+            // RunAsync disposes the host's services when it returns: keep the service, not the provider.
             await host.RunAsync(ct).ConfigureAwait(false);
-            return host.Services.GetRequiredService<StationService>().ExitCode;
+            return station.ExitCode;
         });
         return command;
     }

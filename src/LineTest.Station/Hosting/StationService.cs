@@ -90,25 +90,29 @@ public sealed partial class StationService : BackgroundService
             return ExitCodes.BadInput;
         }
 
-        if (fixture.Rig != "simulator")
-        {
-            _error.WriteLine($"linetest: fixture '{fixture.Id}' names real instruments; use 'linetest probe' to bring them up. This build runs the station on a simulator fixture.");
-            return ExitCodes.RuntimeFailure;
-        }
-
         var sequence = sequenceResult.Value;
         var rules = new ScanRules(sequence.SerialPattern);
         var sensor = ReferenceConversion.SensorOf(fixture);
-        var clock = new ScaledTimeProvider(_options.SimulatorSpeed);
-        var rig = new SimulatedRig(fixture, _options.SimulatorSeed, clock, ReferenceConversion.FromCelsius(sensor));
-        var design = SimulatedUnitDesign.ForProduct(sequence.Product);
-        if (design is null)
+        var (opened, problem) = StationRig.Open(fixture, sequence, _options, ReferenceConversion.FromCelsius(sensor), _loggers);
+        if (opened is null)
         {
-            _error.WriteLine($"linetest: sequence '{sequence.Id}' tests '{sequence.Product}', but the simulator builds only {string.Join(", ", SimulatedUnitDesign.Demo.Select(d => d.Product))}.");
+            _error.WriteLine($"linetest: {problem}");
             return ExitCodes.BadInput;
         }
 
-        var factory = new SimulatedUnitFactory(_options.SimulatorSeed, rig.Simulation, design);
+        using var rig = opened;
+        var clock = rig.Clock;
+        try
+        {
+            // Standby first: the source may hold a setpoint from a run that was interrupted; it also proves the
+            // source answers before any unit is loaded.
+            await rig.Instruments.Source.GoToStandbyAsync(ct).ConfigureAwait(false);
+        }
+        catch (Rig.Instruments.InstrumentFaultException ex)
+        {
+            _error.WriteLine($"linetest: the temperature source is not usable, so no unit can be tested: {ex.Message}. Run 'linetest probe' to check every instrument.");
+            return ExitCodes.RuntimeFailure;
+        }
         var resultsDir = ContentRoot.Resolve(_root, _options.Results);
         await using var store = SqliteResultStore.Open(resultsDir);
         var reader = SqliteResultReader.InDirectory(resultsDir);
@@ -122,7 +126,7 @@ public sealed partial class StationService : BackgroundService
         var plain = interactive ? null : _output;
         var sink = new StoreSink(store, run => plain?.WriteLine(DemoCommand.UnitLine(run)));
         var coordinator = new BatchCoordinator(rig.Instruments, fixture, ReferenceConversion.ToCelsius(sensor), clock, sink,
-            new ScreenOperator(model, WaitForConfirmAsync, plain), model, _loggers.CreateLogger<BatchCoordinator>(), partFitting: new SimulatedPartFitting(rig));
+            new ScreenOperator(model, WaitForConfirmAsync, plain), model, _loggers.CreateLogger<BatchCoordinator>(), partFitting: rig.PartFitting);
 
         WriteSafetyNote(interactive);
         using var screenStop = new CancellationTokenSource();
@@ -131,7 +135,7 @@ public sealed partial class StationService : BackgroundService
         {
             while (!ct.IsCancellationRequested)
             {
-                var loads = await ScanBatchAsync(fixture, rules, reader, factory, rig, model, input, plain, clock, ct).ConfigureAwait(false);
+                var loads = await ScanBatchAsync(fixture, rules, reader, rig, model, input, plain, clock, ct).ConfigureAwait(false);
                 if (loads is null)
                 {
                     return ExitCodes.Done;
@@ -170,7 +174,7 @@ public sealed partial class StationService : BackgroundService
                 Say(model, plain, $"Batch done: {pass} pass, {fail} fail, {error} error. Unload and sort the units (inserts may be hot or cold), then scan the next.");
                 foreach (var load in loads)
                 {
-                    rig.Unload(load.Slot);
+                    rig.Unloaded(load.Slot);
                 }
 
                 if (interactive)
@@ -192,7 +196,7 @@ public sealed partial class StationService : BackgroundService
     }
 
     private async Task<List<SlotLoad>?> ScanBatchAsync(
-        FixtureDefinition fixture, ScanRules rules, SqliteResultReader reader, SimulatedUnitFactory factory, SimulatedRig rig,
+        FixtureDefinition fixture, ScanRules rules, SqliteResultReader reader, StationRig rig,
         StationScreenModel model, OperatorInput input, TextWriter? plain, TimeProvider clock, CancellationToken ct)
     {
         var loads = new List<SlotLoad>();
@@ -247,7 +251,7 @@ public sealed partial class StationService : BackgroundService
                 continue;
             }
 
-            rig.Load(slot, factory.NextUnit(decision.Serial));
+            rig.Loaded(slot, decision.Serial);
             loads.Add(new SlotLoad(slot, decision.Serial));
             model.Loaded(slot, decision.Serial, decision.IsRetest);
             plain?.WriteLine($"Loaded {decision.Serial} in slot {slot}{(decision.IsRetest ? " (retest)" : string.Empty)}.");
