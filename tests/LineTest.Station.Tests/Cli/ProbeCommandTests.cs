@@ -53,7 +53,7 @@ public sealed class ProbeCommandTests
             var run = await RunAsync("probe", "--fixture", path);
 
             Assert.Equal(ExitCodes.BadInput, run.ExitCode);
-            Assert.Contains("missing required property", run.Stderr, StringComparison.Ordinal);
+            Assert.Contains("missing required propert", run.Stderr, StringComparison.Ordinal);
         }
         finally
         {
