@@ -25,9 +25,10 @@ public static class DemoCommand
         var sequence = new Option<string?>("--sequence") { Description = "Sequence file (default: the station's)" };
         var fixture = new Option<string?>("--fixture") { Description = "Simulated fixture file (default: the station's)" };
         var lot = new Option<string?>("--lot") { Description = "Lot stored with every run" };
+        var production = new Option<bool>("--production") { Description = "Production mode: run only a released sequence file (see 'linetest release')" };
         var command = new Command("demo", "Run a simulated production shift on the built-in simulator")
         {
-            units, slots, seed, results, json, sequence, fixture, lot,
+            units, slots, seed, results, json, sequence, fixture, lot, production,
         };
         command.SetAction(async (parse, ct) =>
         {
@@ -84,6 +85,9 @@ public static class DemoCommand
                     ResultsDirectory = Path.GetFullPath(parse.GetValue(results)!),
                     Station = options.Id,
                     Lot = parse.GetValue(lot) ?? options.Lot,
+                    Mode = parse.GetValue(production) ? ProductionGate.Production : options.Mode,
+                    SequenceFile = sequencePath,
+                    Notice = lines.WriteLine,
                 },
                 context.Loggers);
             ShiftSummary summary;
@@ -95,6 +99,11 @@ public static class DemoCommand
             {
                 context.Error.WriteLine($"linetest: results could not be stored, the shift was stopped: {ex.Message}");
                 return ExitCodes.RuntimeFailure;
+            }
+
+            if (shift.Refusal is { } refusal)
+            {
+                return context.BadInput($"production mode refuses the sequence: {refusal}");
             }
 
             if (asJson)
