@@ -56,7 +56,7 @@ public sealed class Fuzzer(FixtureDefinition fixture, byte[] fixtureBytes, Seque
             catch (Exception ex)
             {
                 loaderCrashes++;
-                Keep(crashes, $"loader case {i} ({(isSequence ? "sequence" : "fixture")}): {ex.GetType().Name}: {ex.Message}");
+                Keep(crashes, $"loader case {i} ({(isSequence ? "sequence" : "fixture")}): {ex.GetType().Name}: {ex.Message} {Where(ex)}");
             }
         }
 
@@ -104,7 +104,7 @@ public sealed class Fuzzer(FixtureDefinition fixture, byte[] fixtureBytes, Seque
             {
                 unhandled++;
                 noVerdict += loads.Count - sink.Runs.Count;
-                Keep(crashes, $"garbage batch {b} (seed {batchSeed}): {ex.GetType().Name}: {ex.Message}");
+                Keep(crashes, $"garbage batch {b} (seed {batchSeed}): {ex.GetType().Name}: {ex.Message} {Where(ex)}");
             }
 
             replies += garbage.GarbageReplies;
@@ -130,6 +130,10 @@ public sealed class Fuzzer(FixtureDefinition fixture, byte[] fixtureBytes, Seque
             WallSeconds = TimeProvider.System.GetElapsedTime(wallStart).TotalSeconds,
         };
     }
+
+    /// <summary>The innermost frames of the stack, for the bug report.</summary>
+    private static string Where(Exception ex) =>
+        string.Join(" <- ", (ex.StackTrace ?? string.Empty).Split('\n', StringSplitOptions.RemoveEmptyEntries | StringSplitOptions.TrimEntries).Take(3));
 
     private static void Keep(List<string> crashes, string message)
     {
