@@ -75,7 +75,7 @@ public sealed class SimulatedShift
             notice(StartupRecovery.Message(Recovered.Count));
             foreach (var run in Recovered)
             {
-                notice($"  {run.Serial} slot {run.Slot}, batch {run.BatchId}: {run.Readings.Count} readings kept");
+                notice($"  interrupted: {run.Serial} slot {run.Slot}, batch {run.BatchId}, {run.Readings.Count} readings kept");
             }
         }
 
