@@ -25,6 +25,18 @@ public static class ReadingFactory
     {
         ArgumentException.ThrowIfNullOrWhiteSpace(name);
         ArgumentNullException.ThrowIfNull(limits);
+        if (uncertainty is { } unusable && !(double.IsFinite(unusable.Expanded) && unusable.Expanded >= 0))
+        {
+            // Samples so scattered (or so large) that their uncertainty overflows cannot be judged against limits:
+            // the reading is an error, never a pass, and says why.
+            return new Reading(name, value is { } f && double.IsFinite(f) ? f : null, limits.Unit, limits.Low, limits.High, Verdict.Error)
+            {
+                Samples = samples,
+                Note = $"the uncertainty of the value could not be evaluated (U = {unusable.Expanded.ToString(System.Globalization.CultureInfo.InvariantCulture)}): the samples are unusable",
+                At = at,
+            };
+        }
+
         var decision = Acceptance.Decide(value, limits, uncertainty?.Expanded);
         return new Reading(name, value is { } v && double.IsFinite(v) ? v : null, limits.Unit, limits.Low, limits.High, decision.Verdict)
         {

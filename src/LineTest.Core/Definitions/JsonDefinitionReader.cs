@@ -20,6 +20,18 @@ public static partial class JsonDefinitionReader
         ArgumentNullException.ThrowIfNull(utf8);
         var sha = Convert.ToHexStringLower(SHA256.HashData(utf8));
         var text = SkipBom(utf8);
+        if (FirstInvalidUtf8(text) is { } bad)
+        {
+            // The serialiser throws InvalidOperationException (not JsonException) on bytes that are not UTF-8, e.g. a
+            // file damaged on disk or saved in another encoding: report where, as for any other mistake in the file.
+            var badLine = 1 + text[..bad].Count((byte)'\n');
+            return new ParsedDefinition<T>(
+                null,
+                [new DefinitionProblem(file, badLine, "$", $"byte {bad} is not valid UTF-8 text; save the file as UTF-8 (it may be damaged or in another encoding)")],
+                sha,
+                JsonLocator.Build([]));
+        }
+
         var locator = JsonLocator.Build(text);
         try
         {
@@ -27,6 +39,15 @@ public static partial class JsonDefinitionReader
             if (value is null)
             {
                 return new ParsedDefinition<T>(null, [new DefinitionProblem(file, 1, "$", "the file holds null instead of an object")], sha, locator);
+            }
+
+            // A null entry in a list (e.g. "slots": [null]) is accepted by the serialiser, which does not apply
+            // nullable annotations to collection elements; the checkers expect objects, so refuse it here.
+            var nulls = NullListEntries(text);
+            if (nulls.Count > 0)
+            {
+                return new ParsedDefinition<T>(
+                    null, [.. nulls.Select(path => new DefinitionProblem(file, locator.LineOf(path), path, "the list entry is null; give a value"))], sha, locator);
             }
 
             return new ParsedDefinition<T>(value, [], sha, locator);
@@ -68,6 +89,67 @@ public static partial class JsonDefinitionReader
                 : $"the object needs a '{kinds.Value.Key}' key naming its kind (known: {string.Join(", ", kinds.Value.Kinds)})";
             return new ParsedDefinition<T>(null, [new DefinitionProblem(file, locator.LineOf(path), path, reason)], sha, locator);
         }
+    }
+
+    /// <summary>JSON paths of null entries in arrays, in document order.</summary>
+    private static List<string> NullListEntries(ReadOnlySpan<byte> text)
+    {
+        var paths = new List<string>();
+        using var document = JsonDocument.Parse(text.ToArray(), new JsonDocumentOptions { CommentHandling = JsonCommentHandling.Skip, AllowTrailingCommas = true });
+        Walk(document.RootElement, "$");
+        return paths;
+
+        void Walk(JsonElement element, string path)
+        {
+            switch (element.ValueKind)
+            {
+                case JsonValueKind.Object:
+                    foreach (var property in element.EnumerateObject())
+                    {
+                        Walk(property.Value, $"{path}.{property.Name}");
+                    }
+
+                    break;
+                case JsonValueKind.Array:
+                    var i = 0;
+                    foreach (var item in element.EnumerateArray())
+                    {
+                        var itemPath = $"{path}[{i++}]";
+                        if (item.ValueKind == JsonValueKind.Null)
+                        {
+                            paths.Add(itemPath);
+                        }
+                        else
+                        {
+                            Walk(item, itemPath);
+                        }
+                    }
+
+                    break;
+            }
+        }
+    }
+
+    /// <summary>Index of the first byte that does not belong to valid UTF-8, or null when all of it is valid.</summary>
+    private static int? FirstInvalidUtf8(ReadOnlySpan<byte> text)
+    {
+        if (System.Text.Unicode.Utf8.IsValid(text))
+        {
+            return null;
+        }
+
+        var index = 0;
+        while (index < text.Length)
+        {
+            if (System.Text.Rune.DecodeFromUtf8(text[index..], out _, out var consumed) != System.Buffers.OperationStatus.Done)
+            {
+                return index;
+            }
+
+            index += consumed;
+        }
+
+        return index;
     }
 
     /// <summary>Reads and parses a file; a missing or unreadable file becomes a problem, not an exception.</summary>

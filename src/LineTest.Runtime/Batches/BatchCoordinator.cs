@@ -34,6 +34,7 @@ public sealed class BatchCoordinator
     private readonly ILogger _logger;
     private readonly InstrumentTiming _timing;
     private readonly IPartFitting? _partFitting;
+    private readonly RunJournalWriter _journal;
     private double _lastReferenceRaw = double.NaN;
 
     // Written by the operator screen's thread, read by the coordinator's loop at step boundaries.
@@ -82,6 +83,7 @@ public sealed class BatchCoordinator
         _logger = logger;
         _timing = timing ?? new InstrumentTiming();
         _partFitting = partFitting;
+        _journal = new RunJournalWriter(sink as IRunJournal, fixture.Id, time, logger);
     }
 
     /// <summary>Runs the batch to its end. Throws <see cref="RunStorageException"/> when a run could not be stored.</summary>
@@ -113,6 +115,7 @@ public sealed class BatchCoordinator
         string? aborted = null;
         try
         {
+            await _journal.WriteAsync(batch).ConfigureAwait(false);
             var steps = request.Sequence.Steps;
             for (var i = 0; i < steps.Count; i++)
             {
@@ -132,6 +135,7 @@ public sealed class BatchCoordinator
                 await RunStepAsync(batch, steps[i], cancellationToken).ConfigureAwait(false);
                 await EndRejectedAsync(batch).ConfigureAwait(false);
                 await EndCancelledSlotsAsync(batch).ConfigureAwait(false);
+                await _journal.WriteAsync(batch).ConfigureAwait(false);
             }
 
             foreach (var unit in batch.Active)
@@ -820,7 +824,7 @@ public sealed class BatchCoordinator
         };
         var record = new RunRecord
         {
-            Id = Guid.CreateVersion7(_time.GetUtcNow()),
+            Id = unit.RunId,
             Serial = unit.Serial,
             Product = request.Sequence.Product,
             SequenceId = request.Sequence.Id,

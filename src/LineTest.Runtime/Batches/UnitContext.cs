@@ -10,7 +10,11 @@ internal sealed class UnitContext
     {
         Load = load;
         Started = started;
+        RunId = Guid.CreateVersion7(started);
     }
+
+    /// <summary>The run's id, fixed at load so the journal entry and the stored run share it.</summary>
+    public Guid RunId { get; }
 
     public SlotLoad Load { get; }
 

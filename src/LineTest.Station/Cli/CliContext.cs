@@ -19,6 +19,9 @@ public sealed record CliContext(
     TextWriter Error,
     ILoggerFactory Loggers)
 {
+    /// <summary>The clock for what a command records (e.g. when a sequence was released). Default: the system clock.</summary>
+    public TimeProvider Clock { get; init; } = TimeProvider.System;
+
     /// <summary>Prints a bad-input message and returns <see cref="ExitCodes.BadInput"/>.</summary>
     public int BadInput(string message)
     {

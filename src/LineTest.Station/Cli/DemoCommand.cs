@@ -26,9 +26,10 @@ public static class DemoCommand
         var fixture = new Option<string?>("--fixture") { Description = "Simulated fixture file (default: the station's)" };
         var lot = new Option<string?>("--lot") { Description = "Lot stored with every run" };
         var serial = new Option<bool>("--serial") { Description = "Reach the simulated instruments through the real serial drivers over pseudo-terminal ports (Linux)" };
+        var production = new Option<bool>("--production") { Description = "Production mode: run only a released sequence file (see 'linetest release')" };
         var command = new Command("demo", "Run a simulated production shift on the built-in simulator")
         {
-            units, slots, seed, results, json, sequence, fixture, lot, serial,
+            units, slots, seed, results, json, sequence, fixture, lot, serial, production,
         };
         command.SetAction(async (parse, ct) =>
         {
@@ -86,6 +87,9 @@ public static class DemoCommand
                     Station = options.Id,
                     Lot = parse.GetValue(lot) ?? options.Lot,
                     Serial = parse.GetValue(serial),
+                    Mode = parse.GetValue(production) ? ProductionGate.Production : options.Mode,
+                    SequenceFile = sequencePath,
+                    Notice = lines.WriteLine,
                 },
                 context.Loggers);
             ShiftSummary summary;
@@ -102,6 +106,11 @@ public static class DemoCommand
             {
                 context.Error.WriteLine($"linetest: --serial cannot run here: {ex.Message}");
                 return ExitCodes.RuntimeFailure;
+            }
+
+            if (shift.Refusal is { } refusal)
+            {
+                return context.BadInput($"production mode refuses the sequence: {refusal}");
             }
 
             if (asJson)

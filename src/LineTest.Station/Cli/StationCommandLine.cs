@@ -21,6 +21,8 @@ public static class StationCommandLine
             VerifyCommand.Create(context),
             ReportCommand.Create(context),
             ExportCommand.Create(context),
+            ReleaseCommand.Create(context),
+            CampaignCommand.Create(context),
         };
         return root;
     }

@@ -4,8 +4,11 @@ using LineTest.Storage.Store;
 
 namespace LineTest.Station.Composition;
 
-/// <summary>Writes each finished run to the result store before the coordinator moves on.</summary>
-public sealed class StoreSink : IRunSink
+/// <summary>
+/// Writes each finished run to the result store before the coordinator moves on, and keeps the store's journal of
+/// runs in progress up to date after every step.
+/// </summary>
+public sealed class StoreSink : IRunSink, IRunJournal
 {
     private readonly IResultStore _store;
     private readonly Action<RunRecord>? _afterStore;
@@ -24,4 +27,8 @@ public sealed class StoreSink : IRunSink
         await _store.AppendAsync(run, cancellationToken).ConfigureAwait(false);
         _afterStore?.Invoke(run);
     }
+
+    /// <inheritdoc />
+    public Task RunsInProgressAsync(IReadOnlyList<RunRecord> inProgress, CancellationToken cancellationToken) =>
+        _store.JournalAsync(inProgress, cancellationToken);
 }

@@ -42,6 +42,15 @@ public sealed record ShiftOptions
     /// </summary>
     public bool Serial { get; init; }
 
+    /// <summary><c>engineering</c> (default) or <c>production</c>; stored with every run. Production runs only a released sequence file.</summary>
+    public string Mode { get; init; } = "engineering";
+
+    /// <summary>The sequence file's path, named in a production refusal.</summary>
+    public string SequenceFile { get; init; } = "sequence";
+
+    /// <summary>Receives lines for the person watching (recovered runs at start-up), or null.</summary>
+    public Action<string>? Notice { get; init; }
+
     /// <summary>Virtual seconds the operator takes to unload one batch and load the next.</summary>
     public double ReloadSeconds { get; init; } = 30;
 }

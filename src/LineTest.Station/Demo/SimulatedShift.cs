@@ -27,7 +27,17 @@ public sealed class SimulatedShift
         _loggers = loggers;
     }
 
-    /// <summary>Runs the shift; <paramref name="runEnded"/> sees each run once it is stored.</summary>
+    /// <summary>Runs interrupted by the last stop and stored as such at the start of this shift.</summary>
+    public IReadOnlyList<RunRecord> Recovered { get; private set; } = [];
+
+    /// <summary>Why production mode refused the sequence (no unit was tested), or null.</summary>
+    public string? Refusal { get; private set; }
+
+    /// <summary>
+    /// Runs the shift; <paramref name="runEnded"/> sees each run once it is stored. First the source goes to standby
+    /// and runs left in progress by the last stop are stored as interrupted; in production mode a sequence that is
+    /// not released is then refused (see <see cref="Refusal"/>) before any unit is loaded.
+    /// </summary>
     public async Task<ShiftSummary> RunAsync(Action<RunRecord> runEnded, CancellationToken cancellationToken)
     {
         ArgumentNullException.ThrowIfNull(runEnded);
@@ -61,6 +71,33 @@ public sealed class SimulatedShift
             _loggers.CreateLogger<BatchCoordinator>(),
             partFitting: new SimulatedPartFitting(rig));
 
+        Recovered = await StartupRecovery.RunAsync(coordinator, store, _loggers.CreateLogger<SimulatedShift>(), cancellationToken).ConfigureAwait(false);
+        if (Recovered.Count > 0 && _options.Notice is { } notice)
+        {
+            notice(StartupRecovery.Message(Recovered.Count));
+            foreach (var run in Recovered)
+            {
+                notice($"  interrupted: {run.Serial} slot {run.Slot}, batch {run.BatchId}, {run.Readings.Count} readings kept");
+            }
+        }
+
+        Refusal = await ProductionGate.RefusalAsync(
+            _options.Mode, store, _options.Sequence.Id, _options.Sequence.Revision, _options.SequenceSha256, _options.SequenceFile, cancellationToken).ConfigureAwait(false);
+        if (Refusal is not null)
+        {
+            return new ShiftSummary
+            {
+                Units = 0,
+                Pass = 0,
+                Fail = 0,
+                Error = 0,
+                FirstPassYield = 0,
+                SimulatedSeconds = 0,
+                WallSeconds = TimeProvider.System.GetElapsedTime(wallStart).TotalSeconds,
+                ResultsPath = store.DatabasePath,
+            };
+        }
+
         var remaining = _options.Units;
         try
         {
@@ -84,6 +121,7 @@ public sealed class SimulatedShift
                     Loads = loads,
                     Operator = _options.Operator,
                     Lot = _options.Lot,
+                    Mode = _options.Mode,
                 };
                 await coordinator.RunAsync(request, cancellationToken).ConfigureAwait(false);
                 foreach (var load in loads)

@@ -10,6 +10,7 @@ using LineTest.Station.Cli;
 using LineTest.Station.Composition;
 using LineTest.Station.Screen;
 using LineTest.Storage.Sqlite;
+using LineTest.Storage.Store;
 using Microsoft.Extensions.Hosting;
 using Microsoft.Extensions.Logging;
 using Spectre.Console;
@@ -69,6 +70,14 @@ public sealed partial class StationService : BackgroundService
             _error.WriteLine($"STOPPED: results could not be stored ({ex.Message}). No new units are taken; call the test engineer.");
             ExitCode = ExitCodes.RuntimeFailure;
         }
+        catch (ResultStoreException ex)
+        {
+            // The results folder or database cannot be used at all (read-only, locked, full, not ours): no unit may be
+            // tested, since its run could not be kept.
+            LogStoreUnusable(_logger, ex.Failure.ToString(), ex.Message);
+            _error.WriteLine($"STOPPED: the results database cannot be used ({ex.Failure}): {ex.Message} No units are taken; call the test engineer.");
+            ExitCode = ExitCodes.RuntimeFailure;
+        }
         finally
         {
             _lifetime.StopApplication();
@@ -84,7 +93,8 @@ public sealed partial class StationService : BackgroundService
         }
 
         var fixture = fixtureResult.Value;
-        var sequenceResult = DefinitionFiles.LoadSequence(ContentRoot.Resolve(_root, _options.Sequence), fixture, _error);
+        var sequencePath = ContentRoot.Resolve(_root, _options.Sequence);
+        var sequenceResult = DefinitionFiles.LoadSequence(sequencePath, fixture, _error);
         if (!sequenceResult.IsSuccess)
         {
             return ExitCodes.BadInput;
@@ -127,6 +137,21 @@ public sealed partial class StationService : BackgroundService
         var sink = new StoreSink(store, run => plain?.WriteLine(DemoCommand.UnitLine(run)));
         var coordinator = new BatchCoordinator(rig.Instruments, fixture, ReferenceConversion.ToCelsius(sensor), clock, sink,
             new ScreenOperator(model, WaitForConfirmAsync, plain), model, _loggers.CreateLogger<BatchCoordinator>(), partFitting: rig.PartFitting);
+
+        var recovered = await StartupRecovery.RunAsync(coordinator, store, _logger, ct).ConfigureAwait(false);
+        if (recovered.Count > 0)
+        {
+            _error.WriteLine(StartupRecovery.Message(recovered.Count));
+            model.Prompt(StartupRecovery.Message(recovered.Count));
+        }
+
+        var refusal = await ProductionGate.RefusalAsync(_options.Mode, store, sequence.Id, sequence.Revision, sequenceResult.Sha256!, sequencePath, ct)
+            .ConfigureAwait(false);
+        if (refusal is not null)
+        {
+            _error.WriteLine($"linetest: production mode refuses the sequence: {refusal}");
+            return ExitCodes.BadInput;
+        }
 
         WriteSafetyNote(interactive);
         using var screenStop = new CancellationTokenSource();
@@ -431,6 +456,9 @@ public sealed partial class StationService : BackgroundService
         model.Prompt(text);
         plain?.WriteLine(text);
     }
+
+    [LoggerMessage(EventId = 2012, Level = LogLevel.Critical, Message = "The results database cannot be used ({Failure}): {Reason}. The station takes no units.")]
+    private static partial void LogStoreUnusable(ILogger logger, string failure, string reason);
 
     [LoggerMessage(EventId = 2001, Level = LogLevel.Information, Message = "Scanned {Serial} into slot {Slot} (retest: {IsRetest})")]
     private static partial void LogScanned(ILogger logger, string serial, int slot, bool isRetest);

@@ -17,7 +17,7 @@ namespace LineTest.Storage.Sqlite;
 /// may read at any time (WAL). A second store on the same file also works: the chain's previous hash is read
 /// inside each write transaction (<c>BEGIN IMMEDIATE</c>), so two writers can never fork the chain.
 /// </remarks>
-public sealed class SqliteResultStore : IResultStore
+public sealed partial class SqliteResultStore : IResultStore
 {
     // Serialises appends and disposal; the connection and commands below are only touched while holding it.
     private readonly SemaphoreSlim _writeLock = new(1, 1);
@@ -199,6 +199,9 @@ public sealed class SqliteResultStore : IResultStore
             _insertReading.ExecuteNonQuery();
         }
 
+        // The run leaves the journal of runs in progress in the same transaction that stores it: after a crash it
+        // is either finished (in runs) or in progress (in the journal), never both and never neither.
+        EndJournalEntry(transaction, values[0]!);
         transaction.Commit();
     }
 

@@ -9,7 +9,7 @@ namespace LineTest.Storage.Sqlite;
 internal static class SqliteSchema
 {
     /// <summary>The schema version this code writes and reads.</summary>
-    public const int CurrentVersion = 1;
+    public const int CurrentVersion = 2;
 
     /// <summary>'LTR1' in ASCII: identifies a LineTest results file (SQLite file format, header offset 68).</summary>
     public const int ApplicationId = 0x4C545231;
@@ -72,6 +72,31 @@ internal static class SqliteSchema
         CREATE INDEX ix_readings_name ON readings (name);
         """;
 
+    // Version 2 adds, without touching the tables of version 1: the journal of runs in progress (one row per unit
+    // under test, replaced after every step and deleted in the transaction that appends the finished run) and the
+    // release list of production mode.
+    private const string AddV2 = """
+        CREATE TABLE runs_in_progress (
+            id                    TEXT    PRIMARY KEY,
+            serial                TEXT    NOT NULL,
+            slot                  INTEGER NOT NULL,
+            batch_id              TEXT,
+            started_utc           TEXT    NOT NULL,
+            updated_utc           TEXT    NOT NULL,
+            record_json           TEXT    NOT NULL
+        );
+        CREATE TABLE releases (
+            seq                   INTEGER PRIMARY KEY AUTOINCREMENT,
+            sequence_id           TEXT    NOT NULL,
+            sequence_revision     INTEGER NOT NULL,
+            sha256                TEXT    NOT NULL,
+            released_by           TEXT    NOT NULL,
+            released_utc          TEXT    NOT NULL,
+            file                  TEXT    NOT NULL
+        );
+        CREATE INDEX ix_releases_sha256 ON releases (sha256);
+        """;
+
     /// <summary>
     /// Creates the schema in an empty database or checks an existing one. Never drops or rewrites data.
     /// Returns a plain reason when the file cannot be used, or null.
@@ -85,13 +110,21 @@ internal static class SqliteSchema
             return problem;
         }
 
-        if (ReadVersion(connection, transaction) == 0)
+        var version = ReadVersion(connection, transaction);
+        if (version == 0)
         {
             Execute(connection, transaction, CreateV1);
-            Execute(connection, transaction, $"PRAGMA application_id = {ApplicationId}; PRAGMA user_version = {CurrentVersion};");
+            Execute(connection, transaction, $"PRAGMA application_id = {ApplicationId}; PRAGMA user_version = 1;");
+            version = 1;
         }
 
-        // Later versions add their migrations here, one step per version, inside this transaction.
+        // One step per version, inside this transaction: a crash mid-migration leaves the file as it was.
+        if (version == 1)
+        {
+            Execute(connection, transaction, AddV2);
+            Execute(connection, transaction, "PRAGMA user_version = 2;");
+        }
+
         transaction.Commit();
         return null;
     }

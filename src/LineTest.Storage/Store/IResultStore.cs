@@ -20,4 +20,13 @@ public interface IResultStore : IAsyncDisposable
     /// <param name="ct">Cancels waiting for the writer; a write that has started is always finished.</param>
     /// <exception cref="ResultStoreException">The run could not be stored (disk full, read-only, locked, ...).</exception>
     Task AppendAsync(RunRecord run, CancellationToken ct);
+
+    /// <summary>
+    /// Writes (or replaces) the journal entries of runs still in progress, so a crash cannot lose them; storing a run
+    /// with <see cref="AppendAsync"/> removes its entry in the same transaction. A store without a journal keeps nothing.
+    /// </summary>
+    /// <param name="inProgress">Snapshots of the unfinished runs.</param>
+    /// <param name="ct">Cancels waiting for the writer.</param>
+    /// <exception cref="ResultStoreException">The journal could not be written.</exception>
+    Task JournalAsync(IReadOnlyList<RunRecord> inProgress, CancellationToken ct) => Task.CompletedTask;
 }

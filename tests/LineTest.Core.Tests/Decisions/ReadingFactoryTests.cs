@@ -47,4 +47,16 @@ public sealed class ReadingFactoryTests
         Assert.Null(reading.Value);
         Assert.Equal(Verdict.Error, reading.Verdict);
     }
+
+    [Fact]
+    public void Create_InfiniteUncertainty_ErrorReadingInsteadOfException()
+    {
+        // Regression: found by fuzzing, samples whose uncertainty overflowed made Acceptance.Decide throw.
+        var limits = new LimitSpec { Low = -0.5, High = 0.5, Unit = "degC", Rule = DecisionRule.Guarded };
+
+        var reading = ReadingFactory.Create("verify.error", 0.1, limits, new ExpandedUncertainty(double.PositiveInfinity, 2), 10);
+
+        Assert.Equal(Verdict.Error, reading.Verdict);
+        Assert.Contains("could not be evaluated", reading.Note, StringComparison.Ordinal);
+    }
 }

@@ -77,4 +77,32 @@ public sealed class JsonDefinitionReaderTests
         Assert.Null(parsed.Value);
         Assert.Equal("file not found", Assert.Single(parsed.Problems).Reason);
     }
+
+    [Fact]
+    public void Parse_BytesThatAreNotUtf8_ProblemAtTheirLineInsteadOfException()
+    {
+        // Regression: found by fuzzing, invalid UTF-8 made the serialiser throw InvalidOperationException.
+        var bytes = TestFiles.Utf8("{\n  \"id\": \"x\",\n  \"product\": \"P\xff\"\n}");
+        bytes[bytes.IndexOf((byte)0xC3)] = 0xFF;
+
+        var parsed = JsonDefinitionReader.Parse<SequenceDefinition>("s.json", bytes);
+
+        var problem = Assert.Single(parsed.Problems);
+        Assert.Equal(3, problem.Line);
+        Assert.Contains("not valid UTF-8", problem.Reason, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Parse_NullListEntry_ProblemAtItsPathInsteadOfException()
+    {
+        // Regression: found by fuzzing, "setpoints": [null] reached the checker and threw NullReferenceException.
+        var text = TestFiles.SequenceBase.Replace("\"setpoints\": [", "\"setpoints\": [null, ", StringComparison.Ordinal);
+        Assert.NotEqual(TestFiles.SequenceBase, text);
+
+        var result = SequenceLoader.Load("s.json", TestFiles.Utf8(text));
+
+        var problem = Assert.Single(result.Problems);
+        Assert.Equal("$.setpoints[0]", problem.JsonPath);
+        Assert.NotNull(problem.Line);
+    }
 }

@@ -1,0 +1,36 @@
+using LineTest.Rig.Instruments;
+
+namespace LineTest.Rig.Fuzzing;
+
+/// <summary>
+/// Wraps a fixture's instruments so that, at a given rate, any reply is replaced by garbage drawn from random bytes
+/// (see <see cref="GarbageGenerator"/>). Used to show that no reply, however wrong, makes the coordinator crash:
+/// every unit still ends pass, fail or error.
+/// </summary>
+public sealed class GarbageInstruments
+{
+    private readonly GarbageGenerator _garbage;
+
+    /// <summary>Wraps <paramref name="inner"/>.</summary>
+    /// <param name="inner">The real (or simulated) instruments.</param>
+    /// <param name="seed">Seed of the garbage (same seed and calls, same garbage).</param>
+    /// <param name="rate">Fraction of replies replaced, 0 … 1.</param>
+    public GarbageInstruments(RigInstruments inner, int seed, double rate)
+    {
+        ArgumentNullException.ThrowIfNull(inner);
+        ArgumentOutOfRangeException.ThrowIfNegative(rate);
+        ArgumentOutOfRangeException.ThrowIfGreaterThan(rate, 1);
+        _garbage = new GarbageGenerator(seed, rate);
+        Instruments = new RigInstruments(
+            new GarbageSource(inner.Source, _garbage),
+            new GarbageReference(inner.Reference, _garbage),
+            new GarbageVoltmeter(inner.Meter, _garbage),
+            inner.UnitLinks.ToDictionary(p => p.Key, p => (IUnitLink)new GarbageUnitLink(p.Value, _garbage, $"unit slot {p.Key}")));
+    }
+
+    /// <summary>The wrapped instruments.</summary>
+    public RigInstruments Instruments { get; }
+
+    /// <summary>How many replies have been replaced so far.</summary>
+    public int GarbageReplies => _garbage.Count;
+}

@@ -1,0 +1,145 @@
+using LineTest.Core.Definitions;
+using LineTest.Core.Fixtures;
+using LineTest.Core.Results;
+using LineTest.Core.Sequences;
+using LineTest.Rig.Fuzzing;
+using LineTest.Rig.Simulation;
+using LineTest.Runtime.Batches;
+using LineTest.Station.Composition;
+using Microsoft.Extensions.Logging.Abstractions;
+
+namespace LineTest.Station.Campaign;
+
+/// <summary>
+/// Fuzzing: damaged sequence and fixture files must give problems with a location (or load), never an exception;
+/// instruments that reply with garbage must never crash the coordinator: every unit ends pass, fail or error.
+/// </summary>
+/// <param name="fixture">A good simulator fixture (for the garbage batches and to check damaged sequences against).</param>
+/// <param name="fixtureBytes">Its file's bytes (what is damaged).</param>
+/// <param name="sequence">A good sequence.</param>
+/// <param name="sequenceBytes">Its file's bytes.</param>
+/// <param name="sequenceSha256">Its hash.</param>
+/// <param name="seed">Seed of every random draw.</param>
+public sealed class Fuzzer(FixtureDefinition fixture, byte[] fixtureBytes, SequenceDefinition sequence, byte[] sequenceBytes, string sequenceSha256, int seed)
+{
+    private const int CrashesKept = 10;
+
+    /// <summary>Runs <paramref name="loaderCases"/> damaged files and <paramref name="garbageBatches"/> batches on garbage instruments.</summary>
+    public async Task<FuzzSummary> RunAsync(int loaderCases, int garbageBatches, CancellationToken cancellationToken)
+    {
+        ArgumentOutOfRangeException.ThrowIfNegative(loaderCases);
+        ArgumentOutOfRangeException.ThrowIfNegative(garbageBatches);
+        var wallStart = TimeProvider.System.GetTimestamp();
+        var crashes = new List<string>();
+        var mutator = new DefinitionMutator(seed);
+        int loaded = 0, refused = 0, loaderCrashes = 0, unlocated = 0;
+        for (var i = 0; i < loaderCases; i++)
+        {
+            cancellationToken.ThrowIfCancellationRequested();
+            var isSequence = i % 2 == 0;
+            var bytes = mutator.Mutate(isSequence ? sequenceBytes : fixtureBytes);
+            try
+            {
+                IReadOnlyList<DefinitionProblem> problems = isSequence
+                    ? SequenceLoader.Load("fuzz-sequence.json", bytes, fixture).Problems
+                    : FixtureLoader.Load("fuzz-fixture.json", bytes, ReferenceConversion.CheckSensor).Problems;
+                if (problems.Count == 0)
+                {
+                    loaded++;
+                }
+                else
+                {
+                    refused++;
+                    unlocated += problems.Count(p => !(p.Line is > 0 || p.JsonPath.StartsWith('$')));
+                }
+            }
+            catch (Exception ex)
+            {
+                loaderCrashes++;
+                Keep(crashes, $"loader case {i} ({(isSequence ? "sequence" : "fixture")}): {ex.GetType().Name}: {ex.Message} {Where(ex)}");
+            }
+        }
+
+        int units = 0, pass = 0, fail = 0, error = 0, unhandled = 0, noVerdict = 0, wrong = 0, replies = 0;
+        for (var b = 0; b < garbageBatches; b++)
+        {
+            cancellationToken.ThrowIfCancellationRequested();
+            var batchSeed = unchecked(seed + (b * 104729));
+            var rates = new Random(batchSeed);
+            var clock = new VirtualTimeProvider(new DateTimeOffset(2026, 3, 16, 6, 0, 0, TimeSpan.Zero));
+            var sensor = ReferenceConversion.SensorOf(fixture);
+            var rig = new SimulatedRig(fixture, batchSeed, clock, ReferenceConversion.FromCelsius(sensor));
+            var factory = new SimulatedUnitFactory(batchSeed, rig.Simulation, SimulatedUnitDesign.ForProduct(sequence.Product)!);
+            var garbage = new GarbageInstruments(rig.Instruments, batchSeed, 0.002 + (rates.NextDouble() * 0.1));
+            var sink = new CollectingSink();
+            var coordinator = new BatchCoordinator(garbage.Instruments, fixture, ReferenceConversion.ToCelsius(sensor), clock, sink,
+                new AutoConfirmOperator(), observer: null, NullLogger.Instance, partFitting: new SimulatedPartFitting(rig));
+            var loads = new List<SlotLoad>();
+            var byserial = new Dictionary<string, SimulatedUnit>(StringComparer.Ordinal);
+            foreach (var slot in fixture.Slots.Select(s => s.Slot).Order())
+            {
+                var unit = factory.NextUnit();
+                rig.Load(slot, unit);
+                byserial[unit.Serial] = unit;
+                loads.Add(new SlotLoad(slot, unit.Serial));
+            }
+
+            units += loads.Count;
+            try
+            {
+                var outcome = await coordinator.RunAsync(
+                    new BatchRequest { Sequence = sequence, SequenceSha256 = sequenceSha256, Station = "FUZZ", Loads = loads }, cancellationToken)
+                    .ConfigureAwait(false);
+                noVerdict += loads.Count - outcome.Runs.Count(r => r.Verdict is Verdict.Pass or Verdict.Fail or Verdict.Error);
+                noVerdict += loads.Count(l => sink.Runs.Count(r => r.Serial == l.Serial) != 1);
+                foreach (var run in outcome.Runs)
+                {
+                    pass += run.Verdict == Verdict.Pass ? 1 : 0;
+                    fail += run.Verdict == Verdict.Fail ? 1 : 0;
+                    error += run.Verdict == Verdict.Error ? 1 : 0;
+                    wrong += run.Verdict == Verdict.Pass && FaultCampaign.TrulyOutOfLimits(byserial[run.Serial], sequence) ? 1 : 0;
+                }
+            }
+            catch (Exception ex) when (ex is not OperationCanceledException || !cancellationToken.IsCancellationRequested)
+            {
+                unhandled++;
+                noVerdict += loads.Count - sink.Runs.Count;
+                Keep(crashes, $"garbage batch {b} (seed {batchSeed}): {ex.GetType().Name}: {ex.Message} {Where(ex)}");
+            }
+
+            replies += garbage.GarbageReplies;
+        }
+
+        return new FuzzSummary
+        {
+            LoaderCases = loaderCases,
+            Loaded = loaded,
+            Refused = refused,
+            LoaderCrashes = loaderCrashes,
+            ProblemsWithoutLocation = unlocated,
+            GarbageBatches = garbageBatches,
+            GarbageReplies = replies,
+            Units = units,
+            Pass = pass,
+            Fail = fail,
+            Error = error,
+            UnhandledInBatches = unhandled,
+            UnitsWithoutVerdict = noVerdict,
+            WrongPasses = wrong,
+            FirstCrashes = crashes,
+            WallSeconds = TimeProvider.System.GetElapsedTime(wallStart).TotalSeconds,
+        };
+    }
+
+    /// <summary>The innermost frames of the stack, for the bug report.</summary>
+    private static string Where(Exception ex) =>
+        string.Join(" <- ", (ex.StackTrace ?? string.Empty).Split('\n', StringSplitOptions.RemoveEmptyEntries | StringSplitOptions.TrimEntries).Take(3));
+
+    private static void Keep(List<string> crashes, string message)
+    {
+        if (crashes.Count < CrashesKept)
+        {
+            crashes.Add(message);
+        }
+    }
+}
