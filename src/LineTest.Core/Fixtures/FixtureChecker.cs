@@ -32,10 +32,12 @@ public static class FixtureChecker
             problems.AddIf(meter.Port is null, "$.meter", "a serial rig needs the meter's port");
         }
 
+        CheckSourceMeter(fixture, problems);
         if (fixture.Simulation is { } sim)
         {
             problems.AddIf(!(sim.UnitLagTimeConstantSeconds > 0), "$.simulation.unitLagTimeConstantSeconds", "must be positive");
             problems.AddIf(sim.DefectRate is < 0 or > 1, "$.simulation.defectRate", "must be between 0 and 1");
+            problems.AddIf(sim.SensorDefectRate is < 0 or > 1, "$.simulation.sensorDefectRate", "must be between 0 and 1");
             problems.AddIf(sim.SlotOffsetsC.Count > fixture.Slots.Count, "$.simulation.slotOffsetsC", "more offsets than slots");
         }
 
@@ -86,6 +88,39 @@ public static class FixtureChecker
             problems.AddIf(!(slot.SupplyShuntOhms > 0), $"{path}.supplyShuntOhms", "the shunt resistance must be positive");
             problems.AddIf(fixture.Rig == "serial" && slot.UnitPort is null, $"{path}.unitPort", "a serial rig needs each slot's unit port");
         }
+    }
+
+    private static void CheckSourceMeter(FixtureDefinition fixture, ProblemList problems)
+    {
+        var smu = fixture.SourceMeter;
+        var channels = new Dictionary<int, int>();
+        for (var i = 0; i < fixture.Slots.Count; i++)
+        {
+            var slot = fixture.Slots[i];
+            if (slot.SmuChannel is not { } channel)
+            {
+                continue;
+            }
+
+            var path = $"$.slots[{i}].smuChannel";
+            problems.AddIf(smu is null, path, "a slot with an SMU channel needs the fixture's 'sourceMeter' object");
+            problems.AddIf(channel < 1, path, "SMU channels start at 1");
+            if (!channels.TryAdd(channel, slot.Slot))
+            {
+                problems.Add(path, $"SMU channel {channel} is already wired to slot {channels[channel]}");
+            }
+        }
+
+        if (smu is null)
+        {
+            return;
+        }
+
+        problems.AddIf(!(smu.ComplianceVolts > 0) || !double.IsFinite(smu.ComplianceVolts), "$.sourceMeter.complianceVolts", "the compliance must be a positive number of volts");
+        problems.AddIf(!(smu.MaxCurrentAmps > 0) || !double.IsFinite(smu.MaxCurrentAmps), "$.sourceMeter.maxCurrentAmps", "the largest current must be a positive number of amperes");
+        problems.AddIf(!(smu.NoiseVolts >= 0) || !double.IsFinite(smu.NoiseVolts), "$.sourceMeter.noiseVolts", "the noise must be zero or a positive number of volts");
+        problems.AddIf(fixture.Rig == "serial" && smu.Port is null, "$.sourceMeter", "a serial rig needs the source-measure unit's port");
+        problems.AddIf(channels.Count == 0, "$.sourceMeter", "no slot is wired to the source-measure unit: give each slot its smuChannel");
     }
 
     private static string F(double value) => value.ToString("0.###", CultureInfo.InvariantCulture);

@@ -31,6 +31,9 @@ public sealed record FixtureDefinition
     /// <summary>The DC voltmeter with its channel scanner.</summary>
     public required MeterDefinition Meter { get; init; }
 
+    /// <summary>The source-measure unit for I–V sweeps, or null when the fixture has none.</summary>
+    public SourceMeterDefinition? SourceMeter { get; init; }
+
     /// <summary>The slots, each holding one unit.</summary>
     public required IReadOnlyList<SlotDefinition> Slots { get; init; }
 

@@ -20,4 +20,10 @@ public sealed record SimulationDefinition
 
     /// <summary>Share of units that are defective (open sensor, stuck DAC or silent).</summary>
     public double DefectRate { get; init; } = 0.04;
+
+    /// <summary>
+    /// Share of otherwise good units whose sensing diode is faulty (high series resistance, leaky junction or the wrong
+    /// part, chosen evenly): rare, so that yields stay believable. Found by an I–V sweep.
+    /// </summary>
+    public double SensorDefectRate { get; init; } = 0.006;
 }

@@ -15,6 +15,9 @@ public sealed record SlotDefinition
     /// <summary>Supply shunt resistance, Ω; supply current = shunt volts / this.</summary>
     public double SupplyShuntOhms { get; init; } = 10;
 
+    /// <summary>Source-measure unit channel wired to the slot's sensor, or null when the slot has none.</summary>
+    public int? SmuChannel { get; init; }
+
     /// <summary>The unit's own serial link.</summary>
     public PortDefinition? UnitPort { get; init; }
 }

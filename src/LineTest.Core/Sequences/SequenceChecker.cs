@@ -17,6 +17,9 @@ public static class SequenceChecker
     private static readonly string[] VoltageUnits = ["V", "mV", "uV"];
     private static readonly string[] TemperatureDifferenceUnits = ["degC", "K"];
     private static readonly string[] CountUnits = ["count"];
+    private static readonly string[] RatioUnits = ["1"];
+    private static readonly string[] ResistanceUnits = ["ohm", "kohm"];
+    private static readonly string[] SlopeUnits = ["mV/degC"];
 
     /// <summary>Checks <paramref name="sequence"/>; with a fixture, also that every setpoint is inside its safe range.</summary>
     public static ProblemList Check(SequenceDefinition sequence, FixtureDefinition? fixture)
@@ -33,6 +36,7 @@ public static class SequenceChecker
         CheckTrim(sequence.Trim, problems);
         CheckSoakSensitivity(sequence, problems);
         CheckSteps(sequence, setpoints, problems);
+        IvSweepRules.Check(sequence, fixture, problems);
         return problems;
     }
 
@@ -319,6 +323,9 @@ public static class SequenceChecker
                 case PromptStep prompt:
                     problems.AddIf(string.IsNullOrWhiteSpace(prompt.Text), $"{path}.text", "the prompt text must not be empty");
                     break;
+                case IvSweepStep sweep:
+                    RequireSettled(sweep.Setpoint, settledAt, setpoints, path, problems);
+                    break;
                 case IdentifyStep:
                     break;
                 default:
@@ -378,6 +385,24 @@ public static class SequenceChecker
 
     private static void Samples(int samples, string path, ProblemList problems) =>
         problems.AddIf(samples < 1, $"{path}.samples", $"samples must be 1 or more, not {samples}");
+
+    /// <summary>Limits of an I–V sweep reading, by their JSON key: which units fit.</summary>
+    internal static void CheckSweepLimits(LimitSpec? limits, string path, string key, ProblemList problems)
+    {
+        if (limits is null)
+        {
+            return;
+        }
+
+        var units = key switch
+        {
+            "n" or "log10Is" => RatioUnits,
+            "rsOhms" => ResistanceUnits,
+            "tempco" => SlopeUnits,
+            _ => VoltageUnits,
+        };
+        CheckLimits(limits, $"{path}.{key}", units, problems);
+    }
 
     private static void CheckLimits(LimitSpec limits, string path, string[] allowedUnits, ProblemList problems)
     {

@@ -39,6 +39,12 @@ public sealed record SequenceDefinition
     /// <summary>The trim method and its parameters, if the product is trimmed.</summary>
     public TrimDefinition? Trim { get; init; }
 
+    /// <summary>
+    /// The sensor's nominal bias current in the product, amperes: where I–V sweeps report the forward voltage and its
+    /// temperature coefficient (a step's own <c>nominalBiasAmps</c> overrides it).
+    /// </summary>
+    public double? NominalBiasAmps { get; init; }
+
     /// <summary>Stop a unit at its first failing reading (it keeps its slot until unload). Default true.</summary>
     public bool StopOnFail { get; init; } = true;
 

@@ -15,6 +15,7 @@ namespace LineTest.Core.Sequences;
 [JsonDerivedType(typeof(TrimStep), "trim")]
 [JsonDerivedType(typeof(VerifyStep), "verify")]
 [JsonDerivedType(typeof(PromptStep), "prompt")]
+[JsonDerivedType(typeof(IvSweepStep), "iv-sweep")]
 public abstract record StepDefinition
 {
     /// <summary>Step name, used as the reading name or its prefix. Defaults per kind.</summary>

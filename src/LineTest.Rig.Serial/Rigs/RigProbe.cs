@@ -11,7 +11,7 @@ namespace LineTest.Rig.Serial.Rigs;
 /// </summary>
 public static class RigProbe
 {
-    /// <summary>Probes the source, reference, meter and every unit link, in that order.</summary>
+    /// <summary>Probes the source, reference, meter, the source-measure unit if there is one, and every unit link, in that order.</summary>
     /// <param name="rig">The rig.</param>
     /// <param name="meterChannel">The channel the meter reads for its one reading (a slot's output channel).</param>
     /// <param name="cancellationToken">Cancels the probe.</param>
@@ -29,6 +29,17 @@ public static class RigProbe
                 return string.Create(CultureInfo.InvariantCulture, $"channel {meterChannel}: {volts:F6} V");
             }, cancellationToken).ConfigureAwait(false),
         };
+        if (rig.SourceMeter is { } smu)
+        {
+            // With its output off the SMU forces no current: its reading is the open-terminal voltage, about 0 V.
+            results.Add(await ProbeAsync(smu, async ct =>
+            {
+                await smu.ConfigureAsync(ct).ConfigureAwait(false);
+                var reading = await smu.MeasureVoltsAsync(ct).ConfigureAwait(false);
+                return string.Create(CultureInfo.InvariantCulture, $"output off: {reading.Volts:F6} V{(reading.InCompliance ? " (in compliance)" : string.Empty)}");
+            }, cancellationToken).ConfigureAwait(false));
+        }
+
         foreach (var (slot, link) in rig.UnitLinks.OrderBy(p => p.Key))
         {
             results.Add(await ProbeUnitAsync(slot, link.Line, link, cancellationToken).ConfigureAwait(false));

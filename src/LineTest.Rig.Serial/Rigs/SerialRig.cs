@@ -3,6 +3,7 @@ using LineTest.Rig.Instruments;
 using LineTest.Rig.Serial.Meter;
 using LineTest.Rig.Serial.Reference;
 using LineTest.Rig.Serial.Source;
+using LineTest.Rig.Serial.SourceMeter;
 using LineTest.Rig.Serial.Transport;
 using LineTest.Rig.Serial.UnitLink;
 using Microsoft.Extensions.Logging;
@@ -15,14 +16,19 @@ namespace LineTest.Rig.Serial.Rigs;
 /// </summary>
 public sealed class SerialRig : IDisposable
 {
-    private SerialRig(SerialTemperatureSource source, SerialReferenceReadout reference, ScpiVoltmeter meter, IReadOnlyDictionary<int, SerialUnitLink> unitLinks)
+    private SerialRig(
+        SerialTemperatureSource source, SerialReferenceReadout reference, ScpiVoltmeter meter, IReadOnlyDictionary<int, SerialUnitLink> unitLinks, ScpiSourceMeter? sourceMeter)
     {
         Source = source;
         Reference = reference;
         Meter = meter;
         UnitLinks = unitLinks;
-        Instruments = new RigInstruments(source, reference, meter, unitLinks.ToDictionary(p => p.Key, p => (IUnitLink)p.Value));
+        SourceMeter = sourceMeter;
+        Instruments = new RigInstruments(source, reference, meter, unitLinks.ToDictionary(p => p.Key, p => (IUnitLink)p.Value), sourceMeter);
     }
+
+    /// <summary>The source-measure unit, or null when the fixture has none.</summary>
+    public ScpiSourceMeter? SourceMeter { get; }
 
     /// <summary>The temperature source.</summary>
     public SerialTemperatureSource Source { get; }
@@ -60,6 +66,11 @@ public sealed class SerialRig : IDisposable
         Need(fixture.Source.Port, "$.source");
         Need(fixture.Reference.Port, "$.reference");
         Need(fixture.Meter.Port, "$.meter");
+        if (fixture.SourceMeter is { } smu)
+        {
+            Need(smu.Port, "$.sourceMeter");
+        }
+
         foreach (var slot in fixture.Slots)
         {
             Need(slot.UnitPort, $"slot {slot.Slot}");
@@ -95,7 +106,8 @@ public sealed class SerialRig : IDisposable
             new SerialTemperatureSource(fixture.Source, Line("source", fixture.Source.Port!, PlainFraming.Instance)),
             new SerialReferenceReadout(Line("reference", fixture.Reference.Port!, PlainFraming.Instance), ReferenceCommands.UnitFor(fixture.Reference.Sensor.Kind)),
             new ScpiVoltmeter(fixture.Meter, Line("meter", fixture.Meter.Port!, PlainFraming.Instance)),
-            fixture.Slots.ToDictionary(s => s.Slot, s => new SerialUnitLink(Line($"unit slot {s.Slot}", s.UnitPort!, ChecksumFraming.Instance))));
+            fixture.Slots.ToDictionary(s => s.Slot, s => new SerialUnitLink(Line($"unit slot {s.Slot}", s.UnitPort!, ChecksumFraming.Instance))),
+            fixture.SourceMeter is { } smu ? new ScpiSourceMeter(smu, Line("source-measure unit", smu.Port!, PlainFraming.Instance)) : null);
     }
 
     /// <summary>Closes every port.</summary>
@@ -104,6 +116,7 @@ public sealed class SerialRig : IDisposable
         Source.Line.Dispose();
         Reference.Line.Dispose();
         Meter.Line.Dispose();
+        SourceMeter?.Line.Dispose();
         foreach (var link in UnitLinks.Values)
         {
             link.Line.Dispose();

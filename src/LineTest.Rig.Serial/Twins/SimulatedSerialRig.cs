@@ -39,6 +39,7 @@ public sealed class SimulatedSerialRig : IDisposable
             Source = new SourceTwin(rig.Block, Port("source"), logger);
             Reference = new ReferenceTwin(rig.Reference, ReferenceCommands.UnitFor(fixture.Reference.Sensor.Kind), Port("reference"), logger);
             Meter = new MeterTwin(rig.Meter, Port("meter"), logger);
+            SourceMeter = rig.SourceMeter is { } smu ? new SourceMeterTwin(smu, Port("smu"), logger) : null;
             foreach (var (slot, link) in rig.UnitLinks)
             {
                 _units[slot] = new UnitLinkTwin(link, Port($"unit{slot}"), logger);
@@ -57,6 +58,7 @@ public sealed class SimulatedSerialRig : IDisposable
                 Source = fixture.Source with { Port = Def("source", Source.Server.PortName) },
                 Reference = fixture.Reference with { Port = Def("reference", Reference.Server.PortName) },
                 Meter = fixture.Meter with { Port = Def("meter", Meter.Server.PortName) },
+                SourceMeter = SourceMeter is null ? null : fixture.SourceMeter! with { Port = Def("source-measure unit", SourceMeter.Server.PortName) },
                 Slots = [.. fixture.Slots.Select(s => s with { UnitPort = Def($"unit slot {s.Slot}", _units[s.Slot].Server.PortName, options.UnitTimeoutMs) })],
             };
             Drivers = SerialRig.Open(Fixture, loggers);
@@ -89,6 +91,9 @@ public sealed class SimulatedSerialRig : IDisposable
     /// <summary>The meter twin.</summary>
     public MeterTwin Meter { get; } = null!;
 
+    /// <summary>The source-measure unit twin, or null when the fixture has none.</summary>
+    public SourceMeterTwin? SourceMeter { get; }
+
     /// <summary>Each slot's unit-link twin.</summary>
     public IReadOnlyDictionary<int, UnitLinkTwin> Units => _units;
 
@@ -105,6 +110,7 @@ public sealed class SimulatedSerialRig : IDisposable
         Source?.Dispose();
         Reference?.Dispose();
         Meter?.Dispose();
+        SourceMeter?.Dispose();
         foreach (var unit in _units.Values)
         {
             unit.Dispose();

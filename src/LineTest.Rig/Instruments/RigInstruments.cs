@@ -5,8 +5,10 @@ namespace LineTest.Rig.Instruments;
 /// <param name="Reference">Reference thermometer readout.</param>
 /// <param name="Meter">DC voltmeter with channel scanner.</param>
 /// <param name="UnitLinks">Each slot's unit link, keyed by slot number.</param>
+/// <param name="SourceMeter">The source-measure unit for I–V sweeps, or null when the fixture has none.</param>
 public sealed record RigInstruments(
     ITemperatureSource Source,
     IReferenceReadout Reference,
     IVoltmeter Meter,
-    IReadOnlyDictionary<int, IUnitLink> UnitLinks);
+    IReadOnlyDictionary<int, IUnitLink> UnitLinks,
+    ISourceMeter? SourceMeter = null);

@@ -40,6 +40,9 @@ public sealed record RigFault
     /// <summary>The source stops answering after <paramref name="afterCommands"/> more commands.</summary>
     public static RigFault SourceSilent(int afterCommands = 0) => new(RigFaultKind.SourceSilent, afterCommands, null, 0);
 
+    /// <summary>The source-measure unit falls silent after <paramref name="afterCommands"/> commands.</summary>
+    public static RigFault SourceMeterSilent(int afterCommands = 0) => new(RigFaultKind.SourceMeterSilent, afterCommands, null, 0);
+
     /// <summary>The source's heater fails now: the block drifts to ambient and refuses setpoints.</summary>
     public static RigFault SourceHeaterFault() => new(RigFaultKind.SourceHeaterFault, 0, null, 0);
 

@@ -27,6 +27,9 @@ public enum RigFaultKind
     /// <summary>The reference sensor drifts: it reports a temperature that departs from the well's at a set rate.</summary>
     ReferenceDrift,
 
+    /// <summary>The source-measure unit stops answering: every command ends in <c>NoAnswer</c>.</summary>
+    SourceMeterSilent,
+
     /// <summary>A unit stops answering on its link: commands end in <c>NoAnswer</c>.</summary>
     UnitSilent,
 

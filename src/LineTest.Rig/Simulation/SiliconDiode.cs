@@ -29,6 +29,12 @@ public sealed record SiliconDiode(double SaturationCurrentAtT0Amps, double Ideal
     /// <summary>Saturation-current temperature exponent XTI for a junction diode.</summary>
     public const double SaturationCurrentTemperatureExponent = 3.0;
 
+    /// <summary>
+    /// Resistance of a leakage path across the junction, Ω (a leaky junction: surface leakage or a damaged die), or null
+    /// for none. Part of the current then bypasses the junction, which pulls the forward voltage down most at low current.
+    /// </summary>
+    public double? ShuntOhms { get; init; }
+
     /// <summary>Thermal voltage kT/q, volts, at <paramref name="kelvin"/>.</summary>
     public static double ThermalVolts(double kelvin) => BoltzmannJoulesPerKelvin * kelvin / ElementaryChargeCoulombs;
 
@@ -49,7 +55,38 @@ public sealed record SiliconDiode(double SaturationCurrentAtT0Amps, double Ideal
         ArgumentOutOfRangeException.ThrowIfNegativeOrZero(currentAmps);
         var kelvin = celsius + ZeroCelsiusKelvin;
         var nVt = Ideality * ThermalVolts(kelvin);
-        return (nVt * Math.Log((currentAmps / SaturationCurrentAmps(kelvin)) + 1)) + (currentAmps * SeriesResistanceOhms);
+        var saturation = SaturationCurrentAmps(kelvin);
+        var junction = nVt * Math.Log((currentAmps / saturation) + 1);
+        if (ShuntOhms is { } shunt)
+        {
+            junction = LeakyJunctionVolts(currentAmps, saturation, nVt, shunt, junction);
+        }
+
+        return junction + (currentAmps * SeriesResistanceOhms);
+    }
+
+    /// <summary>
+    /// The junction voltage V_j where I_s·(exp(V_j/(n·V_T)) − 1) + V_j/R_sh = I, by bisection between 0 and the voltage
+    /// without the shunt (the left side rises monotonically in V_j, so the root is unique and inside that interval).
+    /// </summary>
+    private static double LeakyJunctionVolts(double amps, double saturation, double nVt, double shuntOhms, double withoutShunt)
+    {
+        double low = 0, high = withoutShunt;
+        for (var i = 0; i < 80; i++)
+        {
+            var mid = 0.5 * (low + high);
+            var current = (saturation * (Math.Exp(mid / nVt) - 1)) + (mid / shuntOhms);
+            if (current > amps)
+            {
+                high = mid;
+            }
+            else
+            {
+                low = mid;
+            }
+        }
+
+        return 0.5 * (low + high);
     }
 
     /// <summary>

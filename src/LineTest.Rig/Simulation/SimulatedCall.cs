@@ -38,7 +38,7 @@ internal static class SimulatedCall
     /// <summary>The exception a command-counted fault produces on an instrument.</summary>
     public static InstrumentFaultException FaultFor(RigFault fault, string instrument) => fault.Kind switch
     {
-        RigFaultKind.MeterSilent or RigFaultKind.SourceSilent or RigFaultKind.ReferenceSilent or RigFaultKind.UnitSilent
+        RigFaultKind.MeterSilent or RigFaultKind.SourceSilent or RigFaultKind.ReferenceSilent or RigFaultKind.UnitSilent or RigFaultKind.SourceMeterSilent
             => new InstrumentFaultException(instrument, InstrumentFaultKind.NoAnswer, "no answer within the timeout (simulated fault)"),
         RigFaultKind.MeterGarbage or RigFaultKind.UnitGarbage
             => new InstrumentFaultException(instrument, InstrumentFaultKind.GarbageReply, "reply could not be understood (simulated fault)"),

@@ -48,7 +48,11 @@ public sealed class SimulatedRig
         Meter = new SimulatedVoltmeter(fixture.Meter, _slots.Values, seeds.Next());
         _links = _slots.ToDictionary(p => p.Key, p => new SimulatedUnitLink(p.Value));
         _parts = new Random(seeds.Next());
-        Instruments = new RigInstruments(Block, Reference, Meter, _links.ToDictionary(p => p.Key, p => (IUnitLink)p.Value));
+
+        // Drawn after the parts seed so the rig's other noise streams stay what they were before the SMU existed.
+        var smuSeed = seeds.Next();
+        SourceMeter = fixture.SourceMeter is { } smu ? new SimulatedSourceMeter(smu, _slots.Values, smuSeed) : null;
+        Instruments = new RigInstruments(Block, Reference, Meter, _links.ToDictionary(p => p.Key, p => (IUnitLink)p.Value), SourceMeter);
     }
 
     /// <summary>The fixture the rig was built from.</summary>
@@ -71,6 +75,9 @@ public sealed class SimulatedRig
 
     /// <summary>Each slot's unit link, keyed by slot number.</summary>
     public IReadOnlyDictionary<int, SimulatedUnitLink> UnitLinks => _links;
+
+    /// <summary>The source-measure unit, or null when the fixture has none.</summary>
+    public SimulatedSourceMeter? SourceMeter { get; }
 
     /// <summary>The instruments as the runtime sees them.</summary>
     public RigInstruments Instruments { get; }
@@ -149,6 +156,9 @@ public sealed class SimulatedRig
             case RigFaultKind.MeterSilent or RigFaultKind.MeterGarbage or RigFaultKind.MeterPortLost:
                 Meter.ArmFault(fault);
                 break;
+            case RigFaultKind.SourceMeterSilent:
+                (SourceMeter ?? throw new InvalidOperationException($"Fixture '{Fixture.Id}' has no source-measure unit to fault.")).ArmFault(fault);
+                break;
             case RigFaultKind.SourceSilent or RigFaultKind.SourceHeaterFault:
                 Block.ArmFault(fault);
                 break;
@@ -172,6 +182,7 @@ public sealed class SimulatedRig
     public void ClearFaults()
     {
         Meter.ClearFaults();
+        SourceMeter?.ClearFaults();
         Block.ClearFaults();
         Reference.ClearFaults();
         foreach (var slot in _slots.Values)

@@ -43,6 +43,11 @@ public sealed class SimulatedUnitFactory
             throw new ArgumentOutOfRangeException(nameof(simulation), simulation.DefectRate, "simulation.defectRate must be a share between 0 and 1.");
         }
 
+        if (!double.IsFinite(simulation.SensorDefectRate) || simulation.SensorDefectRate is < 0 or > 1)
+        {
+            throw new ArgumentOutOfRangeException(nameof(simulation), simulation.SensorDefectRate, "simulation.sensorDefectRate must be a share between 0 and 1.");
+        }
+
         if (!(simulation.UnitLagTimeConstantSeconds > 0) || !double.IsFinite(simulation.UnitLagTimeConstantSeconds))
         {
             throw new ArgumentOutOfRangeException(nameof(simulation), simulation.UnitLagTimeConstantSeconds, "simulation.unitLagTimeConstantSeconds must be a positive number of seconds.");
@@ -62,8 +67,11 @@ public sealed class SimulatedUnitFactory
         _nextCounter = firstCounter;
     }
 
-    /// <summary>The next part; defective with probability <see cref="SimulationDefinition.DefectRate"/>, the kind chosen evenly.</summary>
-    public SimulatedUnit NextUnit() => Build(DrawDefect());
+    /// <summary>
+    /// The next part; defective with probability <see cref="SimulationDefinition.DefectRate"/>, the kind chosen evenly,
+    /// and otherwise with a faulty sensor with probability <see cref="SimulationDefinition.SensorDefectRate"/>.
+    /// </summary>
+    public SimulatedUnit NextUnit() => Build(DrawDefect(), drawSensorDefect: true);
 
     private UnitDefect DrawDefect()
     {
@@ -94,10 +102,10 @@ public sealed class SimulatedUnitFactory
     public SimulatedUnit NextUnit(string serial)
     {
         ArgumentException.ThrowIfNullOrWhiteSpace(serial);
-        return Build(DrawDefect(), serial);
+        return Build(DrawDefect(), drawSensorDefect: true, serial);
     }
 
-    private SimulatedUnit Build(UnitDefect defect, string? serialOverride = null)
+    private SimulatedUnit Build(UnitDefect defect, bool drawSensorDefect = false, string? serialOverride = null)
     {
         if (_nextCounter > MaxCounter)
         {
@@ -128,6 +136,37 @@ public sealed class SimulatedUnitFactory
 
             // Drawn last so the analog parts of a seed stay what they were before digital designs existed.
             AdcReferenceVolts: d.AdcReferenceVolts * part.NextTruncatedNormal(1, d.AdcReferenceSpread, 1 - (2 * d.AdcReferenceSpread), 1 + (2 * d.AdcReferenceSpread)));
+
+        // Sensor defects are drawn from the part's own stream after everything else, so parts without one are exactly
+        // what they were before sensor defects existed, and the units after them are unchanged.
+        var sensorDraw = part.NextDouble();
+        var sensorKind = part.Next(3);
+        if (drawSensorDefect && defect == UnitDefect.None && sensorDraw < _simulation.SensorDefectRate)
+        {
+            defect = sensorKind switch
+            {
+                0 => UnitDefect.HighSeriesResistance,
+                1 => UnitDefect.LeakyJunction,
+                _ => UnitDefect.WrongPart,
+            };
+        }
+
+        parameters = parameters with { Diode = SensorWithDefect(parameters.Diode, defect, part) };
         return new SimulatedUnit(serial, d, parameters, defect, _simulation.UnitOutputNoiseVolts, noiseSeed);
     }
+
+    /// <summary>The part's diode as a sensor defect leaves it (unchanged for other defects).</summary>
+    private static SiliconDiode SensorWithDefect(SiliconDiode diode, UnitDefect defect, Random part) => defect switch
+    {
+        // Invented but typical magnitudes: a cracked bond adds hundreds of ohms; surface leakage of tens of kilohms;
+        // a different junction (e.g. a general-purpose rectifier) has a far larger I_s and n near 1.5.
+        UnitDefect.HighSeriesResistance => diode with { SeriesResistanceOhms = 300 + (500 * part.NextDouble()) },
+        UnitDefect.LeakyJunction => diode with { ShuntOhms = 30e3 + (120e3 * part.NextDouble()) },
+        UnitDefect.WrongPart => diode with
+        {
+            Ideality = 1.4 + (0.3 * part.NextDouble()),
+            SaturationCurrentAtT0Amps = diode.SaturationCurrentAtT0Amps * Math.Pow(10, 3 + (2 * part.NextDouble())),
+        },
+        _ => diode,
+    };
 }

@@ -21,4 +21,13 @@ public enum UnitDefect
 
     /// <summary>The unit's link never answers; the analog output still works.</summary>
     Silent,
+
+    /// <summary>A bad bond or contact in the sensor path: the diode's series resistance is hundreds of ohms, not tens.</summary>
+    HighSeriesResistance,
+
+    /// <summary>A leakage path across the junction (a shunt of tens of kilohms) that bypasses it at low current.</summary>
+    LeakyJunction,
+
+    /// <summary>The wrong part was fitted: its saturation current and ideality factor are far from the design's.</summary>
+    WrongPart,
 }

@@ -279,6 +279,11 @@ public sealed class BatchCoordinator
                 };
                 await executor.ConfigureAwait(false);
                 break;
+            case IvSweepStep sweep:
+                unit.Machine.BeginMeasure();
+                Notify(batch, unit);
+                await new IvSweepExecutor(this).RunAsync(batch.Request.Sequence, sweep, unit, ct).ConfigureAwait(false);
+                break;
             default:
                 throw new InvalidOperationException($"Step kind '{step.Kind}' has no executor.");
         }
@@ -684,6 +689,14 @@ public sealed class BatchCoordinator
         seconds <= 0 ? Task.CompletedTask : Task.Delay(TimeSpan.FromSeconds(seconds), _time, ct);
 
     internal double StoreSeconds => _timing.UnitStoreSeconds;
+
+    internal double MeterReadSeconds => _timing.MeterReadSeconds;
+
+    internal FixtureDefinition Fixture => _fixture;
+
+    internal ISourceMeter? SourceMeter => _rig.SourceMeter;
+
+    internal Task<double> ReadReferenceCelsiusAsync(CancellationToken ct) => ReadReferenceAsync(ct);
 
     internal DateTimeOffset Now => _time.GetUtcNow();
 

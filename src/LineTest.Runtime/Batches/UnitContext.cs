@@ -36,6 +36,9 @@ internal sealed class UnitContext
     /// <summary>Trim register values currently in the unit (nominal until written).</summary>
     public Dictionary<string, long> Registers { get; } = new(StringComparer.Ordinal);
 
+    /// <summary>The unit's fitted I–V sweeps so far, in order.</summary>
+    public List<IvSweepRecord> Sweeps { get; } = [];
+
     public TrimRecord? Trim { get; set; }
 
     public string? Firmware { get; set; }

@@ -81,7 +81,7 @@ public static class ProbeCommand
     {
         var output = context.Output;
         var inv = CultureInfo.InvariantCulture;
-        output.WriteLine(string.Create(inv, $"Probing fixture {fixture.Id}{note}: {3 + fixture.Slots.Count} instruments"));
+        output.WriteLine(string.Create(inv, $"Probing fixture {fixture.Id}{note}: {(fixture.SourceMeter is null ? 3 : 4) + fixture.Slots.Count} instruments"));
         var results = await RigProbe.RunAsync(rig, fixture.Slots.Count > 0 ? fixture.Slots[0].OutputChannel : 1, ct).ConfigureAwait(false);
         foreach (var r in results)
         {

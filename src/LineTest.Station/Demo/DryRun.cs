@@ -20,7 +20,7 @@ public static class DryRun
     {
         ArgumentNullException.ThrowIfNull(fixture);
         ArgumentNullException.ThrowIfNull(sequence);
-        var simulation = (fixture.Simulation ?? new SimulationDefinition()) with { DefectRate = 0 };
+        var simulation = (fixture.Simulation ?? new SimulationDefinition()) with { DefectRate = 0, SensorDefectRate = 0 };
         var perfect = fixture with { Simulation = simulation };
         var sensor = ReferenceConversion.SensorOf(perfect);
         var clock = new VirtualTimeProvider(new DateTimeOffset(2026, 1, 1, 6, 0, 0, TimeSpan.Zero));

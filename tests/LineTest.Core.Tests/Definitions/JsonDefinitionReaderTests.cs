@@ -53,7 +53,7 @@ public sealed class JsonDefinitionReaderTests
         var problem = Assert.Single(parsed.Problems);
         Assert.Equal("$.steps[2]", problem.JsonPath);
         Assert.Equal(TestFiles.LineOf(text, "{ \"setpoint\": \"cal-low\" }"), problem.Line);
-        Assert.Equal("the object needs a 'kind' key naming its kind (known: identify, supply-current, settle, measure, trim, verify, prompt)", problem.Reason);
+        Assert.Equal("the object needs a 'kind' key naming its kind (known: identify, supply-current, settle, measure, trim, verify, prompt, iv-sweep)", problem.Reason);
     }
 
     [Fact]

@@ -35,7 +35,7 @@ public sealed class SequenceLoaderTests
         ["misspelt key in a step"] = new("\"name\": \"cal-low\", \"setpoint\": \"cal-low\", \"samples\": 10,", "\"name\": \"cal-low\", \"setpoint\": \"cal-low\", \"sample\": 10,",
             "\"sample\"", "$.steps[3].sample", "unknown property 'sample'"),
         ["unknown step kind"] = new("{ \"kind\": \"identify\" }", "{ \"kind\": \"identfy\" }", "identfy", "$.steps[0]",
-            "unknown kind 'identfy' (known: identify, supply-current, settle, measure, trim, verify, prompt)"),
+            "unknown kind 'identfy' (known: identify, supply-current, settle, measure, trim, verify, prompt, iv-sweep)"),
         ["step without kind"] = new("{ \"kind\": \"identify\" }", "{ \"name\": \"who\" }", "\"who\"", "$.steps[0]", "needs a 'kind' key"),
         ["kind given twice"] = new("{ \"kind\": \"identify\" }", "{ \"kind\": \"identify\", \"kind\": \"settle\" }", "\"kind\": \"identify\", \"kind\"", "$.steps[0].kind", "'kind' is given twice"),
 
@@ -215,7 +215,7 @@ public sealed class SequenceLoaderTests
         Assert.Empty(result.Problems);
         Assert.True(result.IsSuccess);
         Assert.Equal("ctp40a-dac", result.Value.Id);
-        Assert.Equal(9, result.Value.Steps.Count);
+        Assert.Equal(11, result.Value.Steps.Count);
     }
 
     [Fact]
@@ -237,12 +237,17 @@ public sealed class SequenceLoaderTests
 
         Assert.True(result.IsSuccess);
         Assert.Equal(
-            ["identify", "supply-current", "settle", "measure", "settle", "measure", "trim", "settle", "verify"],
+            ["identify", "supply-current", "settle", "iv-sweep", "measure", "settle", "measure", "iv-sweep", "trim", "settle", "verify"],
             result.Value.Steps.Select(s => s.Kind));
         var supply = Assert.IsType<SupplyCurrentStep>(result.Value.Steps[1]);
         Assert.Equal(1.5, supply.Limits.Low);
         Assert.Equal("mA", supply.Limits.Unit);
-        var trim = Assert.IsType<TrimStep>(result.Value.Steps[6]);
+        var trim = Assert.IsType<TrimStep>(result.Value.Steps[8]);
+        var sweep = Assert.IsType<IvSweepStep>(result.Value.Steps[7]);
+        Assert.Equal("cal-high", sweep.Setpoint);
+        Assert.Equal(7, sweep.SweepCurrents().Count);
+        Assert.Equal("mV/degC", sweep.TemperatureCoefficientLimits!.Unit);
+        Assert.Equal(10e-6, result.Value.NominalBiasAmps);
         Assert.Equal(["cal-low", "cal-high"], trim.Points);
         Assert.Equal(["verify"], trim.PredictAt);
         Assert.Equal("identify", result.Value.Steps[0].DisplayName);

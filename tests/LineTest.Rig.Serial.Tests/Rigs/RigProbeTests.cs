@@ -16,7 +16,7 @@ public sealed class RigProbeTests
 
         var results = await RigProbe.RunAsync(h.Serial.Drivers, 101, default);
 
-        Assert.Equal(["source", "reference", "meter", "unit slot 1", "unit slot 2", "unit slot 3", "unit slot 4"], results.Select(r => r.Instrument));
+        Assert.Equal(["source", "reference", "meter", "source-measure unit", "unit slot 1", "unit slot 2", "unit slot 3", "unit slot 4"], results.Select(r => r.Instrument));
         Assert.All(results, r =>
         {
             Assert.Equal(ProbeStatus.Usable, r.Status);
@@ -25,6 +25,8 @@ public sealed class RigProbeTests
         });
         Assert.Equal(SourceTwin.Identity.ToString(), results[0].Identity);
         Assert.EndsWith("°C", results[0].Reading, StringComparison.Ordinal);
+        Assert.Equal(SourceMeterTwin.Identity.ToString(), results[3].Identity);
+        Assert.StartsWith("output off:", results[3].Reading, StringComparison.Ordinal);
     }
 
     [LinuxFact]

@@ -18,10 +18,11 @@ internal static class SimulatedFixtures
         SettlingTimeConstantSeconds = 30,
     };
 
-    public static SimulationDefinition Simulation(double blockNoiseC = 0.002, double defectRate = 0.04, double unitNoiseVolts = 0.00005) => new()
+    public static SimulationDefinition Simulation(double blockNoiseC = 0.002, double defectRate = 0.04, double unitNoiseVolts = 0.00005, double sensorDefectRate = 0.006) => new()
     {
         BlockNoiseC = blockNoiseC,
         DefectRate = defectRate,
+        SensorDefectRate = sensorDefectRate,
         UnitOutputNoiseVolts = unitNoiseVolts,
         SlotOffsetsC = [0.01, -0.02, 0.015, 0.0],
     };

@@ -75,7 +75,7 @@ public sealed class SimulatedUnitFactoryTests
     [Fact]
     public void NextUnit_ZeroDefectRate_NoDefects()
     {
-        var factory = SimulatedFixtures.Factory(seed: 8, simulation: SimulatedFixtures.Simulation(defectRate: 0));
+        var factory = SimulatedFixtures.Factory(seed: 8, simulation: SimulatedFixtures.Simulation(defectRate: 0, sensorDefectRate: 0));
 
         Assert.All(Enumerable.Range(0, 2000).Select(_ => factory.NextUnit()), u => Assert.Equal(UnitDefect.None, u.Defect));
     }
@@ -84,7 +84,10 @@ public sealed class SimulatedUnitFactoryTests
     public void NextUnit_ManyParts_SpreadsStayWithinDesignLimits()
     {
         var factory = SimulatedFixtures.Factory(seed: 17);
-        var parts = Enumerable.Range(0, 3000).Select(_ => factory.NextUnit().Parameters).ToList();
+        // Parts with a sensor defect are built outside the design's limits on purpose.
+        var parts = Enumerable.Range(0, 3000).Select(_ => factory.NextUnit())
+            .Where(u => u.Defect is not (UnitDefect.HighSeriesResistance or UnitDefect.LeakyJunction or UnitDefect.WrongPart))
+            .Select(u => u.Parameters).ToList();
 
         Assert.All(parts, p =>
         {
@@ -102,6 +105,42 @@ public sealed class SimulatedUnitFactoryTests
         var sd = Math.Sqrt(gains.Sum(g => (g - mean) * (g - mean)) / (gains.Count - 1));
         Assert.InRange(sd, 0.011, 0.0145);
         Assert.InRange(parts.Average(p => p.SupplyCurrentAmps), 0.00249, 0.00251);
+    }
+
+    [Fact]
+    public void NextUnit_SensorDefectRate_DrawsEachSensorDefectRarely()
+    {
+        var factory = SimulatedFixtures.Factory(seed: 5, simulation: SimulatedFixtures.Simulation(defectRate: 0, sensorDefectRate: 0.05));
+        var units = Enumerable.Range(0, 3000).Select(_ => factory.NextUnit()).ToList();
+
+        // 5 % of 3000 = 150 expected; binomial σ ≈ 12, so 100…200 is far outside chance.
+        Assert.InRange(units.Count(u => u.Defect != UnitDefect.None), 100, 200);
+        Assert.All(units.Where(u => u.Defect == UnitDefect.HighSeriesResistance), u => Assert.InRange(u.Parameters.Diode.SeriesResistanceOhms, 300, 800));
+        Assert.All(units.Where(u => u.Defect == UnitDefect.LeakyJunction), u => Assert.InRange(u.Parameters.Diode.ShuntOhms!.Value, 30e3, 150e3));
+        Assert.All(units.Where(u => u.Defect == UnitDefect.WrongPart), u => Assert.InRange(u.Parameters.Diode.Ideality, 1.4, 1.7));
+        Assert.All(units.Where(u => u.Defect == UnitDefect.None), u => Assert.Null(u.Parameters.Diode.ShuntOhms));
+        Assert.Contains(units, u => u.Defect == UnitDefect.HighSeriesResistance);
+        Assert.Contains(units, u => u.Defect == UnitDefect.LeakyJunction);
+        Assert.Contains(units, u => u.Defect == UnitDefect.WrongPart);
+    }
+
+    [Fact]
+    public void NextUnit_SensorDefects_LeaveGoodPartsAsTheyWere()
+    {
+        // Sensor defects come from each part's own stream after its other draws: switching them on changes no good part.
+        var without = SimulatedFixtures.Factory(seed: 21, simulation: SimulatedFixtures.Simulation(sensorDefectRate: 0));
+        var with = SimulatedFixtures.Factory(seed: 21, simulation: SimulatedFixtures.Simulation(sensorDefectRate: 0.2));
+
+        for (var i = 0; i < 300; i++)
+        {
+            var a = without.NextUnit();
+            var b = with.NextUnit();
+            Assert.Equal(a.Serial, b.Serial);
+            if (b.Defect == a.Defect)
+            {
+                Assert.Equal(a.Parameters, b.Parameters);
+            }
+        }
     }
 
     [Fact]

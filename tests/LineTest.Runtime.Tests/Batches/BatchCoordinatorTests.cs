@@ -55,16 +55,18 @@ public sealed class BatchCoordinatorTests
     }
 
     [Fact]
-    public async Task RunAsync_OpenSensor_FailsAtCalibrationOutputLimit()
+    public async Task RunAsync_OpenSensor_FailsAtTheSweepsCompliance()
     {
         var h = new CoordinatorHarness();
         var units = h.Load(UnitDefect.OpenSensor, UnitDefect.None);
 
         var outcome = await h.RunAsync(units);
 
+        // The demo sequence sweeps the sensor before it calibrates: the open sensor drives the SMU into compliance.
         var open = outcome.Runs.Single(r => r.Slot == 1);
         Assert.Equal(Verdict.Fail, open.Verdict);
-        Assert.Equal("cal-low.output", open.FirstFailingReading);
+        Assert.Equal("iv-low.fit", open.FirstFailingReading);
+        Assert.Contains("open sensor", open.Reason, StringComparison.Ordinal);
         Assert.Equal(Verdict.Pass, outcome.Runs.Single(r => r.Slot == 2).Verdict);
     }
 

@@ -25,8 +25,8 @@ public sealed class CheckCommandTests
         var (exit, _, error) = await CliRunner.RunAsync("check", path, "--fixture", RepoFiles.Path("fixtures/sim-dryblock-4.json"));
 
         Assert.Equal(2, exit);
-        Assert.Contains($"{path}:24: $.setpoints[1].celsius: 140 °C is outside the safe range", error, StringComparison.Ordinal);
-        Assert.Contains($"{path}:37: $.steps[1].limits.unit: unknown unit of measure 'mAmp'", error, StringComparison.Ordinal);
+        Assert.Contains($"{path}:25: $.setpoints[1].celsius: 140 °C is outside the safe range", error, StringComparison.Ordinal);
+        Assert.Contains($"{path}:38: $.steps[1].limits.unit: unknown unit of measure 'mAmp'", error, StringComparison.Ordinal);
     }
 
     [Fact]

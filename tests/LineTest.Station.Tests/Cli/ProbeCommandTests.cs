@@ -16,7 +16,7 @@ public sealed class ProbeCommandTests
         Assert.Equal(ExitCodes.RuntimeFailure, run.ExitCode);
         Assert.Contains("source on /dev/ttyUSB0: port /dev/ttyUSB0 does not exist", run.Stdout, StringComparison.Ordinal);
         Assert.Contains("unit slot 4 on /dev/ttyUSB6: port /dev/ttyUSB6 does not exist", run.Stdout, StringComparison.Ordinal);
-        Assert.Contains("0 usable, 7 unusable", run.Stdout, StringComparison.Ordinal);
+        Assert.Contains("0 usable, 8 unusable", run.Stdout, StringComparison.Ordinal);
     }
 
     [LinuxFact]
@@ -31,7 +31,7 @@ public sealed class ProbeCommandTests
         }
 
         Assert.Contains("simulated scanning DMM", run.Stdout, StringComparison.Ordinal);
-        Assert.Contains("7 usable, 0 unusable", run.Stdout, StringComparison.Ordinal);
+        Assert.Contains("8 usable, 0 unusable", run.Stdout, StringComparison.Ordinal);
     }
 
     [Fact]
