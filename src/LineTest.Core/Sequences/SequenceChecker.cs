@@ -33,6 +33,8 @@ public static class SequenceChecker
         CheckTrim(sequence.Trim, problems);
         CheckSoakSensitivity(sequence, problems);
         CheckSteps(sequence, setpoints, problems);
+        problems.AddIf(!SetpointOrders.All.Contains(sequence.SetpointOrder, StringComparer.Ordinal), "$.setpointOrder",
+            $"'{sequence.SetpointOrder}' is not a setpoint order: use {string.Join(" or ", SetpointOrders.All.Select(o => $"\"{o}\""))}");
         return problems;
     }
 
