@@ -20,6 +20,7 @@ public static class StationCommandLine
             VerifyCommand.Create(context),
             ReportCommand.Create(context),
             ExportCommand.Create(context),
+            BenchCommand.Create(context),
         };
         return root;
     }
