@@ -65,7 +65,7 @@ public static class ResultsLoader
 
         var position = 0;
         ReadingSeries? series = null;
-        await foreach (var row in reader.ReadReadingsAsync(filter, ct).ConfigureAwait(false))
+        await foreach (var row in reader.ReadReadingValuesAsync(filter, ct).ConfigureAwait(false))
         {
             while (position < seqs.Count && seqs[position] < row.RunSeq)
             {
