@@ -83,14 +83,47 @@ public static class ThroughputBench
                 Station = "bench",
             },
             loggers);
+        using var process = Process.GetCurrentProcess();
+        var cpuBefore = process.TotalProcessorTime;
         var allocatedBefore = GC.GetTotalAllocatedBytes(precise: false);
         var gen2Before = GC.CollectionCount(2);
         var summary = await shift.RunAsync(_ => { }, ct).ConfigureAwait(false);
         var allocated = GC.GetTotalAllocatedBytes(precise: false) - allocatedBefore;
-        using var process = Process.GetCurrentProcess();
         process.Refresh();
-        return new EngineFigures(summary.Units, summary.SimulatedSeconds, summary.WallSeconds, process.PeakWorkingSet64, allocated,
-            GC.CollectionCount(2) - gen2Before, StoredRuns: true);
+        return new EngineFigures(summary.Units, summary.SimulatedSeconds, summary.WallSeconds, (process.TotalProcessorTime - cpuBefore).TotalSeconds,
+            process.PeakWorkingSet64, allocated, GC.CollectionCount(2) - gen2Before, StoredRuns: true);
+    }
+
+    /// <summary>
+    /// The engine alone: <paramref name="units"/> units (with the fixture's defect rate) through the coordinator, full
+    /// batches back to back, runs discarded and nothing logged, so the figure is the coordinator and simulator only.
+    /// </summary>
+    public static async Task<EngineFigures> EngineOnlyAsync(FixtureDefinition fixture, SequenceDefinition sequence, string sha256, int units, int seed, CancellationToken ct)
+    {
+        ArgumentNullException.ThrowIfNull(fixture);
+        ArgumentNullException.ThrowIfNull(sequence);
+        using var process = Process.GetCurrentProcess();
+        var wallStart = TimeProvider.System.GetTimestamp();
+        var cpuBefore = process.TotalProcessorTime;
+        var allocatedBefore = GC.GetTotalAllocatedBytes(precise: false);
+        var gen2Before = GC.CollectionCount(2);
+        var rig = new BenchRig(fixture, sequence, sha256, seed, new InstrumentTiming(), withDefects: true);
+        var slots = fixture.Slots.Select(s => s.Slot).Order().ToList();
+        var simulated = 0.0;
+        var done = 0;
+        while (done < units)
+        {
+            var batch = slots.Take(Math.Min(slots.Count, units - done)).ToList();
+            var outcome = await rig.RunAsync(batch, BatchSchedule.Fast, ct).ConfigureAwait(false);
+            simulated += (outcome.Ended - outcome.Started).TotalSeconds;
+            done += batch.Count;
+        }
+
+        var wall = TimeProvider.System.GetElapsedTime(wallStart).TotalSeconds;
+        var allocated = GC.GetTotalAllocatedBytes(precise: false) - allocatedBefore;
+        process.Refresh();
+        return new EngineFigures(done, simulated, wall, (process.TotalProcessorTime - cpuBefore).TotalSeconds, process.PeakWorkingSet64, allocated,
+            GC.CollectionCount(2) - gen2Before, StoredRuns: false);
     }
 
     /// <summary>One simulated rig and coordinator with defect-free units, batches run back to back (no standby between).</summary>
@@ -102,9 +135,10 @@ public static class ThroughputBench
         private readonly SequenceDefinition _sequence;
         private readonly string _sha256;
 
-        public BenchRig(FixtureDefinition fixture, SequenceDefinition sequence, string sha256, int seed, InstrumentTiming timing)
+        public BenchRig(FixtureDefinition fixture, SequenceDefinition sequence, string sha256, int seed, InstrumentTiming timing, bool withDefects = false)
         {
-            var simulation = (fixture.Simulation ?? new SimulationDefinition()) with { DefectRate = 0 };
+            var simulation = fixture.Simulation ?? new SimulationDefinition();
+            simulation = withDefects ? simulation : simulation with { DefectRate = 0 };
             var perfect = fixture with { Simulation = simulation };
             var sensor = ReferenceConversion.SensorOf(perfect);
             var clock = new VirtualTimeProvider(new DateTimeOffset(2026, 1, 1, 6, 0, 0, TimeSpan.Zero));

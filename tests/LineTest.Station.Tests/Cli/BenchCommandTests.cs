@@ -32,6 +32,9 @@ public sealed class BenchCommandTests
         Assert.Equal(8, shift.GetProperty("units").GetInt32());
         Assert.True(shift.GetProperty("storedRuns").GetBoolean());
         Assert.True(shift.GetProperty("peakWorkingSetMegabytes").GetDouble() > 0);
+        var engineOnly = json.RootElement.GetProperty("engineOnly");
+        Assert.Equal(8, engineOnly.GetProperty("units").GetInt32());
+        Assert.False(engineOnly.GetProperty("storedRuns").GetBoolean());
     }
 
     [Fact]
