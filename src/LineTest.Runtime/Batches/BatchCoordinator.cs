@@ -109,6 +109,7 @@ public sealed partial class BatchCoordinator
                 unit.Machine.Transitioned += (from, to, trigger) =>
                     RuntimeLog.Transition(_logger, unit.Serial, unit.Slot, from.ToString(), to.ToString(), trigger.ToString());
             }
+
             batch.Units.Add(unit);
             Notify(batch, unit);
         }
