@@ -48,6 +48,12 @@ public sealed record SequenceDefinition
     /// <summary>Stop a unit at its first failing reading (it keeps its slot until unload). Default true.</summary>
     public bool StopOnFail { get; init; } = true;
 
+    /// <summary>
+    /// <c>fixed</c> (default): setpoints are visited in step order. <c>free</c>: independent settle blocks may be
+    /// reordered to shorten the source's travel (<see cref="SetpointOrders.Free"/>).
+    /// </summary>
+    public string SetpointOrder { get; init; } = SetpointOrders.Fixed;
+
     /// <summary>The steps, in order.</summary>
     public required IReadOnlyList<StepDefinition> Steps { get; init; }
 }

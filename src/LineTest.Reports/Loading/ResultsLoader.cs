@@ -47,7 +47,7 @@ public static class ResultsLoader
         // both streams come in ascending seq order, so no lookup table is needed.
         var seqs = new List<long>();
         var firstIndex = data.Runs.Count;
-        await foreach (var run in reader.ReadRunsAsync(filter, ct).ConfigureAwait(false))
+        await foreach (var run in reader.ReadRunsForReportAsync(filter, ct).ConfigureAwait(false))
         {
             seqs.Add(run.Seq);
             data.Runs.Add(
@@ -65,7 +65,7 @@ public static class ResultsLoader
 
         var position = 0;
         ReadingSeries? series = null;
-        await foreach (var row in reader.ReadReadingsAsync(filter, ct).ConfigureAwait(false))
+        await foreach (var row in reader.ReadReadingValuesAsync(filter, ct).ConfigureAwait(false))
         {
             while (position < seqs.Count && seqs[position] < row.RunSeq)
             {

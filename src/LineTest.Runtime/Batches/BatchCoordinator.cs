@@ -22,7 +22,7 @@ namespace LineTest.Runtime.Batches;
 /// One logical flow of control: the coordinator awaits one thing at a time, so the unit state machines (Stateless,
 /// not thread-safe) are only touched here, and the simulator's virtual clock can jump from wait to wait.
 /// </remarks>
-public sealed class BatchCoordinator
+public sealed partial class BatchCoordinator
 {
     private readonly RigInstruments _rig;
     private readonly FixtureDefinition _fixture;
@@ -105,8 +105,13 @@ public sealed class BatchCoordinator
                 unit.Registers[register.Name] = register.Nominal;
             }
 
-            unit.Machine.Transitioned += (from, to, trigger) =>
-                RuntimeLog.Transition(_logger, unit.Serial, unit.Slot, from.ToString(), to.ToString(), trigger.ToString());
+            if (_logger.IsEnabled(LogLevel.Debug))
+            {
+                // Only when Debug is on: the enum names are formatted before the logger could skip the message.
+                unit.Machine.Transitioned += (from, to, trigger) =>
+                    RuntimeLog.Transition(_logger, unit.Serial, unit.Slot, from.ToString(), to.ToString(), trigger.ToString());
+            }
+
             batch.Units.Add(unit);
             Notify(batch, unit);
         }
@@ -116,7 +121,7 @@ public sealed class BatchCoordinator
         try
         {
             await _journal.WriteAsync(batch).ConfigureAwait(false);
-            var steps = request.Sequence.Steps;
+            var steps = await PlanStepsAsync(batch, cancellationToken).ConfigureAwait(false);
             for (var i = 0; i < steps.Count; i++)
             {
                 cancellationToken.ThrowIfCancellationRequested();
@@ -337,23 +342,20 @@ public sealed class BatchCoordinator
     {
         var sequence = batch.Request.Sequence;
         var setpoint = sequence.Setpoints.First(s => s.Name == step.Setpoint);
-        var source = _fixture.Source;
-        if (setpoint.Celsius < source.SafeMinC || setpoint.Celsius > source.SafeMaxC)
-        {
-            // The checker refuses such sequences; this guard protects against a fixture swapped after the check.
-            throw new BatchFaultException(
-                $"setpoint '{setpoint.Name}' ({F(setpoint.Celsius)} °C) is outside the safe range of fixture '{_fixture.Id}' ({F(source.SafeMinC)} … {F(source.SafeMaxC)} °C); nothing was sent to the source");
-        }
-
         foreach (var unit in batch.Active)
         {
             unit.Machine.AwaitSource();
             Notify(batch, unit);
         }
 
-        var commanded = _time.GetUtcNow();
-        await SourceAsync(token => _rig.Source.SetSetpointAsync(setpoint.Celsius, token), ct).ConfigureAwait(false);
+        var commanded = await CommandSetpointAsync(setpoint, ct).ConfigureAwait(false);
         _observer.SourceChanged(setpoint.Celsius, null, "ramping");
+        if (batch.Request.Schedule.Kind == BatchScheduleKind.Baseline)
+        {
+            await SettleFixedAsync(batch, setpoint, commanded, ct).ConfigureAwait(false);
+            return;
+        }
+
         var stability = sequence.Stability;
         var window = new StabilityWindow(stability.WindowSeconds, stability.BandC, stability.MaxDriftCPerMinute);
         StabilityVerdict verdict;

@@ -26,6 +26,9 @@ public sealed record BatchRequest
     /// <summary>engineering or production.</summary>
     public string Mode { get; init; } = "engineering";
 
+    /// <summary>How the batch waits at its setpoints (default <see cref="BatchSchedule.Fast"/>).</summary>
+    public BatchSchedule Schedule { get; init; } = BatchSchedule.Fast;
+
     /// <summary>Batch id; a new one is made when absent.</summary>
     public string? BatchId { get; init; }
 }

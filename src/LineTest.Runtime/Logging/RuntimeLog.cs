@@ -37,4 +37,7 @@ internal static partial class RuntimeLog
     public static partial void Transition(ILogger logger, string serial, int slot, string from, string to, string trigger);
 
     public static string Word(Verdict verdict) => verdict.ToWord();
+
+    [LoggerMessage(EventId = 1040, Level = LogLevel.Debug, Message = "Batch {BatchId}: block at {BlockC:F1} °C, setpoints in order {Order}")]
+    public static partial void SetpointOrder(ILogger logger, string batchId, double blockC, string order);
 }

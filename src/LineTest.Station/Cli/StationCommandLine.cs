@@ -23,6 +23,7 @@ public static class StationCommandLine
             ExportCommand.Create(context),
             ReleaseCommand.Create(context),
             CampaignCommand.Create(context),
+            BenchCommand.Create(context),
         };
         return root;
     }

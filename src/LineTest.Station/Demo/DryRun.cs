@@ -43,7 +43,10 @@ public static class DryRun
         var outcome = await coordinator.RunAsync(
             new BatchRequest { Sequence = sequence, SequenceSha256 = sha256, Station = "dry-run", Loads = loads, Mode = "engineering" },
             ct).ConfigureAwait(false);
-        var bound = ThermalBound.Compute(sequence, perfect.Source, perfect.Source.StandbyC, loads.Count, timing.ReferenceReadSeconds, timing.MeterReadSeconds);
+        // Over the setpoint order the coordinator itself plans (file order unless the sequence marks it free): the
+        // shortest-travel order also gives the lowest bound, so the bound stays a bound.
+        var planned = SetpointPlan.Apply(sequence, perfect.Source, perfect.Source.StandbyC);
+        var bound = ThermalBound.Compute(planned, perfect.Source, perfect.Source.StandbyC, loads.Count, timing.ReferenceReadSeconds, timing.MeterReadSeconds);
         return new DryRunReport(Timeline(outcome), (outcome.Ended - outcome.Started).TotalSeconds, loads.Count, bound, outcome.Runs, outcome.Aborted);
     }
 

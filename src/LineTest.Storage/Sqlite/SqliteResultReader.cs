@@ -12,7 +12,7 @@ namespace LineTest.Storage.Sqlite;
 /// Reads a results database for reports. Opens its own read-only connection per call, so it can run beside
 /// a station that is writing. Summary and reading streams read indexed columns only: no JSON is parsed.
 /// </summary>
-public sealed class SqliteResultReader
+public sealed partial class SqliteResultReader
 {
     private const string RunColumnsSql =
         "r.seq, r.id, r.serial, r.verdict, r.ended_utc, r.station, r.slot, r.lot, r.sequence_id, r.sequence_revision";

@@ -27,7 +27,10 @@ internal sealed class CoordinatorHarness
         Fixture = fixture.Value!;
         var sequence = SequenceLoader.LoadFile(RepoFiles.Path(sequenceFile), Fixture);
         Assert.True(sequence.IsSuccess, string.Join("\n", sequence.Problems));
-        Sequence = editSequence is null ? sequence.Value! : editSequence(sequence.Value!);
+        // The committed sequences mark their setpoint order free; the harness pins file order so that tests name the
+        // setpoint a unit is at without working out the travel plan (a test that wants free order sets it back).
+        var pinned = sequence.Value! with { SetpointOrder = SetpointOrders.Fixed };
+        Sequence = editSequence is null ? pinned : editSequence(pinned);
         Sha256 = sequence.Sha256!;
         var sensor = ReferenceSensorFactory.Create(Fixture.Reference.Sensor).Sensor!;
         Clock = new VirtualTimeProvider(new DateTimeOffset(2026, 12, 2, 6, 0, 0, TimeSpan.Zero));

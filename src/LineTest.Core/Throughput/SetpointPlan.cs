@@ -1,0 +1,197 @@
+using LineTest.Core.Fixtures;
+using LineTest.Core.Sequences;
+
+namespace LineTest.Core.Throughput;
+
+/// <summary>
+/// Chooses the order in which a sequence's independent settle blocks are visited. A block is a settle step followed
+/// only by measure or verify steps at its setpoint; a run of such blocks with nothing else between them is a group,
+/// and blocks within a group do not depend on each other (a trim, prompt, identify or supply-current step ends the
+/// group). For a sequence whose <c>setpointOrder</c> is <c>free</c>, each group is visited in the order with the
+/// least predicted source travel (<see cref="ThermalBound.TravelSeconds"/>) from where the block is, through the
+/// group, to the setpoint that follows it; ties keep the file order. A <c>fixed</c> sequence is returned unchanged.
+/// </summary>
+/// <remarks>
+/// Travel is the only part of a batch's time that depends on the order (stability windows, soaks and measurements
+/// are the same whatever the order), so the order chosen here is also the one that gives the lowest thermal bound.
+/// Groups of up to <see cref="ExhaustiveLimit"/> blocks are searched exhaustively; longer ones nearest-first.
+/// </remarks>
+public static class SetpointPlan
+{
+    /// <summary>Largest group searched over every permutation (6! = 720 orders).</summary>
+    public const int ExhaustiveLimit = 6;
+
+    /// <summary>The steps in the order to run them, starting with the block at <paramref name="startC"/>.</summary>
+    public static IReadOnlyList<StepDefinition> Order(SequenceDefinition sequence, SourceDefinition source, double startC)
+    {
+        ArgumentNullException.ThrowIfNull(sequence);
+        ArgumentNullException.ThrowIfNull(source);
+        if (!string.Equals(sequence.SetpointOrder, SetpointOrders.Free, StringComparison.Ordinal))
+        {
+            return sequence.Steps;
+        }
+
+        var celsius = sequence.Setpoints.ToDictionary(s => s.Name, s => s.Celsius, StringComparer.Ordinal);
+        var steps = sequence.Steps;
+        var result = new List<StepDefinition>(steps.Count);
+        var current = startC;
+        var i = 0;
+        while (i < steps.Count)
+        {
+            var blocks = GroupAt(steps, i);
+            if (blocks.Count == 0)
+            {
+                if (steps[i] is SettleStep lone && celsius.TryGetValue(lone.Setpoint, out var c))
+                {
+                    current = c;
+                }
+
+                result.Add(steps[i]);
+                i++;
+                continue;
+            }
+
+            var consumed = blocks.Sum(b => b.Count);
+            double? nextC = NextSettle(steps, i + consumed) is { } next && celsius.TryGetValue(next.Setpoint, out var n) ? n : null;
+            var targets = blocks.Select(b => celsius.TryGetValue(((SettleStep)b[0]).Setpoint, out var t) ? t : current).ToArray();
+            var order = BestOrder(source, sequence.Stability.BandC, current, targets, nextC);
+            foreach (var index in order)
+            {
+                result.AddRange(blocks[index]);
+            }
+
+            current = targets[order[^1]];
+            i += consumed;
+        }
+
+        return result;
+    }
+
+    /// <summary>The sequence with its steps in the order <see cref="Order"/> chooses.</summary>
+    public static SequenceDefinition Apply(SequenceDefinition sequence, SourceDefinition source, double startC)
+    {
+        ArgumentNullException.ThrowIfNull(sequence);
+        var steps = Order(sequence, source, startC);
+        return ReferenceEquals(steps, sequence.Steps) ? sequence : sequence with { Steps = steps };
+    }
+
+    /// <summary>The blocks of the group starting at <paramref name="start"/>; empty when fewer than two blocks start there.</summary>
+    private static List<List<StepDefinition>> GroupAt(IReadOnlyList<StepDefinition> steps, int start)
+    {
+        var blocks = new List<List<StepDefinition>>();
+        var i = start;
+        while (i < steps.Count && steps[i] is SettleStep settle)
+        {
+            var block = new List<StepDefinition> { settle };
+            var j = i + 1;
+            while (j < steps.Count && ReadsAt(steps[j], settle.Setpoint))
+            {
+                block.Add(steps[j]);
+                j++;
+            }
+
+            if (block.Count == 1)
+            {
+                break;
+            }
+
+            blocks.Add(block);
+            i = j;
+        }
+
+        return blocks.Count >= 2 ? blocks : [];
+    }
+
+    private static bool ReadsAt(StepDefinition step, string setpoint) => step switch
+    {
+        MeasureStep m => string.Equals(m.Setpoint, setpoint, StringComparison.Ordinal),
+        VerifyStep v => string.Equals(v.Setpoint, setpoint, StringComparison.Ordinal),
+        _ => false,
+    };
+
+    private static SettleStep? NextSettle(IReadOnlyList<StepDefinition> steps, int from)
+    {
+        for (var i = from; i < steps.Count; i++)
+        {
+            if (steps[i] is SettleStep settle)
+            {
+                return settle;
+            }
+        }
+
+        return null;
+    }
+
+    private static int[] BestOrder(SourceDefinition source, double bandC, double startC, double[] targets, double? nextC)
+    {
+        var identity = Enumerable.Range(0, targets.Length).ToArray();
+        if (targets.Length > ExhaustiveLimit)
+        {
+            return NearestFirst(startC, targets);
+        }
+
+        var best = identity;
+        var bestSeconds = Travel(source, bandC, startC, targets, identity, nextC);
+        foreach (var order in Permutations(identity))
+        {
+            var seconds = Travel(source, bandC, startC, targets, order, nextC);
+
+            // A strictly shorter travel only (with a little slack against rounding), so ties keep the file order.
+            if (seconds < bestSeconds - 1e-9)
+            {
+                best = order;
+                bestSeconds = seconds;
+            }
+        }
+
+        return best;
+    }
+
+    private static double Travel(SourceDefinition source, double bandC, double startC, double[] targets, int[] order, double? nextC)
+    {
+        var total = 0.0;
+        var at = startC;
+        foreach (var index in order)
+        {
+            total += ThermalBound.TravelSeconds(source, at, targets[index], bandC);
+            at = targets[index];
+        }
+
+        return nextC is { } next ? total + ThermalBound.TravelSeconds(source, at, next, bandC) : total;
+    }
+
+    private static int[] NearestFirst(double startC, double[] targets)
+    {
+        var left = Enumerable.Range(0, targets.Length).ToList();
+        var order = new int[targets.Length];
+        var at = startC;
+        for (var k = 0; k < order.Length; k++)
+        {
+            var here = at;
+            var pick = left.MinBy(i => Math.Abs(targets[i] - here));
+            order[k] = pick;
+            left.Remove(pick);
+            at = targets[pick];
+        }
+
+        return order;
+    }
+
+    private static IEnumerable<int[]> Permutations(int[] items)
+    {
+        if (items.Length <= 1)
+        {
+            yield return items;
+            yield break;
+        }
+
+        for (var i = 0; i < items.Length; i++)
+        {
+            var rest = items.Where((_, k) => k != i).ToArray();
+            foreach (var tail in Permutations(rest))
+            {
+                yield return [items[i], .. tail];
+            }
+        }
+    }
+}

@@ -1,0 +1,137 @@
+using System.Buffers.Text;
+using System.Runtime.CompilerServices;
+using System.Text;
+using LineTest.Core.Results;
+using LineTest.Storage.Store;
+using Microsoft.Data.Sqlite;
+using SQLitePCL;
+
+namespace LineTest.Storage.Sqlite;
+
+/// <summary>The run summary scan for reports.</summary>
+public sealed partial class SqliteResultReader
+{
+    /// <summary>
+    /// The same summaries as <see cref="ReadRunsAsync"/>, in the same order, read through SQLite's own column
+    /// functions with the texts that repeat from run to run (verdict, station, lot, sequence id, reason, first failing
+    /// reading) shared: several times cheaper per run on a large database, which is what a report over a million runs
+    /// needs.
+    /// </summary>
+    /// <exception cref="ResultStoreException">The database cannot be opened or read.</exception>
+    public async IAsyncEnumerable<RunSummary> ReadRunsForReportAsync(RunFilter? filter = null, [EnumeratorCancellation] CancellationToken ct = default)
+    {
+        filter ??= RunFilter.All;
+        await using var connection = await OpenAsync(ct).ConfigureAwait(false);
+        await using var command = connection.CreateCommand();
+        var sql = new StringBuilder($"SELECT {RunColumnsSql}, r.reason, r.first_failing_reading FROM runs r");
+        FilterSql.AppendWhere(sql, command, filter, includeReadingNames: false);
+        sql.Append(" ORDER BY r.seq;");
+        using var scan = Prepare(connection, sql.ToString(), command.Parameters);
+        var pool = new Utf8StringPool();
+        var count = 0;
+        while (Step(connection, scan))
+        {
+            if ((++count & 0xFFFF) == 0)
+            {
+                ct.ThrowIfCancellationRequested();
+            }
+
+            yield return new RunSummary(
+                raw.sqlite3_column_int64(scan, 0),
+                ParseGuid(scan, 1),
+                Encoding.UTF8.GetString(raw.sqlite3_column_blob(scan, 2)),
+                ParseVerdict(pool.Get(raw.sqlite3_column_blob(scan, 3))),
+                ParseUtc(raw.sqlite3_column_blob(scan, 4)),
+                pool.Get(raw.sqlite3_column_blob(scan, 5)),
+                raw.sqlite3_column_int(scan, 6),
+                PooledOrNull(pool, scan, 7),
+                pool.Get(raw.sqlite3_column_blob(scan, 8)),
+                raw.sqlite3_column_int(scan, 9),
+                PooledOrNull(pool, scan, 10),
+                PooledOrNull(pool, scan, 11));
+        }
+    }
+
+    /// <summary>Prepares <paramref name="sql"/> on the connection's handle and binds the named parameters FilterSql made.</summary>
+    private sqlite3_stmt Prepare(SqliteConnection connection, string sql, SqliteParameterCollection parameters)
+    {
+        var db = connection.Handle!;
+        Check(db, raw.sqlite3_prepare_v2(db, sql, out var statement));
+        try
+        {
+            foreach (SqliteParameter parameter in parameters)
+            {
+                var index = raw.sqlite3_bind_parameter_index(statement, parameter.ParameterName);
+                var rc = parameter.Value switch
+                {
+                    string text => raw.sqlite3_bind_text(statement, index, text),
+                    int number => raw.sqlite3_bind_int64(statement, index, number),
+                    long number => raw.sqlite3_bind_int64(statement, index, number),
+                    var other => throw new InvalidOperationException($"Filter parameter {parameter.ParameterName} has an unexpected type {other?.GetType().Name}."),
+                };
+                Check(db, rc);
+            }
+
+            return statement;
+        }
+        catch
+        {
+            statement.Dispose();
+            throw;
+        }
+    }
+
+    private static string? PooledOrNull(Utf8StringPool pool, sqlite3_stmt statement, int column) =>
+        raw.sqlite3_column_type(statement, column) == raw.SQLITE_NULL ? null : pool.Get(raw.sqlite3_column_blob(statement, column));
+
+    private static Guid ParseGuid(sqlite3_stmt statement, int column)
+    {
+        var utf8 = raw.sqlite3_column_blob(statement, column);
+        return Utf8Parser.TryParse(utf8, out Guid id, out var consumed, 'D') && consumed == utf8.Length
+            ? id
+            : Guid.ParseExact(Encoding.UTF8.GetString(utf8), "D");
+    }
+
+    private static Verdict ParseVerdict(string word) => word switch
+    {
+        // Exact words only: the schema's CHECK constraint allows nothing else.
+        "pass" => Verdict.Pass,
+        "fail" => Verdict.Fail,
+        "error" => Verdict.Error,
+        _ => throw new InvalidDataException($"Column verdict holds '{word}', which is not pass, fail or error."),
+    };
+
+    /// <summary>An instant in the stored layout (<see cref="UtcText.Format"/>, 28 ASCII bytes); anything else through <see cref="UtcText.Parse"/>.</summary>
+    private static DateTimeOffset ParseUtc(ReadOnlySpan<byte> utf8)
+    {
+        if (utf8.Length == 28 && utf8[4] == '-' && utf8[7] == '-' && utf8[10] == 'T' && utf8[13] == ':' && utf8[16] == ':'
+            && utf8[19] == '.' && utf8[27] == 'Z'
+            && Digits(utf8, 0, 4, out var year) && Digits(utf8, 5, 2, out var month) && Digits(utf8, 8, 2, out var day)
+            && Digits(utf8, 11, 2, out var hour) && Digits(utf8, 14, 2, out var minute) && Digits(utf8, 17, 2, out var second)
+            && Digits(utf8, 20, 7, out var fraction)
+            && year >= 1 && month is >= 1 and <= 12 && day >= 1 && day <= DateTime.DaysInMonth(year, month)
+            && hour < 24 && minute < 60 && second < 60)
+        {
+            return new DateTimeOffset(new DateTime(year, month, day, hour, minute, second, DateTimeKind.Utc).AddTicks(fraction));
+        }
+
+        return UtcText.Parse(Encoding.UTF8.GetString(utf8));
+    }
+
+    private static bool Digits(ReadOnlySpan<byte> utf8, int start, int count, out int value)
+    {
+        value = 0;
+        for (var i = start; i < start + count; i++)
+        {
+            var digit = utf8[i] - '0';
+            if ((uint)digit > 9)
+            {
+                return false;
+            }
+
+            value = value * 10 + digit;
+        }
+
+        return true;
+    }
+}
