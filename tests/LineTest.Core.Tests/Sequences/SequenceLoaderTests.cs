@@ -104,7 +104,7 @@ public sealed class SequenceLoaderTests
     /// <summary>Bad edits of the shipped resistor and firmware sequences (file, edit, where and why).</summary>
     private static readonly Dictionary<string, (string File, BadSequence Bad)> BadVariantSequences = new(StringComparer.Ordinal)
     {
-        ["unknown setpoint order"] = ("ctp40a-dac.json", new("\"setpointOrder\": \"free\"", "\"setpointOrder\": \"shortest\"", "\"setpointOrder\"",
+        ["unknown setpoint order"] = ("ctp40r-resistor.json", new("\"setpointOrder\": \"free\"", "\"setpointOrder\": \"shortest\"", "\"setpointOrder\"",
             "$.setpointOrder", "'shortest' is not a setpoint order: use \"fixed\" or \"free\"")),
         ["resistor series unknown"] = ("ctp40r-resistor.json", new("\"series\": \"E96\"", "\"series\": \"E97\"", "\"series\"", "$.trim.resistor.series",
             "'E97' is not one of E12, E24, E48, E96")),

@@ -12,7 +12,7 @@ public sealed class BatchCoordinatorScheduleTests
     [Fact]
     public async Task RunAsync_FreeOrderFromStandby_VisitsCalHighFirstAndAllPass()
     {
-        var h = new CoordinatorHarness(editSequence: Free);
+        var h = new CoordinatorHarness(editSequence: Free, sequenceFile: "sequences/ctp40r-resistor.json");
         var units = h.Load(UnitDefect.None, UnitDefect.None, UnitDefect.None, UnitDefect.None);
 
         var outcome = await h.RunAsync(units);
