@@ -91,9 +91,12 @@ public sealed class SlotBiasTests
             var values = pairs.Select(p => p.Item2).ToArray();
             var a = SlotBias.Analyze(slots, values);
             var b = SlotBias.Analyze(slots.Reverse().ToArray(), values.Reverse().Select(v => v + shift).ToArray());
-            if (!a.IsComputed)
+            // Degenerate draws (CsCheck favours repeated values): with no spread inside the slots the within sum of
+            // squares is zero or rounding noise, which a shift can tip either way (a group mean of equal values is
+            // not always exactly that value). Order and shift invariance is only a property of real spread.
+            if (!a.IsComputed || !b.IsComputed || a.Value!.FStatistic > 1e6)
             {
-                return !b.IsComputed;
+                return a.IsComputed || !b.IsComputed || b.Value!.FStatistic > 1e6;
             }
 
             var fa = a.Value!.FStatistic;
