@@ -84,35 +84,13 @@ public sealed class MeterTwin : IDisposable
     {
         lock (_gate)
         {
-            var replies = new List<string>();
-            foreach (var part in message.Split(';'))
-            {
-                var command = part.Trim().TrimStart(':');
-                var reply = Execute(command);
-                if (reply is null)
-                {
-                    continue;
-                }
-
-                if (reply.Line is null)
-                {
-                    // Silence, junk or a lost port ends the message, as on a real meter.
-                    return reply;
-                }
-
-                replies.Add(reply.Line);
-            }
-
-            return replies.Count == 0 ? TwinReply.Silence : TwinReply.Answer(string.Join(';', replies));
+            return ScpiMessage.Answer(message, Execute);
         }
     }
 
     // Under _gate. Null: a setting, no reply.
-    private TwinReply? Execute(string command)
+    private TwinReply? Execute(string header, string argument)
     {
-        var space = command.IndexOf(' ', StringComparison.Ordinal);
-        var header = (space < 0 ? command : command[..space]).ToUpperInvariant();
-        var argument = space < 0 ? string.Empty : command[(space + 1)..].Trim();
         switch (header)
         {
             case "*IDN?":

@@ -46,32 +46,12 @@ public sealed class SourceMeterTwin : IDisposable
     {
         lock (_gate)
         {
-            var replies = new List<string>();
-            foreach (var part in message.Split(';'))
-            {
-                var reply = Execute(part.Trim().TrimStart(':'));
-                if (reply is null)
-                {
-                    continue;
-                }
-
-                if (reply.Line is null)
-                {
-                    return reply;
-                }
-
-                replies.Add(reply.Line);
-            }
-
-            return replies.Count == 0 ? TwinReply.Silence : TwinReply.Answer(string.Join(';', replies));
+            return ScpiMessage.Answer(message, Execute);
         }
     }
 
-    private TwinReply? Execute(string command)
+    private TwinReply? Execute(string header, string argument)
     {
-        var space = command.IndexOf(' ', StringComparison.Ordinal);
-        var header = (space < 0 ? command : command[..space]).ToUpperInvariant();
-        var argument = space < 0 ? string.Empty : command[(space + 1)..].Trim();
         switch (header)
         {
             case "*IDN?":
