@@ -830,37 +830,18 @@ public sealed partial class BatchCoordinator
 
     internal async Task FinishAsync(BatchState batch, UnitContext unit)
     {
-        var request = batch.Request;
         var verdict = unit.Machine.State switch
         {
             Core.Units.UnitState.Passed => Verdict.Pass,
             Core.Units.UnitState.Failed => Verdict.Fail,
             _ => Verdict.Error,
         };
-        var record = new RunRecord
+
+        // The same record the journal keeps while the run is in progress, now with its verdict.
+        var record = RunJournalWriter.Snapshot(batch, unit, _fixture.Id, _time.GetUtcNow()) with
         {
-            Id = unit.RunId,
-            Serial = unit.Serial,
-            Product = request.Sequence.Product,
-            SequenceId = request.Sequence.Id,
-            SequenceRevision = request.Sequence.Revision,
-            SequenceSha256 = request.SequenceSha256,
-            Station = request.Station,
-            Fixture = _fixture.Id,
-            Slot = unit.Slot,
-            Operator = request.Operator,
-            Lot = request.Lot,
-            BatchId = batch.Id,
-            Mode = request.Mode,
-            StartedUtc = unit.Started,
-            EndedUtc = _time.GetUtcNow(),
             Verdict = verdict,
             Reason = verdict == Verdict.Pass ? null : unit.Machine.Reason,
-            FirstFailingReading = unit.FirstFailingReading,
-            Readings = unit.Readings.ToList(),
-            Trim = unit.Trim,
-            Setpoints = unit.Setpoints.ToList(),
-            Firmware = unit.Firmware,
         };
         unit.Record = record;
         try
