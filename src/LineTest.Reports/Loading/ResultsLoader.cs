@@ -10,13 +10,29 @@ namespace LineTest.Reports.Loading;
 /// </summary>
 public static class ResultsLoader
 {
+    /// <summary>Below this many runs per range the readings are read on one connection: a range costs a connection.</summary>
+    internal const long MinRunsPerPart = 20_000;
+
     /// <summary>
     /// Loads the runs and readings matching <paramref name="query"/> from <c>results.db</c> in each folder.
     /// With more than one folder the readings are put into the time order of their runs.
     /// </summary>
     /// <exception cref="ResultStoreException">A database cannot be opened or read; the message names it.</exception>
-    public static async Task<ReportData> LoadAsync(IReadOnlyList<string> resultsDirectories, ReportQuery query, CancellationToken ct = default)
+    public static Task<ReportData> LoadAsync(IReadOnlyList<string> resultsDirectories, ReportQuery query, CancellationToken ct = default) =>
+        LoadAsync(resultsDirectories, query, parts: null, ct);
+
+    /// <summary>
+    /// As <see cref="LoadAsync(IReadOnlyList{string}, ReportQuery, CancellationToken)"/>, reading each database's
+    /// readings in <paramref name="parts"/> seq ranges at once (null: one per core for a large database, else one).
+    /// The result does not depend on the number of ranges.
+    /// </summary>
+    public static async Task<ReportData> LoadAsync(IReadOnlyList<string> resultsDirectories, ReportQuery query, int? parts, CancellationToken ct = default)
     {
+        if (parts is int given)
+        {
+            ArgumentOutOfRangeException.ThrowIfLessThan(given, 1);
+        }
+
         ArgumentNullException.ThrowIfNull(resultsDirectories);
         ArgumentNullException.ThrowIfNull(query);
         if (resultsDirectories.Count == 0)
@@ -30,7 +46,7 @@ public static class ResultsLoader
         {
             var reader = SqliteResultReader.InDirectory(directory);
             data.AddSource(reader.DatabasePath);
-            await LoadOneAsync(reader, filter, data, ct).ConfigureAwait(false);
+            await LoadOneAsync(reader, filter, data, parts, ct).ConfigureAwait(false);
         }
 
         if (resultsDirectories.Count > 1)
@@ -41,16 +57,42 @@ public static class ResultsLoader
         return data;
     }
 
-    private static async Task LoadOneAsync(SqliteResultReader reader, RunFilter filter, ReportData data, CancellationToken ct)
+    private static async Task LoadOneAsync(SqliteResultReader reader, RunFilter filter, ReportData data, int? parts, CancellationToken ct)
     {
-        // Runs first (one row each), remembering their seq so readings can be matched by a merge walk:
-        // both streams come in ascending seq order, so no lookup table is needed.
+        // The runs that match now; pinning both scans to this range keeps runs and readings describing the same runs
+        // while the station goes on writing (runs are only appended).
+        if (await reader.ReadSeqRangeAsync(filter, ct).ConfigureAwait(false) is not { } range)
+        {
+            return;
+        }
+
+        // Runs on one connection and readings cut into seq ranges on others, all at once: a large database is
+        // read on every core. Each range keeps its rows in a compact buffer until the runs are known.
+        var pinned = filter with { FirstSeq = range.First, LastSeq = range.Last };
+        var runsTask = Task.Run(() => ReadRunsAsync(reader, pinned, data.Runs, ct), ct);
+        var rangeTasks = range.Split(parts ?? (range.Last - range.First + 1 >= MinRunsPerPart * 2 ? Environment.ProcessorCount : 1))
+            .Select(part => Task.Run(() => ReadingBuffer.FillAsync(reader, pinned with { FirstSeq = part.First, LastSeq = part.Last }, ct), ct))
+            .ToList();
+        var (firstIndex, seqs) = await runsTask.ConfigureAwait(false);
+        var buffers = await Task.WhenAll(rangeTasks).ConfigureAwait(false);
+
+        // Ranges are in seq order and each buffer is in seq order, so one forward walk over the runs' seqs finds each
+        // reading's run.
+        var position = 0;
+        foreach (var buffer in buffers)
+        {
+            position = buffer.AddTo(data, seqs, firstIndex, position);
+        }
+    }
+
+    private static async Task<(int FirstIndex, List<long> Seqs)> ReadRunsAsync(SqliteResultReader reader, RunFilter filter, RunTable runs, CancellationToken ct)
+    {
+        var firstIndex = runs.Count;
         var seqs = new List<long>();
-        var firstIndex = data.Runs.Count;
         await foreach (var run in reader.ReadRunsForReportAsync(filter, ct).ConfigureAwait(false))
         {
             seqs.Add(run.Seq);
-            data.Runs.Add(
+            runs.Add(
                 run.Serial,
                 run.EndedUtc,
                 run.Verdict,
@@ -63,28 +105,6 @@ public static class ResultsLoader
                 run.Reason);
         }
 
-        var position = 0;
-        ReadingSeries? series = null;
-        await foreach (var row in reader.ReadReadingValuesAsync(filter, ct).ConfigureAwait(false))
-        {
-            while (position < seqs.Count && seqs[position] < row.RunSeq)
-            {
-                position++;
-            }
-
-            if (position == seqs.Count || seqs[position] != row.RunSeq)
-            {
-                // A run stored after the run query was read (the station is still writing): leave it out so
-                // yield and readings describe the same runs.
-                continue;
-            }
-
-            if (series is null || !string.Equals(series.Name, row.Name, StringComparison.Ordinal))
-            {
-                series = data.Series(row.Name, row.Unit);
-            }
-
-            series.Add(firstIndex + position, row.Value, row.Unit, row.Low, row.High);
-        }
+        return (firstIndex, seqs);
     }
 }

@@ -56,6 +56,16 @@ internal static class FilterSql
             Add("r.serial = $serial", "$serial", filter.Serial);
         }
 
+        if (filter.FirstSeq is long first)
+        {
+            Add("r.seq >= $firstSeq", "$firstSeq", first);
+        }
+
+        if (filter.LastSeq is long last)
+        {
+            Add("r.seq <= $lastSeq", "$lastSeq", last);
+        }
+
         if (includeReadingNames && filter.ReadingNames is { Count: > 0 } names)
         {
             var placeholders = new List<string>(names.Count);
@@ -74,5 +84,17 @@ internal static class FilterSql
         {
             sql.Append(" WHERE ").AppendJoin(" AND ", conditions);
         }
+    }
+
+    /// <summary>The lowest and highest <c>seq</c> of the runs matching <paramref name="filter"/>; null when none match.</summary>
+    public static (long Low, long High)? SeqRange(SqliteConnection connection, RunFilter filter)
+    {
+        using var range = connection.CreateCommand();
+        var sql = new StringBuilder("SELECT min(r.seq), max(r.seq) FROM runs r");
+        AppendWhere(sql, range, filter, includeReadingNames: false);
+        range.CommandText = sql.ToString();
+        using var bounds = range.ExecuteReader();
+        bounds.Read();
+        return bounds.IsDBNull(0) ? null : (bounds.GetInt64(0), bounds.GetInt64(1));
     }
 }

@@ -30,22 +30,16 @@ internal sealed class ReadingJoin : IDisposable
 
         _readingCommand = connection.CreateCommand();
         var conditions = new List<string>();
-        if (HasRunCondition(filter))
+        if (filter.HasRunCondition)
         {
-            using var range = connection.CreateCommand();
-            var rangeSql = new StringBuilder("SELECT min(r.seq), max(r.seq) FROM runs r");
-            FilterSql.AppendWhere(rangeSql, range, filter, includeReadingNames: false);
-            range.CommandText = rangeSql.ToString();
-            using var bounds = range.ExecuteReader();
-            bounds.Read();
-            if (bounds.IsDBNull(0))
+            if (FilterSql.SeqRange(connection, filter) is not var (low, high))
             {
                 return;
             }
 
             conditions.Add("g.run_seq BETWEEN $low AND $high");
-            _readingCommand.Parameters.AddWithValue("$low", bounds.GetInt64(0));
-            _readingCommand.Parameters.AddWithValue("$high", bounds.GetInt64(1));
+            _readingCommand.Parameters.AddWithValue("$low", low);
+            _readingCommand.Parameters.AddWithValue("$high", high);
         }
 
         if (filter.ReadingNames is { Count: > 0 } names)
@@ -122,7 +116,4 @@ internal sealed class ReadingJoin : IDisposable
         _readingCommand.Dispose();
     }
 
-    private static bool HasRunCondition(RunFilter filter) =>
-        filter.FromUtc is not null || filter.ToUtc is not null || filter.Station is not null || filter.Slot is not null
-        || filter.Lot is not null || filter.SequenceId is not null || filter.SequenceRevision is not null || filter.Serial is not null;
 }

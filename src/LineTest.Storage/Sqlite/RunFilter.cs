@@ -34,7 +34,23 @@ public sealed record RunFilter
     public string? Serial { get; init; }
 
     /// <summary>
+    /// Lowest run <c>seq</c> (insertion order) to include. With <see cref="LastSeq"/> it cuts a large scan into
+    /// ranges that can be read on several connections at once, and pins a report to the runs that existed when
+    /// it started.
+    /// </summary>
+    public long? FirstSeq { get; init; }
+
+    /// <summary>Highest run <c>seq</c> to include (inclusive).</summary>
+    public long? LastSeq { get; init; }
+
+    /// <summary>
     /// Reading names to keep when reading readings (empty or null: all). Ignored when reading run summaries.
     /// </summary>
     public IReadOnlyCollection<string>? ReadingNames { get; init; }
+
+    /// <summary>True when any condition on the runs is set (reading names aside).</summary>
+    internal bool HasRunCondition =>
+        FromUtc is not null || ToUtc is not null || Station is not null || Slot is not null || Lot is not null
+        || SequenceId is not null || SequenceRevision is not null || Serial is not null || FirstSeq is not null
+        || LastSeq is not null;
 }

@@ -71,11 +71,29 @@ public sealed partial class SqliteResultReader
         }
     }
 
+    /// <summary>
+    /// The lowest and highest <c>seq</c> of the runs that match <paramref name="filter"/> now (null when none do). Runs
+    /// are only ever appended, so a later scan bounded by this range sees exactly these runs and their readings,
+    /// whatever the station writes meanwhile.
+    /// </summary>
+    /// <exception cref="ResultStoreException">The database cannot be opened or read.</exception>
+    public async Task<SeqRange?> ReadSeqRangeAsync(RunFilter? filter = null, CancellationToken ct = default)
+    {
+        await using var connection = await OpenAsync(ct).ConfigureAwait(false);
+        try
+        {
+            return FilterSql.SeqRange(connection, filter ?? RunFilter.All) is var (low, high) ? new SeqRange(low, high) : null;
+        }
+        catch (SqliteException ex)
+        {
+            throw SqliteFailures.Map(ex, "The results could not be read", DatabasePath);
+        }
+    }
+
     private sqlite3_stmt PrepareReadingScan(SqliteConnection connection, RunFilter filter)
     {
         var conditions = new List<string>();
-        if (filter.FromUtc is not null || filter.ToUtc is not null || filter.Station is not null || filter.Slot is not null
-            || filter.Lot is not null || filter.SequenceId is not null || filter.SequenceRevision is not null || filter.Serial is not null)
+        if (filter.HasRunCondition)
         {
             conditions.Add("g.run_seq BETWEEN ?1 AND ?2");
         }
@@ -100,7 +118,7 @@ public sealed partial class SqliteResultReader
         {
             if (conditions.Count > 0 && conditions[0].StartsWith("g.run_seq", StringComparison.Ordinal))
             {
-                var (low, high) = SeqRange(connection, filter);
+                var (low, high) = FilterSql.SeqRange(connection, filter) ?? (0, -1);
                 Check(db, raw.sqlite3_bind_int64(statement, 1, low));
                 Check(db, raw.sqlite3_bind_int64(statement, 2, high));
             }
@@ -117,17 +135,6 @@ public sealed partial class SqliteResultReader
             statement.Dispose();
             throw;
         }
-    }
-
-    private static (long Low, long High) SeqRange(SqliteConnection connection, RunFilter filter)
-    {
-        using var range = connection.CreateCommand();
-        var sql = new StringBuilder("SELECT ifnull(min(r.seq), 0), ifnull(max(r.seq), -1) FROM runs r");
-        FilterSql.AppendWhere(sql, range, filter, includeReadingNames: false);
-        range.CommandText = sql.ToString();
-        using var bounds = range.ExecuteReader();
-        bounds.Read();
-        return (bounds.GetInt64(0), bounds.GetInt64(1));
     }
 
     private bool Step(SqliteConnection connection, sqlite3_stmt statement)

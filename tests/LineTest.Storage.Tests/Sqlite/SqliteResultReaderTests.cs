@@ -46,6 +46,9 @@ public sealed class SqliteResultReaderTests
         { "unknown sequence id", new RunFilter { SequenceId = "other" }, [] },
         { "revision", new RunFilter { SequenceRevision = 4 }, [6, 7] },
         { "combined", new RunFilter { Station = "ST-01", Lot = "LOT-B", SequenceRevision = 3 }, [4] },
+        { "seq range (inclusive)", new RunFilter { FirstSeq = 3, LastSeq = 5 }, [2, 3, 4] },
+        { "seq range and station", new RunFilter { FirstSeq = 3, LastSeq = 6, Station = "ST-02" }, [3, 5] },
+        { "seq range past the end", new RunFilter { FirstSeq = 8, LastSeq = 100 }, [7] },
     };
 
     [Theory]

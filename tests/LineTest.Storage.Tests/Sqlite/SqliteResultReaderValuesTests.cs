@@ -19,6 +19,9 @@ public sealed class SqliteResultReaderValuesTests
         { "station and reading names", new RunFilter { Station = "ST-01", ReadingNames = ["verify.error"] } },
         { "no run matches", new RunFilter { Lot = "LOT-Z" } },
         { "no reading matches", new RunFilter { ReadingNames = ["no.such.reading"] } },
+        { "seq range", new RunFilter { FirstSeq = 3, LastSeq = 5 } },
+        { "seq range, station and reading names", new RunFilter { FirstSeq = 2, LastSeq = 7, Station = "ST-01", ReadingNames = ["verify.error"] } },
+        { "empty seq range", new RunFilter { FirstSeq = 5, LastSeq = 4 } },
     };
 
     [Theory]
@@ -34,6 +37,45 @@ public sealed class SqliteResultReaderValuesTests
         // The full scan is the reference: the narrow one must give the same readings, in the same order.
         var expected = full.Select(r => new ReadingValue(r.RunSeq, r.Name, r.Value, r.Unit, r.Low, r.High)).ToList();
         Assert.True(expected.SequenceEqual(narrow), what);
+    }
+
+    public static TheoryData<string, RunFilter, long?, long?> Ranges => new()
+    {
+        // Sample: eight runs, seq 1..8; station ST-0(1 + i%2) for run i, lot A for i < 4.
+        { "all", RunFilter.All, 1, 8 },
+        { "station", new RunFilter { Station = "ST-02" }, 2, 8 },
+        { "lot", new RunFilter { Lot = "LOT-A" }, 1, 4 },
+        { "seq bounds narrow further", new RunFilter { Lot = "LOT-B", LastSeq = 6 }, 5, 6 },
+        { "no run matches", new RunFilter { Lot = "LOT-Z" }, null, null },
+    };
+
+    [Theory]
+    [MemberData(nameof(Ranges))]
+    public async Task ReadSeqRangeAsync_Filter_FirstAndLastMatchingSeq(string what, RunFilter filter, long? first, long? last)
+    {
+        var (directory, _) = await SqliteResultReaderTests.StoreSample();
+
+        var range = await SqliteResultReader.InDirectory(directory).ReadSeqRangeAsync(filter);
+
+        Assert.True(first is null ? range is null : range == new SeqRange(first.Value, last!.Value), $"{what}: {range}");
+    }
+
+    [Fact]
+    public async Task ReadReadingValuesAsync_RangesSplit_TogetherGiveTheWholeScan()
+    {
+        var (directory, _) = await SqliteResultReaderTests.StoreSample();
+        var reader = SqliteResultReader.InDirectory(directory);
+        var whole = await SqliteResultReaderTests.ToList(reader.ReadReadingValuesAsync(new RunFilter { Station = "ST-01" }));
+
+        var pieces = new List<ReadingValue>();
+        foreach (var part in new SeqRange(1, 8).Split(3))
+        {
+            pieces.AddRange(await SqliteResultReaderTests.ToList(
+                reader.ReadReadingValuesAsync(new RunFilter { Station = "ST-01", FirstSeq = part.First, LastSeq = part.Last })));
+        }
+
+        Assert.NotEmpty(whole);
+        Assert.Equal(whole, pieces);
     }
 
     [Fact]

@@ -1,0 +1,81 @@
+using LineTest.Storage.Sqlite;
+
+namespace LineTest.Reports.Loading;
+
+/// <summary>
+/// The readings of one seq range, held compactly until their runs are known: per reading its run's seq, its value
+/// and the index of its (name, unit, limits), which take only a few distinct values. About 20 bytes a reading.
+/// </summary>
+internal sealed class ReadingBuffer
+{
+    private readonly List<long> _seqs = [];
+    private readonly List<double> _values = [];
+    private readonly List<int> _shapes = [];
+    private readonly List<Shape> _shapeList = [];
+    private readonly Dictionary<Shape, int> _shapeIndex = [];
+
+    /// <summary>Reads the readings of the runs matching <paramref name="filter"/> (one seq range) into a buffer.</summary>
+    public static async Task<ReadingBuffer> FillAsync(SqliteResultReader reader, RunFilter filter, CancellationToken ct)
+    {
+        var buffer = new ReadingBuffer();
+        var last = default(Shape);
+        var lastIndex = -1;
+        await foreach (var row in reader.ReadReadingValuesAsync(filter, ct).ConfigureAwait(false))
+        {
+            // Names and units are shared instances within a scan, so consecutive readings of one shape compare
+            // by reference first.
+            var shape = new Shape(row.Name, row.Unit, row.Low, row.High);
+            if (lastIndex < 0 || !shape.Equals(last))
+            {
+                if (!buffer._shapeIndex.TryGetValue(shape, out lastIndex))
+                {
+                    lastIndex = buffer._shapeList.Count;
+                    buffer._shapeList.Add(shape);
+                    buffer._shapeIndex.Add(shape, lastIndex);
+                }
+
+                last = shape;
+            }
+
+            buffer._seqs.Add(row.RunSeq);
+            // SQLite keeps no NaN (it stores NULL), so NaN stands for "no value" without ambiguity.
+            buffer._values.Add(row.Value ?? double.NaN);
+            buffer._shapes.Add(lastIndex);
+        }
+
+        return buffer;
+    }
+
+    /// <summary>
+    /// Adds the buffered readings to their series in <paramref name="data"/>. <paramref name="seqs"/> are the loaded
+    /// runs' seqs in ascending order, the run at <c>seqs[i]</c> having index <paramref name="firstIndex"/> + i; the
+    /// walk starts at <paramref name="position"/> and its end is returned for the next buffer. Readings whose run is
+    /// not among the loaded runs are left out, so yield and readings describe the same runs.
+    /// </summary>
+    public int AddTo(ReportData data, List<long> seqs, int firstIndex, int position)
+    {
+        var series = new ReadingSeries?[_shapeList.Count];
+        for (var i = 0; i < _seqs.Count; i++)
+        {
+            var seq = _seqs[i];
+            while (position < seqs.Count && seqs[position] < seq)
+            {
+                position++;
+            }
+
+            if (position == seqs.Count || seqs[position] != seq)
+            {
+                continue;
+            }
+
+            var shape = _shapeList[_shapes[i]];
+            var target = series[_shapes[i]] ??= data.Series(shape.Name, shape.Unit);
+            var value = _values[i];
+            target.Add(firstIndex + position, double.IsNaN(value) ? null : value, shape.Unit, shape.Low, shape.High);
+        }
+
+        return position;
+    }
+
+    private readonly record struct Shape(string Name, string Unit, double? Low, double? High);
+}
