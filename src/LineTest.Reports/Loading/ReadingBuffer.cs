@@ -8,9 +8,9 @@ namespace LineTest.Reports.Loading;
 /// </summary>
 internal sealed class ReadingBuffer
 {
-    private readonly List<long> _seqs = [];
-    private readonly List<double> _values = [];
-    private readonly List<int> _shapes = [];
+    private readonly Chunks<long> _seqs = new();
+    private readonly Chunks<double> _values = new();
+    private readonly Chunks<int> _shapes = new();
     private readonly List<Shape> _shapeList = [];
     private readonly Dictionary<Shape, int> _shapeIndex = [];
 
@@ -78,4 +78,30 @@ internal sealed class ReadingBuffer
     }
 
     private readonly record struct Shape(string Name, string Unit, double? Low, double? High);
+
+    /// <summary>
+    /// An append-only list in fixed chunks: millions of entries without the copying of a growing list, whose doubling
+    /// copies would move every entry again.
+    /// </summary>
+    private sealed class Chunks<T>
+    {
+        private const int Shift = 17;
+        private const int Mask = (1 << Shift) - 1;
+        private readonly List<T[]> _chunks = [];
+
+        public int Count { get; private set; }
+
+        public T this[int index] => _chunks[index >> Shift][index & Mask];
+
+        public void Add(T item)
+        {
+            if ((Count & Mask) == 0)
+            {
+                _chunks.Add(new T[1 << Shift]);
+            }
+
+            _chunks[^1][Count & Mask] = item;
+            Count++;
+        }
+    }
 }

@@ -90,9 +90,13 @@ internal static class FilterSql
     public static (long Low, long High)? SeqRange(SqliteConnection connection, RunFilter filter)
     {
         using var range = connection.CreateCommand();
-        var sql = new StringBuilder("SELECT min(r.seq), max(r.seq) FROM runs r");
-        AppendWhere(sql, range, filter, includeReadingNames: false);
-        range.CommandText = sql.ToString();
+        var where = new StringBuilder();
+        AppendWhere(where, range, filter, includeReadingNames: false);
+
+        // Two ordered look-ups rather than min() and max() together, which SQLite answers by scanning every matching
+        // run: this way both ends come from the seq order directly.
+        range.CommandText =
+            $"SELECT (SELECT r.seq FROM runs r{where} ORDER BY r.seq LIMIT 1), (SELECT r.seq FROM runs r{where} ORDER BY r.seq DESC LIMIT 1);";
         using var bounds = range.ExecuteReader();
         bounds.Read();
         return bounds.IsDBNull(0) ? null : (bounds.GetInt64(0), bounds.GetInt64(1));
