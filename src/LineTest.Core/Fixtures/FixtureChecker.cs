@@ -33,6 +33,8 @@ public static class FixtureChecker
         }
 
         CheckSourceMeter(fixture, problems);
+        CheckScanner(fixture.Scanner, problems);
+        CheckPorts(fixture, problems);
         if (fixture.Simulation is { } sim)
         {
             problems.AddIf(!(sim.UnitLagTimeConstantSeconds > 0), "$.simulation.unitLagTimeConstantSeconds", "must be positive");
@@ -121,6 +123,54 @@ public static class FixtureChecker
         problems.AddIf(!(smu.NoiseVolts >= 0) || !double.IsFinite(smu.NoiseVolts), "$.sourceMeter.noiseVolts", "the noise must be zero or a positive number of volts");
         problems.AddIf(fixture.Rig == "serial" && smu.Port is null, "$.sourceMeter", "a serial rig needs the source-measure unit's port");
         problems.AddIf(channels.Count == 0, "$.sourceMeter", "no slot is wired to the source-measure unit: give each slot its smuChannel");
+    }
+
+    private static void CheckScanner(ScannerDefinition? scanner, ProblemList problems)
+    {
+        if (scanner is null)
+        {
+            return;
+        }
+
+        switch (scanner.Kind)
+        {
+            case "serial":
+                problems.AddIf(scanner.Port is null, "$.scanner", "a serial scanner needs its port, e.g. \"port\": { \"name\": \"/dev/ttyACM0\", \"baud\": 9600 }");
+                break;
+            case "keyboard":
+                problems.AddIf(scanner.Port is not null, "$.scanner.port", "a keyboard scanner has no port: set kind to 'serial' or remove the port");
+                break;
+            default:
+                problems.Add("$.scanner.kind", $"unknown scanner kind '{scanner.Kind}' (known: keyboard, serial)");
+                break;
+        }
+    }
+
+    // Every port that is given must be usable: a name, a baud rate, a timeout; the drivers would otherwise fail when opened.
+    private static void CheckPorts(FixtureDefinition fixture, ProblemList problems)
+    {
+        CheckPort(fixture.Source.Port, "$.source.port", problems);
+        CheckPort(fixture.Reference.Port, "$.reference.port", problems);
+        CheckPort(fixture.Meter.Port, "$.meter.port", problems);
+        CheckPort(fixture.SourceMeter?.Port, "$.sourceMeter.port", problems);
+        CheckPort(fixture.Scanner?.Port, "$.scanner.port", problems);
+        for (var i = 0; i < fixture.Slots.Count; i++)
+        {
+            CheckPort(fixture.Slots[i].UnitPort, $"$.slots[{i}].unitPort", problems);
+        }
+    }
+
+    private static void CheckPort(PortDefinition? port, string path, ProblemList problems)
+    {
+        if (port is null)
+        {
+            return;
+        }
+
+        problems.AddIf(string.IsNullOrWhiteSpace(port.Name), $"{path}.name", "the port needs a name, e.g. /dev/ttyUSB0 or COM3");
+        problems.AddIf(port.Baud < 1, $"{path}.baud", "the baud rate must be positive");
+        problems.AddIf(port.TimeoutMs < 1, $"{path}.timeoutMs", "the timeout must be at least 1 ms");
+        problems.AddIf(port.Retries < 0, $"{path}.retries", "the number of retries cannot be negative");
     }
 
     private static string F(double value) => value.ToString("0.###", CultureInfo.InvariantCulture);

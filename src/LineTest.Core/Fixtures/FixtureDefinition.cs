@@ -34,6 +34,9 @@ public sealed record FixtureDefinition
     /// <summary>The source-measure unit for I–V sweeps, or null when the fixture has none.</summary>
     public SourceMeterDefinition? SourceMeter { get; init; }
 
+    /// <summary>The barcode scanner, or null for the keyboard (a keyboard-wedge scanner types each code and Enter).</summary>
+    public ScannerDefinition? Scanner { get; init; }
+
     /// <summary>The slots, each holding one unit.</summary>
     public required IReadOnlyList<SlotDefinition> Slots { get; init; }
 

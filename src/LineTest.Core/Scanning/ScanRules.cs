@@ -11,10 +11,12 @@ public sealed class ScanRules
     private readonly Regex _pattern;
 
     /// <summary>Creates the rules for a sequence's serial pattern.</summary>
-    public ScanRules(string serialPattern)
+    /// <param name="serialPattern">The sequence's serial pattern (a .NET regular expression).</param>
+    /// <param name="matchTimeout">Longest time one match may take (default 1 s), so a pathological pattern cannot stall the station.</param>
+    public ScanRules(string serialPattern, TimeSpan? matchTimeout = null)
     {
         ArgumentException.ThrowIfNullOrWhiteSpace(serialPattern);
-        _pattern = new Regex(serialPattern, RegexOptions.None, TimeSpan.FromSeconds(1));
+        _pattern = new Regex(serialPattern, RegexOptions.None, matchTimeout ?? TimeSpan.FromSeconds(1));
         Pattern = serialPattern;
     }
 
@@ -36,7 +38,17 @@ public sealed class ScanRules
             return ScanDecision.Refuse(serial, "nothing was scanned");
         }
 
-        if (!_pattern.IsMatch(serial))
+        bool matches;
+        try
+        {
+            matches = _pattern.IsMatch(serial);
+        }
+        catch (RegexMatchTimeoutException)
+        {
+            return ScanDecision.Refuse(serial, $"checking '{serial}' against the serial pattern {Pattern} took too long (the pattern backtracks too much: ask the test engineer to simplify it)");
+        }
+
+        if (!matches)
         {
             return ScanDecision.Refuse(serial, $"'{serial}' is not a serial of this product (expected {Pattern})");
         }

@@ -121,12 +121,16 @@ public sealed class ScpiVoltmeter : IVoltmeter, IIdentifiableInstrument
         }
     }
 
-    /// <summary>Parses an error-queue entry: null for <c>+0,…</c>, else the entry as it stands.</summary>
+    /// <summary>
+    /// Parses an error-queue entry <c>code,"text"</c> (SCPI-1999 SYSTem:ERRor): null for code 0, else the entry as it
+    /// stands. Anything else is garbage, so that a garbled reply is never taken for an empty queue.
+    /// </summary>
     public static ReplyParse<string?> ParseErrorEntry(string reply)
     {
         ArgumentNullException.ThrowIfNull(reply);
         var comma = reply.IndexOf(',', StringComparison.Ordinal);
-        if (comma < 1 || !int.TryParse(reply.AsSpan(0, comma), NumberStyles.AllowLeadingSign, CultureInfo.InvariantCulture, out var code))
+        if (comma < 1 || !WireNumber.TryParseWhole(reply.AsSpan(0, comma), out var code) || code is < int.MinValue or > int.MaxValue
+            || reply.Length < comma + 3 || reply[comma + 1] != '"' || reply[^1] != '"')
         {
             return ReplyParse<string?>.NotUnderstood("an error-queue entry is code,\"text\"");
         }
@@ -134,8 +138,9 @@ public sealed class ScpiVoltmeter : IVoltmeter, IIdentifiableInstrument
         return ReplyParse<string?>.Ok(code == 0 ? null : reply);
     }
 
-    private static ReplyParse<double> ParseReading(string reply)
-        => double.TryParse(reply, NumberStyles.Float, CultureInfo.InvariantCulture, out var volts) && !double.IsNaN(volts)
+    /// <summary>Parses a reading: an NR3 number; the SCPI overload value 9.9E37 (or larger) is a reading, judged by the caller.</summary>
+    public static ReplyParse<double> ParseReading(string reply)
+        => WireNumber.TryParseDecimal(reply, out var volts)
             ? ReplyParse<double>.Ok(volts)
             : ReplyParse<double>.NotUnderstood("not an NR3 number");
 

@@ -32,10 +32,13 @@ public sealed class SerialReferenceReadout : IReferenceReadout, IIdentifiableIns
 
     /// <inheritdoc/>
     public Task<double> ReadRawAsync(CancellationToken cancellationToken)
-        => Line.QueryAsync(ReferenceCommands.Measure, ParseMeasurement, cancellationToken);
+        => Line.QueryAsync(ReferenceCommands.Measure, reply => ParseMeasurement(reply, _unit), cancellationToken);
 
-    private ReplyParse<double> ParseMeasurement(string reply)
+    /// <summary>Parses a <c>MEAS?</c> reply <c>value,unit</c> that must carry <paramref name="unit"/> (or an error reply).</summary>
+    public static ReplyParse<double> ParseMeasurement(string reply, string unit)
     {
+        ArgumentNullException.ThrowIfNull(reply);
+        ArgumentNullException.ThrowIfNull(unit);
         if (Replies.IsError(reply, out var error))
         {
             return ReplyParse<double>.Error(error);
@@ -47,10 +50,10 @@ public sealed class SerialReferenceReadout : IReferenceReadout, IIdentifiableIns
             return ReplyParse<double>.NotUnderstood("a reading is value,unit");
         }
 
-        var unit = reply[(comma + 1)..];
-        if (unit != _unit)
+        var reported = reply[(comma + 1)..];
+        if (reported != unit)
         {
-            return ReplyParse<double>.NotUnderstood($"the readout reports {unit} but the fixture's sensor needs {_unit}: set the readout's function");
+            return ReplyParse<double>.NotUnderstood($"the readout reports {reported} but the fixture's sensor needs {unit}: set the readout's function");
         }
 
         return Replies.ParseNumber(reply[..comma]);

@@ -1,5 +1,6 @@
 using System.Globalization;
 using LineTest.Rig.Instruments;
+using LineTest.Rig.Serial.Scanner;
 using LineTest.Rig.Serial.Transport;
 
 namespace LineTest.Rig.Serial.Rigs;
@@ -46,6 +47,38 @@ public static class RigProbe
         }
 
         return results;
+    }
+
+    /// <summary>
+    /// Probes a serial scanner. A scanner only sends, so there is no identity to ask: its port is opened and listened
+    /// to for <paramref name="listen"/>. A code scanned meanwhile is shown; bytes that are not a serial point to a wrong
+    /// baud rate or line end; silence only proves that the port opens.
+    /// </summary>
+    public static async Task<ProbeResult> ProbeScannerAsync(SerialScanner scanner, TimeSpan listen, CancellationToken cancellationToken)
+    {
+        ArgumentNullException.ThrowIfNull(scanner);
+        const string Name = "scanner";
+        const string Identity = "listens only";
+        var port = scanner.Port.Name;
+        using var window = CancellationTokenSource.CreateLinkedTokenSource(cancellationToken);
+        window.CancelAfter(listen);
+        try
+        {
+            var scan = await scanner.NextAsync(window.Token).ConfigureAwait(false);
+            return scan.Serial is { } serial
+                ? new ProbeResult(Name, port, ProbeStatus.Usable, Identity, $"scanned '{serial}'", null)
+                : new ProbeResult(Name, port, ProbeStatus.Unusable, Identity, null,
+                    $"what came is not a serial ({scan.Problem}): check the scanner's baud rate and that it sends CR or LF after each code");
+        }
+        catch (OperationCanceledException) when (!cancellationToken.IsCancellationRequested)
+        {
+            return new ProbeResult(Name, port, ProbeStatus.Usable, Identity,
+                string.Create(CultureInfo.InvariantCulture, $"port opens; nothing scanned within {listen.TotalSeconds:0.#} s (scan a label while probing to see a code)"), null);
+        }
+        catch (InstrumentFaultException fault)
+        {
+            return new ProbeResult(Name, port, ProbeStatus.Unusable, null, null, fault.Message);
+        }
     }
 
     private static string Celsius(double value) => string.Create(CultureInfo.InvariantCulture, $"{value:F3} °C");

@@ -3,16 +3,16 @@ using System.Text;
 using LineTest.Core.Fixtures;
 using LineTest.Rig.Instruments;
 using LineTest.Rig.Serial.Logging;
-using LineTest.Rig.Serial.Transport;
 using Microsoft.Extensions.Logging;
 
 namespace LineTest.Rig.Serial.Scanner;
 
 /// <summary>
-/// A scanner on a serial port that sends each code as one line. It only listens: it waits as long as it takes for the
-/// next line, in slices of the port's timeout so that cancellation is noticed. A line with non-printable bytes, an
-/// over-long one or one without a line end is a rejected scan; a lost port is an
-/// <see cref="InstrumentFaultException"/> and the port is reopened on the next call.
+/// A scanner on a serial port that sends each code as one line (ended by CR, LF or CR LF). It only listens: it waits as
+/// long as it takes for the next line, in slices of the port's timeout so that cancellation is noticed. A line with
+/// non-printable bytes, an over-long one or one that gets no line end within the port's timeout of its first byte is a
+/// rejected scan (<see cref="ScanListener"/>); a lost port is an <see cref="InstrumentFaultException"/> and the port
+/// is reopened on the next call.
 /// </summary>
 public sealed class SerialScanner : IBarcodeScanner, IDisposable
 {
@@ -22,7 +22,11 @@ public sealed class SerialScanner : IBarcodeScanner, IDisposable
     private readonly ILogger _logger;
     private readonly TimeProvider _clock;
 
-    // Concurrency: one NextAsync at a time (the station has one scan loop); _serial is touched only there and in Dispose.
+    private readonly byte[] _chunk = new byte[256];
+
+    // Concurrency: one NextAsync at a time (the station has one scan loop); _serial and _listener are touched only
+    // there and in Dispose.
+    private ScanListener _listener;
     private SerialPort? _serial;
 
     /// <summary>Creates the scanner; the port is opened on the first call.</summary>
@@ -31,10 +35,16 @@ public sealed class SerialScanner : IBarcodeScanner, IDisposable
         ArgumentNullException.ThrowIfNull(port);
         ArgumentNullException.ThrowIfNull(logger);
         ArgumentNullException.ThrowIfNull(clock);
+        ArgumentOutOfRangeException.ThrowIfLessThan(port.TimeoutMs, 1);
+        ArgumentOutOfRangeException.ThrowIfLessThan(port.Baud, 1);
         _port = port;
         _logger = logger;
         _clock = clock;
+        _listener = new ScanListener(port.TimeoutMs, clock);
     }
+
+    /// <summary>The port the scanner is on.</summary>
+    public PortDefinition Port => _port;
 
     /// <inheritdoc/>
     public Task<ScanResult> NextAsync(CancellationToken cancellationToken) => Task.Run(() => Next(cancellationToken), cancellationToken);
@@ -46,47 +56,59 @@ public sealed class SerialScanner : IBarcodeScanner, IDisposable
         _serial = null;
     }
 
+    // A lost port: whatever part of a code had arrived is gone with it.
+    private void Lose()
+    {
+        Dispose();
+        _listener = new ScanListener(_port.TimeoutMs, _clock);
+    }
+
     private ScanResult Next(CancellationToken cancellationToken)
     {
         while (true)
         {
+            if (_listener.TryTake(out var result))
+            {
+                if (result.Serial is { } serial)
+                {
+                    SerialLog.Scanned(_logger, _port.Name, serial);
+                }
+                else
+                {
+                    SerialLog.ScanRejected(_logger, _port.Name, result.Problem!);
+                }
+
+                return result;
+            }
+
             cancellationToken.ThrowIfCancellationRequested();
             var port = Open();
-            LineRead read;
+            int count;
             try
             {
-                read = LineReader.Read(port, _clock, _port.TimeoutMs, SerialText.MaxLength * 2);
+                port.ReadTimeout = _listener.WaitMs(_clock.GetTimestamp(), _port.TimeoutMs);
+                count = port.Read(_chunk, 0, _chunk.Length);
+            }
+            catch (TimeoutException)
+            {
+                count = 0;
             }
             catch (Exception ex) when (ex is IOException or InvalidOperationException or UnauthorizedAccessException)
             {
-                Dispose();
+                Lose();
                 throw new InstrumentFaultException($"{Name} on {_port.Name}", InstrumentFaultKind.PortLost,
                     $"port {_port.Name} was lost ({ex.Message}): check the scanner's cable; the port is reopened on the next scan", ex);
             }
 
-            if (read.IsSilence)
+            var now = _clock.GetTimestamp();
+            _listener.Receive(_chunk.AsSpan(0, count), now);
+            _listener.Expire(now);
+            if (count == 0 && _port.Name.StartsWith('/') && !File.Exists(_port.Name))
             {
-                if (_port.Name.StartsWith('/') && !File.Exists(_port.Name))
-                {
-                    Dispose();
-                    throw new InstrumentFaultException($"{Name} on {_port.Name}", InstrumentFaultKind.PortLost,
-                        $"port {_port.Name} disappeared: check the scanner's cable; the port is reopened on the next scan");
-                }
-
-                continue;
+                Lose();
+                throw new InstrumentFaultException($"{Name} on {_port.Name}", InstrumentFaultKind.PortLost,
+                    $"port {_port.Name} disappeared: check the scanner's cable; the port is reopened on the next scan");
             }
-
-            var result = read.Line is { } line ? SerialText.Check(line) : ScanResult.Rejected(read.Problem!);
-            if (result.Serial is { } serial)
-            {
-                SerialLog.Scanned(_logger, _port.Name, serial);
-            }
-            else
-            {
-                SerialLog.ScanRejected(_logger, _port.Name, result.Problem!);
-            }
-
-            return result;
         }
     }
 

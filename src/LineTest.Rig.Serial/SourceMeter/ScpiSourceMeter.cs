@@ -75,14 +75,15 @@ public sealed class ScpiSourceMeter : ISourceMeter, IIdentifiableInstrument
     {
         ArgumentNullException.ThrowIfNull(reply);
         var comma = reply.IndexOf(',', StringComparison.Ordinal);
+        var flag = comma < 0 ? default : WireNumber.TrimBlanks(reply.AsSpan(comma + 1));
         if (comma < 1
-            || !double.TryParse(reply.AsSpan(0, comma), NumberStyles.Float, CultureInfo.InvariantCulture, out var volts) || !double.IsFinite(volts)
-            || reply[(comma + 1)..].Trim() is not ("0" or "1"))
+            || !WireNumber.TryParseDecimal(reply.AsSpan(0, comma), out var volts) || !double.IsFinite(volts)
+            || !(flag is "0" or "1"))
         {
             return ReplyParse<SourceMeterReading>.NotUnderstood("a reading is <volts NR3>,<compliance 0|1>");
         }
 
-        return ReplyParse<SourceMeterReading>.Ok(new SourceMeterReading(volts, reply[(comma + 1)..].Trim() == "1"));
+        return ReplyParse<SourceMeterReading>.Ok(new SourceMeterReading(volts, flag is "1"));
     }
 
     private async Task EnsureConfiguredAsync(CancellationToken cancellationToken)

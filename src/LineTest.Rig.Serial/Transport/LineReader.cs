@@ -1,28 +1,24 @@
-using System.Globalization;
 using System.IO.Ports;
-using System.Text;
 
 namespace LineTest.Rig.Serial.Transport;
 
 /// <summary>
-/// Reads one line (ended by LF; a CR before it is dropped) from a serial port by a wall-clock deadline, and judges
-/// its framing: only printable ASCII (0x20–0x7E, and TAB) is allowed, and a line may not exceed a maximum length.
+/// Reads one reply line (ended by LF; a CR before it is dropped) from a serial port by a wall-clock deadline; the
+/// bytes are judged by a <see cref="LineAssembler"/>: only printable ASCII (0x20–0x7E, and TAB), at most a maximum length.
 /// </summary>
 internal static class LineReader
 {
     public static LineRead Read(SerialPort port, TimeProvider clock, int timeoutMs, int maxLength)
     {
         var started = clock.GetTimestamp();
-        var received = new List<byte>(64);
+        var assembler = new LineAssembler(maxLength, carriageReturnEndsLine: false, "reply");
         var chunk = new byte[256];
         while (true)
         {
             var remaining = timeoutMs - (int)clock.GetElapsedTime(started).TotalMilliseconds;
             if (remaining <= 0)
             {
-                return received.Count == 0
-                    ? new LineRead(null, null)
-                    : new LineRead(null, $"an incomplete reply '{Show(received)}' (no line end within {timeoutMs} ms)");
+                return assembler.Abandon(timeoutMs) ?? new LineRead(null, null);
             }
 
             port.ReadTimeout = remaining;
@@ -38,60 +34,12 @@ internal static class LineReader
 
             for (var i = 0; i < count; i++)
             {
-                var b = chunk[i];
-                if (b == (byte)'\n')
+                if (assembler.Take(chunk[i]) is { } line)
                 {
-                    if (received.Count > 0 && received[^1] == (byte)'\r')
-                    {
-                        received.RemoveAt(received.Count - 1);
-                    }
-
-                    return Judge(received, maxLength);
-                }
-
-                received.Add(b);
-                if (received.Count > maxLength + 1)
-                {
-                    return new LineRead(null, string.Create(CultureInfo.InvariantCulture, $"a reply longer than {maxLength} characters ('{Show(received.Take(40))}…')"));
+                    // Anything after the line end is stale: the next command discards unread input first.
+                    return line;
                 }
             }
         }
-    }
-
-    /// <summary>The bytes in a form fit for a message: printable ASCII as is, anything else as <c>&lt;XX&gt;</c>.</summary>
-    public static string Show(IEnumerable<byte> bytes)
-    {
-        var text = new StringBuilder();
-        foreach (var b in bytes)
-        {
-            if (IsPrintable(b))
-            {
-                text.Append((char)b);
-            }
-            else
-            {
-                text.Append(CultureInfo.InvariantCulture, $"<{b:X2}>");
-            }
-        }
-
-        return text.ToString();
-    }
-
-    private static bool IsPrintable(byte b) => b is >= 0x20 and <= 0x7E or (byte)'\t';
-
-    private static LineRead Judge(List<byte> line, int maxLength)
-    {
-        if (line.Count > maxLength)
-        {
-            return new LineRead(null, string.Create(CultureInfo.InvariantCulture, $"a reply longer than {maxLength} characters ('{Show(line.Take(40))}…')"));
-        }
-
-        var bad = line.FindIndex(b => !IsPrintable(b));
-        if (bad >= 0)
-        {
-            return new LineRead(null, string.Create(CultureInfo.InvariantCulture, $"a reply with the non-printable byte 0x{line[bad]:X2} at position {bad + 1} ('{Show(line)}')"));
-        }
-
-        return new LineRead(Encoding.ASCII.GetString(line.ToArray()), null);
     }
 }

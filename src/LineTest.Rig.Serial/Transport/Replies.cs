@@ -17,7 +17,7 @@ public static class Replies
     /// <summary>An error reply: <c>ERR code,text</c>.</summary>
     public static string Error(int code, string text) => string.Create(CultureInfo.InvariantCulture, $"{ErrorPrefix}{code},{text}");
 
-    /// <summary>Parses a finite number (or an error reply).</summary>
+    /// <summary>Parses a finite number as <see cref="WireNumber.TryParseDecimal"/> reads it (or an error reply).</summary>
     public static ReplyParse<double> ParseNumber(string reply)
     {
         ArgumentNullException.ThrowIfNull(reply);
@@ -26,7 +26,7 @@ public static class Replies
             return ReplyParse<double>.Error(error);
         }
 
-        return double.TryParse(reply, NumberStyles.Float, CultureInfo.InvariantCulture, out var value) && double.IsFinite(value)
+        return WireNumber.TryParseDecimal(reply, out var value) && double.IsFinite(value)
             ? ReplyParse<double>.Ok(value)
             : ReplyParse<double>.NotUnderstood("not a number");
     }

@@ -64,7 +64,7 @@ public static partial class UnitLinkCommands
         foreach (var item in list.Split(','))
         {
             var eq = item.IndexOf('=', StringComparison.Ordinal);
-            if (eq < 1 || !IsRegisterName(item[..eq]) || !long.TryParse(item.AsSpan(eq + 1), NumberStyles.AllowLeadingSign, CultureInfo.InvariantCulture, out var value)
+            if (eq < 1 || !IsRegisterName(item[..eq]) || !Transport.WireNumber.TryParseWhole(item.AsSpan(eq + 1), out var value)
                 || !values.TryAdd(item[..eq], value))
             {
                 return null;
@@ -74,6 +74,7 @@ public static partial class UnitLinkCommands
         return values;
     }
 
-    [GeneratedRegex("^[A-Z][A-Z0-9_]*$", RegexOptions.CultureInvariant)]
+    // \z, not $: $ also matches before a final line feed, which would let "GAIN\n" through as a name.
+    [GeneratedRegex(@"^[A-Z][A-Z0-9_]*\z", RegexOptions.CultureInvariant)]
     private static partial Regex RegisterName();
 }

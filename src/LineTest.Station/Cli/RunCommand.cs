@@ -14,7 +14,7 @@ public static class RunCommand
     public static Command Create(CliContext context)
     {
         ArgumentNullException.ThrowIfNull(context);
-        var command = new Command("run", "Start the station from appsettings.json (serials typed or scanned on the keyboard)");
+        var command = new Command("run", "Start the station from appsettings.json (serials typed, from a keyboard-wedge scanner, or from the fixture's serial scanner)");
         command.SetAction(async (parse, ct) =>
         {
             var problems = context.Options.Validate();

@@ -4,13 +4,14 @@ using System.Threading.Channels;
 namespace LineTest.Station.Hosting;
 
 /// <summary>
-/// Lines from the operator's keyboard (and a keyboard-wedge scanner, which types the serial and Enter).
-/// On a terminal, keys are read one by one so the screen can show what is being typed; otherwise whole lines are
-/// read from standard input. End of input completes the channel.
+/// What the operator does, in order: lines from the keyboard (and a keyboard-wedge scanner, which types the serial and
+/// Enter) and, when the fixture has one, codes from the serial scanner (<see cref="Post"/>). On a terminal, keys are
+/// read one by one so the screen can show what is being typed; otherwise whole lines are read from standard input.
+/// End of keyboard input completes the channel.
 /// </summary>
 public sealed class OperatorInput : IDisposable
 {
-    private readonly Channel<string> _lines = Channel.CreateUnbounded<string>(new UnboundedChannelOptions { SingleReader = true });
+    private readonly Channel<OperatorEntry> _lines = Channel.CreateUnbounded<OperatorEntry>(new UnboundedChannelOptions { SingleReader = true });
     private readonly StringBuilder _buffer = new();
     private readonly Lock _gate = new();
     private readonly CancellationTokenSource _stop = new();
@@ -51,7 +52,7 @@ public sealed class OperatorInput : IDisposable
             {
                 while (await reader.ReadLineAsync(input._stop.Token).ConfigureAwait(false) is { } line)
                 {
-                    await input._lines.Writer.WriteAsync(line, input._stop.Token).ConfigureAwait(false);
+                    await input._lines.Writer.WriteAsync(OperatorEntry.Typed(line), input._stop.Token).ConfigureAwait(false);
                 }
             }
             catch (OperationCanceledException)
@@ -65,8 +66,15 @@ public sealed class OperatorInput : IDisposable
         return input;
     }
 
-    /// <summary>The next line, or null at end of input.</summary>
-    public async Task<string?> ReadLineAsync(CancellationToken cancellationToken)
+    /// <summary>Adds an entry from another source (the serial scanner); false once keyboard input has ended.</summary>
+    public bool Post(OperatorEntry entry)
+    {
+        ArgumentNullException.ThrowIfNull(entry);
+        return _lines.Writer.TryWrite(entry);
+    }
+
+    /// <summary>The next entry, or null at end of keyboard input.</summary>
+    public async Task<OperatorEntry?> ReadAsync(CancellationToken cancellationToken)
     {
         try
         {
@@ -104,7 +112,7 @@ public sealed class OperatorInput : IDisposable
             {
                 if (key.Key == ConsoleKey.Enter)
                 {
-                    _lines.Writer.TryWrite(_buffer.ToString());
+                    _lines.Writer.TryWrite(OperatorEntry.Typed(_buffer.ToString()));
                     _buffer.Clear();
                 }
                 else if (key.Key == ConsoleKey.Backspace && _buffer.Length > 0)

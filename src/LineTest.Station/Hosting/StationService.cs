@@ -4,6 +4,7 @@ using LineTest.Core.Results;
 using LineTest.Core.Scanning;
 using LineTest.Core.Sequences;
 using LineTest.Core.Throughput;
+using LineTest.Rig.Serial.Scanner;
 using LineTest.Rig.Simulation;
 using LineTest.Runtime.Batches;
 using LineTest.Station.Cli;
@@ -18,9 +19,10 @@ using Spectre.Console;
 namespace LineTest.Station.Hosting;
 
 /// <summary>
-/// The station as a hosted service. The operator scans serials (a keyboard-wedge scanner types the serial and
-/// Enter); each goes into the next free slot, or into slot N when typed as <c>N SERIAL</c>. An empty line starts
-/// the batch (it starts by itself when every slot is full). While a batch runs, <c>cancel</c> cancels it and
+/// The station as a hosted service. The operator scans serials — a keyboard-wedge scanner types the serial and
+/// Enter; a serial scanner named by the fixture sends it on its port — and each goes into the next free slot, or into
+/// slot N when typed as <c>N SERIAL</c>. Both go through the same scan rules. An empty line starts the batch (it
+/// starts by itself when every slot is full). While a batch runs, <c>cancel</c> cancels it and
 /// <c>cancel N</c> cancels slot N, each after a confirmation. On a terminal the live screen is drawn; otherwise
 /// plain lines are written. On shutdown the source goes to standby.
 /// </summary>
@@ -134,6 +136,12 @@ public sealed partial class StationService : BackgroundService
         var interactive = ReferenceEquals(_input, Console.In) && !Console.IsInputRedirected && !Console.IsOutputRedirected;
         using var input = interactive ? OperatorInput.FromConsoleKeys() : OperatorInput.FromLines(_input);
         var plain = interactive ? null : _output;
+        using var serialScanner = fixture.Scanner is { Kind: "serial", Port: { } scannerPort }
+            ? new SerialScanner(scannerPort, _loggers.CreateLogger<SerialScanner>(), TimeProvider.System)
+            : null;
+        await using var scannerFeed = serialScanner is null
+            ? null
+            : ScannerFeed.Start(serialScanner, serialScanner.Port.Name, input, TimeProvider.System, _loggers.CreateLogger<ScannerFeed>());
         var sink = new StoreSink(store, run => plain?.WriteLine(DemoCommand.UnitLine(run)));
         var coordinator = new BatchCoordinator(rig.Instruments, fixture, ReferenceConversion.ToCelsius(sensor), clock, sink,
             new ScreenOperator(model, WaitForConfirmAsync, plain), model, _loggers.CreateLogger<BatchCoordinator>(), partFitting: rig.PartFitting);
@@ -158,14 +166,17 @@ public sealed partial class StationService : BackgroundService
         var screen = interactive ? DrawScreenAsync(model, input, screenStop.Token) : Task.CompletedTask;
         try
         {
+            OperatorEntry? carried = null;
             while (!ct.IsCancellationRequested)
             {
-                var loads = await ScanBatchAsync(fixture, rules, reader, rig, model, input, plain, clock, ct).ConfigureAwait(false);
+                var loads = await ScanBatchAsync(fixture, rules, reader, rig, model, input, plain, clock, carried, ct).ConfigureAwait(false);
+                carried = null;
                 if (loads is null)
                 {
                     return ExitCodes.Done;
                 }
 
+                model.Notice(null);
                 Say(model, plain, $"Batch of {loads.Count} started. Keep clear of the block while it runs. Type 'cancel' or 'cancel N' to stop.");
                 using var batchCancel = CancellationTokenSource.CreateLinkedTokenSource(ct);
                 var batch = coordinator.RunAsync(
@@ -204,7 +215,10 @@ public sealed partial class StationService : BackgroundService
 
                 if (interactive)
                 {
-                    await input.ReadLineAsync(ct).ConfigureAwait(false);
+                    // The verdicts stay on screen until the operator presses Enter or scans the next unit (that scan
+                    // is the first of the next batch).
+                    var next = await NextEntryAsync(input, model, plain, ct).ConfigureAwait(false);
+                    carried = next is { Kind: OperatorEntryKind.Scanned } ? next : null;
                 }
 
                 model.UnloadAll();
@@ -222,7 +236,7 @@ public sealed partial class StationService : BackgroundService
 
     private async Task<List<SlotLoad>?> ScanBatchAsync(
         FixtureDefinition fixture, ScanRules rules, SqliteResultReader reader, StationRig rig,
-        StationScreenModel model, OperatorInput input, TextWriter? plain, TimeProvider clock, CancellationToken ct)
+        StationScreenModel model, OperatorInput input, TextWriter? plain, TimeProvider clock, OperatorEntry? carried, CancellationToken ct)
     {
         var loads = new List<SlotLoad>();
         var slots = fixture.Slots.Select(s => s.Slot).Order().ToList();
@@ -232,47 +246,63 @@ public sealed partial class StationService : BackgroundService
             Say(model, plain, loads.Count == 0
                 ? $"Scan the serial for slot {free[0]} (or type 'N SERIAL' for slot N)."
                 : $"Scan the serial for slot {free[0]}, or press Enter to start the batch of {loads.Count}.");
-            var line = await input.ReadLineAsync(ct).ConfigureAwait(false);
-            if (line is null)
+            var entry = carried ?? await NextEntryAsync(input, model, plain, ct).ConfigureAwait(false);
+            carried = null;
+            if (entry is null)
             {
                 return loads.Count > 0 ? loads : null;
             }
 
-            var text = line.Trim();
-            if (text.Length == 0)
-            {
-                if (loads.Count > 0)
-                {
-                    return loads;
-                }
-
-                continue;
-            }
-
-            if (text.Equals("quit", StringComparison.OrdinalIgnoreCase) && loads.Count == 0)
-            {
-                return null;
-            }
-
+            string text;
             var slot = free[0];
-            var parts = text.Split(' ', 2, StringSplitOptions.RemoveEmptyEntries | StringSplitOptions.TrimEntries);
-            if (parts.Length == 2 && int.TryParse(parts[0], NumberStyles.None, CultureInfo.InvariantCulture, out var named))
+            if (entry.Kind == OperatorEntryKind.Scanned)
             {
-                if (!free.Contains(named))
+                // A serial scanner's code: already checked as a serial (or refused with why); it goes to the next free slot.
+                if (entry.Scan!.Serial is not { } scanned)
                 {
-                    Say(model, plain, $"Refused: slot {named} is {(slots.Contains(named) ? "already loaded" : "not a slot of this fixture")}.");
+                    Tell(model, plain, $"Refused: {entry.Scan.Problem}.");
                     continue;
                 }
 
-                slot = named;
-                text = parts[1];
+                text = scanned;
+            }
+            else
+            {
+                text = entry.Text!.Trim();
+                if (text.Length == 0)
+                {
+                    if (loads.Count > 0)
+                    {
+                        return loads;
+                    }
+
+                    continue;
+                }
+
+                if (text.Equals("quit", StringComparison.OrdinalIgnoreCase) && loads.Count == 0)
+                {
+                    return null;
+                }
+
+                var parts = text.Split(' ', 2, StringSplitOptions.RemoveEmptyEntries | StringSplitOptions.TrimEntries);
+                if (parts.Length == 2 && int.TryParse(parts[0], NumberStyles.None, CultureInfo.InvariantCulture, out var named))
+                {
+                    if (!free.Contains(named))
+                    {
+                        Tell(model, plain, $"Refused: slot {named} is {(slots.Contains(named) ? "already loaded" : "not a slot of this fixture")}.");
+                        continue;
+                    }
+
+                    slot = named;
+                    text = parts[1];
+                }
             }
 
             var history = await HistoryAsync(reader, text, clock, ct).ConfigureAwait(false);
             var decision = rules.Check(text, loads.Select(l => l.Serial).ToList(), history);
             if (!decision.Accepted)
             {
-                Say(model, plain, $"Refused: {decision.Reason}.");
+                Tell(model, plain, $"Refused: {decision.Reason}.");
                 continue;
             }
 
@@ -280,10 +310,26 @@ public sealed partial class StationService : BackgroundService
             loads.Add(new SlotLoad(slot, decision.Serial));
             model.Loaded(slot, decision.Serial, decision.IsRetest);
             plain?.WriteLine($"Loaded {decision.Serial} in slot {slot}{(decision.IsRetest ? " (retest)" : string.Empty)}.");
-            LogScanned(_logger, decision.Serial, slot, decision.IsRetest);
+            LogScanned(_logger, decision.Serial, slot, decision.IsRetest, entry.Kind == OperatorEntryKind.Scanned ? "serial scanner" : "keyboard");
         }
 
         return loads;
+    }
+
+    // The next typed line or scan; scanner notices are shown on the way.
+    private static async Task<OperatorEntry?> NextEntryAsync(OperatorInput input, StationScreenModel model, TextWriter? plain, CancellationToken ct)
+    {
+        while (await input.ReadAsync(ct).ConfigureAwait(false) is { } entry)
+        {
+            if (entry.Kind != OperatorEntryKind.ScannerNotice)
+            {
+                return entry;
+            }
+
+            Tell(model, plain, entry.Text!);
+        }
+
+        return null;
     }
 
     private static async Task<SerialHistory> HistoryAsync(SqliteResultReader reader, string serial, TimeProvider clock, CancellationToken ct)
@@ -315,13 +361,23 @@ public sealed partial class StationService : BackgroundService
         {
             while (!batch.IsCompleted)
             {
-                var line = await input.ReadLineAsync(stop.Token).ConfigureAwait(false);
-                if (line is null)
+                var entry = await NextEntryAsync(input, model, plain, stop.Token).ConfigureAwait(false);
+                if (entry is null)
                 {
                     await batch.ConfigureAwait(false);
                     return;
                 }
 
+                if (entry.Kind == OperatorEntryKind.Scanned)
+                {
+                    // A scan never answers a prompt or a cancel question: it is refused until the batch is done.
+                    Tell(model, plain, entry.Scan!.Serial is { } serial
+                        ? $"Refused: {serial} was scanned while a batch runs; scan it again when the batch is done."
+                        : $"Refused: {entry.Scan.Problem}.");
+                    continue;
+                }
+
+                var line = entry.Text!;
                 if (TryCompleteConfirm(line))
                 {
                     continue;
@@ -457,9 +513,16 @@ public sealed partial class StationService : BackgroundService
         plain?.WriteLine(text);
     }
 
+    // A refusal or scanner message: above the prompt on the screen, so the instruction stays in view.
+    private static void Tell(StationScreenModel model, TextWriter? plain, string text)
+    {
+        model.Notice(text);
+        plain?.WriteLine(text);
+    }
+
     [LoggerMessage(EventId = 2012, Level = LogLevel.Critical, Message = "The results database cannot be used ({Failure}): {Reason}. The station takes no units.")]
     private static partial void LogStoreUnusable(ILogger logger, string failure, string reason);
 
-    [LoggerMessage(EventId = 2001, Level = LogLevel.Information, Message = "Scanned {Serial} into slot {Slot} (retest: {IsRetest})")]
-    private static partial void LogScanned(ILogger logger, string serial, int slot, bool isRetest);
+    [LoggerMessage(EventId = 2001, Level = LogLevel.Information, Message = "Scanned {Serial} into slot {Slot} (retest: {IsRetest}, from the {ScanSource})")]
+    private static partial void LogScanned(ILogger logger, string serial, int slot, bool isRetest, string scanSource);
 }

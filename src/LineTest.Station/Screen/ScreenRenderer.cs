@@ -36,6 +36,11 @@ public static class ScreenRenderer
             rows.Add(new Markup($"[grey]slot {slot.Slot}:[/] {E(Shorten(slot.Reason!, 70))}"));
         }
 
+        if (s.Notice is { } notice)
+        {
+            rows.Add(new Markup($"[bold red]![/] {E(notice)}"));
+        }
+
         rows.Add(new Markup($"[bold yellow]>[/] {E(s.Prompt)}"));
         if (scanBuffer.Length > 0)
         {
@@ -59,6 +64,11 @@ public static class ScreenRenderer
         {
             lines.Add(string.Create(CultureInfo.InvariantCulture,
                 $"slot {slot.Slot}  {slot.Serial ?? "-",-18}  {StateWords.Of(slot.State),-25}  {(int)(slot.Progress * 100),3} %  {(slot.Verdict is { } v ? StateWords.Of(v) : string.Empty)}"));
+        }
+
+        if (s.Notice is { } notice)
+        {
+            lines.Add("! " + notice);
         }
 
         lines.Add("> " + s.Prompt);

@@ -26,6 +26,7 @@ public sealed class StationScreenModel : IBatchObserver
     private string _phase = "idle";
     private string _prompt = string.Empty;
     private string? _alarm;
+    private string? _notice;
 
     /// <summary>Creates the model.</summary>
     /// <param name="header">Station, fixture, sequence, lot and operator line.</param>
@@ -52,7 +53,7 @@ public sealed class StationScreenModel : IBatchObserver
     {
         lock (_gate)
         {
-            return new ScreenSnapshot(Header, _slots.Values.OrderBy(s => s.Slot).Select(WithTimeLeft).ToList(), _setpointC, _referenceC, _phase, _prompt, Caution(), _alarm);
+            return new ScreenSnapshot(Header, _slots.Values.OrderBy(s => s.Slot).Select(WithTimeLeft).ToList(), _setpointC, _referenceC, _phase, _prompt, Caution(), _alarm, _notice);
         }
     }
 
@@ -62,6 +63,18 @@ public sealed class StationScreenModel : IBatchObserver
         lock (_gate)
         {
             _prompt = text;
+        }
+    }
+
+    /// <summary>
+    /// Shows a notice above the prompt (a refused scan and why, news about the scanner) without replacing the prompt;
+    /// null clears it. A unit loaded into a slot, and unloading the fixture, clear it too.
+    /// </summary>
+    public void Notice(string? text)
+    {
+        lock (_gate)
+        {
+            _notice = text;
         }
     }
 
@@ -79,6 +92,7 @@ public sealed class StationScreenModel : IBatchObserver
     {
         lock (_gate)
         {
+            _notice = null;
             _slots[slot] = new SlotView(slot) { Serial = serial, State = UnitState.Loaded, Step = "waiting for start", IsRetest = isRetest };
             _stepStarted.Remove(slot);
         }
@@ -89,6 +103,7 @@ public sealed class StationScreenModel : IBatchObserver
     {
         lock (_gate)
         {
+            _notice = null;
             foreach (var slot in _slots.Keys.ToList())
             {
                 _slots[slot] = new SlotView(slot);

@@ -170,4 +170,61 @@ public sealed class FixtureLoaderTests
         Assert.Null(problem.Line);
         Assert.Equal("file not found", problem.Reason);
     }
+
+    [Fact]
+    public void Load_SerialScanner_LoadsWithItsPort()
+    {
+        var text = WithScanner("{ \"kind\": \"serial\", \"port\": { \"name\": \"/dev/ttyACM0\", \"baud\": 9600, \"timeoutMs\": 300 } }");
+
+        var result = FixtureLoader.Load(File, TestFiles.Utf8(text));
+
+        Assert.Empty(result.Problems);
+        Assert.Equal("serial", result.Value!.Scanner!.Kind);
+        Assert.Equal("/dev/ttyACM0", result.Value.Scanner.Port!.Name);
+        Assert.Equal(300, result.Value.Scanner.Port.TimeoutMs);
+    }
+
+    [Fact]
+    public void Load_NoScanner_KeyboardByDefault() => Assert.Null(FixtureLoader.Load(File, TestFiles.Utf8(TestFiles.FixtureBase)).Value!.Scanner);
+
+    public static TheoryData<string, string, string> BadScanners => new()
+    {
+        { "{ \"kind\": \"serial\" }", "$.scanner", "a serial scanner needs its port" },
+        { "{ \"kind\": \"keyboard\", \"port\": { \"name\": \"/dev/ttyACM0\" } }", "$.scanner.port", "a keyboard scanner has no port" },
+        { "{ \"kind\": \"usb\" }", "$.scanner.kind", "unknown scanner kind 'usb' (known: keyboard, serial)" },
+        { "{ \"kind\": \"serial\", \"port\": { \"name\": \" \" } }", "$.scanner.port.name", "the port needs a name" },
+        { "{ \"kind\": \"serial\", \"port\": { \"name\": \"/dev/ttyACM0\", \"baud\": 0 } }", "$.scanner.port.baud", "the baud rate must be positive" },
+        { "{ \"kind\": \"serial\", \"port\": { \"name\": \"/dev/ttyACM0\", \"timeoutMs\": 0 } }", "$.scanner.port.timeoutMs", "the timeout must be at least 1 ms" },
+        { "{ \"port\": { \"name\": \"/dev/ttyACM0\" } }", "$.scanner", "missing required property 'kind'" },
+    };
+
+    [Theory]
+    [MemberData(nameof(BadScanners))]
+    public void Load_BadScanner_ReportsLinePathAndReason(string scanner, string path, string reason)
+    {
+        var text = WithScanner(scanner);
+
+        var result = FixtureLoader.Load(File, TestFiles.Utf8(text));
+
+        var problem = Assert.Single(result.Problems);
+        Assert.Equal(path, problem.JsonPath);
+        Assert.Equal(TestFiles.LineOf(text, "\"scanner\""), problem.Line);
+        Assert.Contains(reason, problem.Reason, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Load_InstrumentPortWithZeroBaud_ReportedAtThePort()
+    {
+        // Before, a zero baud rate reached the serial driver, whose argument check then stopped the station.
+        var text = TestFiles.Edit(TestFiles.FixtureBase, "\"settlingTimeConstantSeconds\": 40", "\"settlingTimeConstantSeconds\": 40,\n    \"port\": { \"name\": \"/dev/ttyUSB0\", \"baud\": 0 }");
+
+        var problem = Assert.Single(FixtureLoader.Load(File, TestFiles.Utf8(text)).Problems);
+
+        Assert.Equal("$.source.port.baud", problem.JsonPath);
+        Assert.Equal(TestFiles.LineOf(text, "\"baud\": 0"), problem.Line);
+    }
+
+    // The scanner object on a line of its own, before the slots.
+    private static string WithScanner(string scanner)
+        => TestFiles.Edit(TestFiles.FixtureBase, "  \"slots\": [", $"  \"scanner\": {scanner},\n  \"slots\": [");
 }

@@ -63,4 +63,17 @@ public sealed class ScanRulesTests
         Assert.True(decision.Accepted);
         Assert.True(decision.IsRetest);
     }
+
+    [Fact]
+    public void Check_PatternThatBacktracksWithoutEnd_RefusedInsteadOfException()
+    {
+        // Nested quantifiers backtrack exponentially on a near miss (common practice: the classic "evil regex");
+        // the match timeout must become a refusal, not an exception that stops the station.
+        var rules = new ScanRules("^(a+)+$", TimeSpan.FromMilliseconds(10));
+
+        var decision = rules.Check(new string('a', 40) + "!", [], SerialHistory.None);
+
+        Assert.False(decision.Accepted);
+        Assert.Contains("took too long", decision.Reason, StringComparison.Ordinal);
+    }
 }

@@ -1,3 +1,4 @@
+using CsCheck;
 using LineTest.Rig.Instruments;
 using LineTest.Rig.Serial.Meter;
 using LineTest.Rig.Serial.Twins;
@@ -117,4 +118,57 @@ public sealed class ScpiVoltmeterTests
     [InlineData("-113,\"Undefined header\"", "-113,\"Undefined header\"")]
     public void ParseErrorEntry_Entry_NullOnlyForNoError(string reply, string? expected)
         => Assert.Equal(expected, ScpiVoltmeter.ParseErrorEntry(reply).Value);
+
+    [Fact]
+    [Trait("Category", "Fuzz")]
+    public void ParseReading_RandomAndMutatedLines_ExactlyNr3Numbers()
+        => WireFuzz.MatchesGrammar(WireFuzz.LinesAround(WireFuzz.FiniteDouble.Select(ScpiCommands.Nr3)), ScpiVoltmeter.ParseReading, ProtocolGrammar.Nr3);
+
+    [Fact]
+    [Trait("Category", "Fuzz")]
+    public void ParseReading_Nr3_RoundTrips()
+        => WireFuzz.FiniteDouble.Sample(v => Assert.Equal(v, ScpiVoltmeter.ParseReading(ScpiCommands.Nr3(v)).Value), iter: WireFuzz.Iterations);
+
+    [Fact]
+    [Trait("Category", "Fuzz")]
+    public void ParseErrorEntry_RandomAndMutatedLines_ExactlyCodeCommaQuotedText()
+        => WireFuzz.MatchesGrammar(
+            WireFuzz.LinesAround(Gen.OneOf(Gen.Const(ScpiCommands.NoError), ErrorEntries)),
+            ScpiVoltmeter.ParseErrorEntry,
+            ProtocolGrammar.ErrorEntry);
+
+    [Fact]
+    [Trait("Category", "Fuzz")]
+    public void ParseErrorEntry_TwinsEntry_RoundTrips()
+        => Gen.Select(Gen.Int, Gen.String[Gen.Char[' ', '~'], 0, 40]).Sample((code, text) =>
+        {
+            var entry = ScpiCommands.ErrorEntry(code, text);
+            Assert.Equal(code == 0 ? null : entry, ScpiVoltmeter.ParseErrorEntry(entry).Value);
+        }, iter: WireFuzz.Iterations);
+
+    private static readonly Gen<string> ErrorEntries = Gen.Select(Gen.Int[-400, 400], Gen.String[Gen.Char[' ', '~'], 0, 40], ScpiCommands.ErrorEntry);
+
+    // Regression: found by fuzzing. "Infinity" passed as a reading and was then reported as an overload; a SCPI meter
+    // sends 9.9E37 for an overload (SCPI-1999 vol. 1, 7.2.1.5 [from memory]), so the word is garbage.
+    [Theory]
+    [InlineData("Infinity")]
+    [InlineData("-Infinity")]
+    [InlineData("\u221E")]
+    [InlineData("7.2E-01\0")]
+    [InlineData("\v7.2E-01")]
+    public void ParseReading_GarbledReading_Garbage(string reply) => Assert.NotNull(ScpiVoltmeter.ParseReading(reply).Garbage);
+
+    [Fact]
+    public void ParseReading_OverloadValue_IsAReadingForTheOverloadCheck()
+        => Assert.Equal(ScpiCommands.OverloadVolts, ScpiVoltmeter.ParseReading("+9.90000000E+37").Value);
+
+    // Regression: found by fuzzing. "12," passed as an error entry, and so did "+0,garbage" as an empty queue: a garbled
+    // reply must not hide an error. An entry is <code>,"<text>" (SCPI-1999 SYSTem:ERRor? [from memory]).
+    [Theory]
+    [InlineData("12,")]
+    [InlineData("+0,garbage")]
+    [InlineData("+0,\"No error")]
+    [InlineData("0\0,\"No error\"")]
+    [InlineData("99999999999,\"x\"")]
+    public void ParseErrorEntry_GarbledEntry_Garbage(string reply) => Assert.NotNull(ScpiVoltmeter.ParseErrorEntry(reply).Garbage);
 }

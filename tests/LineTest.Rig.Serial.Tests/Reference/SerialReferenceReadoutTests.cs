@@ -1,5 +1,7 @@
+using CsCheck;
 using LineTest.Rig.Instruments;
 using LineTest.Rig.Serial.Reference;
+using LineTest.Rig.Serial.Transport;
 using LineTest.Rig.Serial.Twins;
 
 namespace LineTest.Rig.Serial.Tests.Reference;
@@ -48,4 +50,27 @@ public sealed class SerialReferenceReadoutTests
     [InlineData("thermocouple", "MV")]
     [InlineData("celsius", "CEL")]
     public void UnitFor_SensorKind_ReadoutUnit(string kind, string unit) => Assert.Equal(unit, ReferenceCommands.UnitFor(kind));
+
+    [Theory]
+    [InlineData("OHM")]
+    [InlineData("MV")]
+    [InlineData("CEL")]
+    [Trait("Category", "Fuzz")]
+    public void ParseMeasurement_RandomAndMutatedLines_ExactlyTheProtocolsReadings(string unit)
+        => WireFuzz.MatchesGrammar(
+            WireFuzz.LinesAround(Gen.OneOf(WireFuzz.FiniteDouble.Select(v => $"{Replies.Number(v)},{unit}"), Gen.Const("ERR 200,open sensor"))),
+            reply => SerialReferenceReadout.ParseMeasurement(reply, unit),
+            reply => ProtocolGrammar.Measurement(reply, unit));
+
+    [Fact]
+    [Trait("Category", "Fuzz")]
+    public void ParseMeasurement_TwinsReplyForm_RoundTrips()
+        => WireFuzz.FiniteDouble.Sample(v => Assert.Equal(v, SerialReferenceReadout.ParseMeasurement($"{Replies.Number(v)},OHM", "OHM").Value), iter: WireFuzz.Iterations);
+
+    // Regression: found by fuzzing. Line breaks before the value were skipped and the resistance taken.
+    [Theory]
+    [InlineData("\v-6.254E-14,OHM")]
+    [InlineData("\n138.5,OHM")]
+    [InlineData("\r0,OHM")]
+    public void ParseMeasurement_GarbledValue_Garbage(string reply) => Assert.NotNull(SerialReferenceReadout.ParseMeasurement(reply, "OHM").Garbage);
 }

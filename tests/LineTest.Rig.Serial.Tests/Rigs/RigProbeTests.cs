@@ -1,5 +1,7 @@
 using LineTest.Core.Fixtures;
+using LineTest.Rig.Serial.Pty;
 using LineTest.Rig.Serial.Rigs;
+using LineTest.Rig.Serial.Scanner;
 using LineTest.Rig.Serial.Twins;
 using LineTest.Rig.Simulation;
 using Microsoft.Extensions.Logging.Abstractions;
@@ -80,4 +82,88 @@ public sealed class RigProbeTests
             Assert.Contains($"port {r.Port} does not exist", r.Problem, StringComparison.Ordinal);
         });
     }
+
+    [LinuxFact]
+    public async Task ProbeScannerAsync_CodeScannedWhileListening_UsableShowingTheCode()
+    {
+        var result = await ProbeScannerWithAsync("CTP40A-2612-000042\r"u8.ToArray());
+
+        Assert.Equal(ProbeStatus.Usable, result.Status);
+        Assert.Equal("scanned 'CTP40A-2612-000042'", result.Reading);
+    }
+
+    [LinuxFact]
+    public async Task ProbeScannerAsync_GarbageWhileListening_UnusableNamingTheBaudRate()
+    {
+        // What a scanner at another baud rate looks like: bytes with the top bit set.
+        var result = await ProbeScannerWithAsync([0xC3, 0xF8, 0x9A, 0x0D]);
+
+        Assert.Equal(ProbeStatus.Unusable, result.Status);
+        Assert.Contains("non-printable byte 0xC3", result.Problem, StringComparison.Ordinal);
+        Assert.Contains("check the scanner's baud rate", result.Problem, StringComparison.Ordinal);
+    }
+
+    [LinuxFact]
+    public async Task ProbeScannerAsync_NothingScanned_UsableSayingOnlyThatThePortOpens()
+    {
+        var result = await ProbeScannerWithAsync(null, TimeSpan.FromMilliseconds(300));
+
+        Assert.Equal(ProbeStatus.Usable, result.Status);
+        Assert.StartsWith("port opens; nothing scanned within 0.3 s", result.Reading, StringComparison.Ordinal);
+    }
+
+    [LinuxFact]
+    public async Task ProbeScannerAsync_PortMissing_UnusableSayingSo()
+    {
+        using var folder = new PortFolder();
+        using var scanner = new SerialScanner(new PortDefinition { Name = folder.Port("none"), TimeoutMs = 100 }, NullLogger.Instance, TimeProvider.System);
+
+        var result = await RigProbe.ProbeScannerAsync(scanner, TimeSpan.FromSeconds(5), default);
+
+        Assert.Equal(ProbeStatus.Unusable, result.Status);
+        Assert.Equal("scanner", result.Instrument);
+        Assert.Contains("does not exist", result.Problem, StringComparison.Ordinal);
+    }
+
+    // Probes a scanner on a pseudo-terminal; once the probe has the port open, writes bytes as the scanner would.
+    private static async Task<ProbeResult> ProbeScannerWithAsync(byte[]? bytes, TimeSpan? listen = null)
+    {
+        using var folder = new PortFolder();
+        var pty = PseudoTerminal.Open(folder.Port("scanner"));
+        var scanner = new SerialScanner(new PortDefinition { Name = pty.PortName, TimeoutMs = 200 }, NullLogger.Instance, TimeProvider.System);
+        try
+        {
+            var probe = RigProbe.ProbeScannerAsync(scanner, listen ?? TimeSpan.FromSeconds(20), default);
+            if (bytes is not null)
+            {
+                for (var i = 0; i < 500 && !IsOpenHere(pty.SlavePath); i++)
+                {
+                    await Task.Delay(10);
+                }
+
+                // A line end first: anything the terminal held before the port was set up ends there, not in the code.
+                pty.Master.Write([(byte)'\n', .. bytes]);
+            }
+
+            return await probe;
+        }
+        finally
+        {
+            scanner.Dispose();
+            pty.Dispose();
+        }
+    }
+
+    private static bool IsOpenHere(string slave)
+        => Directory.EnumerateFileSystemEntries("/proc/self/fd").Any(fd =>
+        {
+            try
+            {
+                return File.ResolveLinkTarget(fd, returnFinalTarget: false)?.FullName == slave;
+            }
+            catch (IOException)
+            {
+                return false;
+            }
+        });
 }

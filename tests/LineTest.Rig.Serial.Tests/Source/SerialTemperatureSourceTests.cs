@@ -1,6 +1,8 @@
+using CsCheck;
 using LineTest.Core.Fixtures;
 using LineTest.Rig.Instruments;
 using LineTest.Rig.Serial.Source;
+using LineTest.Rig.Serial.Transport;
 using LineTest.Rig.Serial.Twins;
 
 namespace LineTest.Rig.Serial.Tests.Source;
@@ -106,4 +108,28 @@ public sealed class SerialTemperatureSourceTests
 
         Assert.NotNull(parsed.Garbage);
     }
+
+    [Fact]
+    [Trait("Category", "Fuzz")]
+    public void ParseStatus_RandomAndMutatedLines_ExactlyTheProtocolsStatuses()
+        => WireFuzz.MatchesGrammar(WireFuzz.LinesAround(Statuses.Select(Format)), SerialTemperatureSource.ParseStatus, ProtocolGrammar.Status);
+
+    [Fact]
+    [Trait("Category", "Fuzz")]
+    public void ParseStatus_TwinsReplyForm_RoundTrips()
+        => Statuses.Sample(status => Assert.Equal(status, SerialTemperatureSource.ParseStatus(Format(status)).Value), iter: WireFuzz.Iterations);
+
+    private static readonly Gen<SourceStatus> Statuses = Gen.Select(
+        WireFuzz.FiniteDouble, WireFuzz.FiniteDouble, Gen.OneOf(Gen.Const((string?)null), Gen.String[Gen.Char[' ', '~'], 1, 30].Select(f => (string?)f)),
+        (setpoint, actual, fault) => new SourceStatus(setpoint, actual, fault));
+
+    // The twin's form of a status reply (SourceTwin).
+    private static string Format(SourceStatus s)
+        => $"{Replies.Number(s.SetpointC)},{Replies.Number(s.ActualC)},{(s.Fault is null ? SourceCommands.NoFault : SourceCommands.FaultPrefix + s.Fault)}";
+
+    // Regression: found by fuzzing. A vertical tab after the setpoint was skipped and the status taken.
+    [Theory]
+    [InlineData("5.52919350585993E+49\v,-2.424388975511081E+49,OK")]
+    [InlineData("50,49.9\0,OK")]
+    public void ParseStatus_GarbledNumber_Garbage(string reply) => Assert.NotNull(SerialTemperatureSource.ParseStatus(reply).Garbage);
 }

@@ -1,3 +1,4 @@
+using CsCheck;
 using LineTest.Rig.Instruments;
 using LineTest.Rig.Serial.SourceMeter;
 using LineTest.Rig.Simulation;
@@ -78,4 +79,26 @@ public sealed class ScpiSourceMeterTests
     {
         Assert.False(ScpiSourceMeter.ParseReading(reply).IsOk);
     }
+
+    [Fact]
+    [Trait("Category", "Fuzz")]
+    public void ParseReading_RandomAndMutatedLines_ExactlyVoltsCommaFlag()
+        => WireFuzz.MatchesGrammar(WireFuzz.LinesAround(Readings.Select(r => SourceMeterCommands.Reading(r.Volts, r.InCompliance))),
+            ScpiSourceMeter.ParseReading, ProtocolGrammar.SourceMeterReading);
+
+    [Fact]
+    [Trait("Category", "Fuzz")]
+    public void ParseReading_TwinsReplyForm_RoundTrips()
+        => Readings.Sample(r => Assert.Equal(r, ScpiSourceMeter.ParseReading(SourceMeterCommands.Reading(r.Volts, r.InCompliance)).Value), iter: WireFuzz.Iterations);
+
+    private static readonly Gen<SourceMeterReading> Readings = Gen.Select(WireFuzz.FiniteDouble, Gen.Bool, (v, c) => new SourceMeterReading(v, c));
+
+    // Regression: found by fuzzing. A vertical tab (or another line break) before the volts, or a NUL after them, was
+    // skipped by double.TryParse and the reading taken.
+    [Theory]
+    [InlineData("\v3.3311111111111110E+001,1")]
+    [InlineData("6.1E-01\0,0")]
+    [InlineData("6.1E-01,\u00A01")]
+    [InlineData("Infinity,0")]
+    public void ParseReading_GarbledReading_Garbage(string reply) => Assert.NotNull(ScpiSourceMeter.ParseReading(reply).Garbage);
 }

@@ -1,3 +1,4 @@
+using System.Globalization;
 using CsCheck;
 using LineTest.Rig.Serial.Transport;
 
@@ -39,4 +40,31 @@ public sealed class ChecksumFramingTests
                 var changed = string.Concat(line.AsSpan(0, at), c.ToString(), line.AsSpan(at + 1));
                 Assert.False(ChecksumFraming.Instance.Decode(changed).IsOk);
             });
+
+    [Fact]
+    [Trait("Category", "Fuzz")]
+    public void Decode_RandomAndMutatedLines_OnlyFramesWithTheirChecksum()
+    {
+        var frames = Gen.String[Gen.Char[' ', '~'].Where(c => c != '*'), 0, 40].Select(ChecksumFraming.Instance.Encode);
+
+        // Random messages of any characters with the checksum they would need, so the message checks are reached too.
+        var summed = WireFuzz.Line.Select(body => string.Create(CultureInfo.InvariantCulture, $"{body}*{body.Sum(c => (int)c) % 256:X2}"));
+
+        WireFuzz.MatchesGrammar(Gen.OneOf(WireFuzz.LinesAround(frames), summed), ChecksumFraming.Instance.Decode, ProtocolGrammar.Frame);
+    }
+
+    // Regression: found by fuzzing. ":*3a" was taken as the message ":" although the protocol sends upper-case digits;
+    // "A*B*AD" has the checksum of its message "A*B", a message that cannot be encoded; and a control character inside a
+    // message with a matching checksum passed as well.
+    [Theory]
+    [InlineData(":*3a", "two upper-case digits")]
+    [InlineData("A*B*AD", "one '*'")]
+    [InlineData("O\u0001K*9B", "printable ASCII")]
+    public void Decode_ChecksumMatchesButFrameIsMalformed_NotUnderstood(string line, string why)
+    {
+        var decoded = ChecksumFraming.Instance.Decode(line);
+
+        Assert.False(decoded.IsOk);
+        Assert.Contains(why, decoded.Garbage, StringComparison.Ordinal);
+    }
 }

@@ -1,8 +1,10 @@
+using CsCheck;
 using LineTest.Rig.Instruments;
 using LineTest.Rig.Serial.Transport;
 using LineTest.Rig.Serial.Twins;
 using LineTest.Rig.Serial.UnitLink;
 using LineTest.Rig.Simulation;
+using System.Globalization;
 
 namespace LineTest.Rig.Serial.Tests.UnitLink;
 
@@ -95,4 +97,70 @@ public sealed class SerialUnitLinkTests
     [Fact]
     public void TrimList_BadRegisterName_ArgumentExceptionBeforeSending()
         => Assert.Throws<ArgumentException>(() => UnitLinkCommands.TrimList(new Dictionary<string, long> { ["gain*"] = 1 }));
+
+    [Fact]
+    [Trait("Category", "Fuzz")]
+    public void ParseOk_RandomAndMutatedLines_OnlyOkOrError()
+        => WireFuzz.MatchesGrammar(WireFuzz.LinesAround(Gen.OneOf("OK", "ERR unit rejected GAIN")), SerialUnitLink.ParseOk, ProtocolGrammar.UnitOk);
+
+    [Fact]
+    [Trait("Category", "Fuzz")]
+    public void ParseIdentity_RandomAndMutatedLines_ExactlyThreeFields()
+        => WireFuzz.MatchesGrammar(WireFuzz.LinesAround(Gen.OneOf("ID CTP40A-2612-000001,CTP-40A,1.2", "ERR busy")),
+            SerialUnitLink.ParseIdentity, reply => ProtocolGrammar.UnitReply(reply, "ID", ProtocolGrammar.UnitIdentity));
+
+    [Fact]
+    [Trait("Category", "Fuzz")]
+    public void ParseRaw_RandomAndMutatedLines_ExactlyWholeCounts()
+        => WireFuzz.MatchesGrammar(WireFuzz.LinesAround(Gen.Long.Select(n => string.Create(CultureInfo.InvariantCulture, $"RAW {n}"))),
+            SerialUnitLink.ParseRaw, reply => ProtocolGrammar.UnitReply(reply, "RAW", ProtocolGrammar.Counts));
+
+    [Fact]
+    [Trait("Category", "Fuzz")]
+    public void ParseTemperature_RandomAndMutatedLines_ExactlyFiniteNumbers()
+        => WireFuzz.MatchesGrammar(WireFuzz.LinesAround(WireFuzz.FiniteDouble.Select(c => $"TEMP {Replies.Number(c)}")),
+            SerialUnitLink.ParseTemperature, reply => ProtocolGrammar.UnitReply(reply, "TEMP", ProtocolGrammar.FiniteNumber));
+
+    [Fact]
+    [Trait("Category", "Fuzz")]
+    public void ParseTrim_RandomAndMutatedLines_ExactlyRegisterLists()
+        => WireFuzz.MatchesGrammar(WireFuzz.LinesAround(TrimValues.Select(UnitLinkCommands.TrimList)),
+            SerialUnitLink.ParseTrim, reply => ProtocolGrammar.UnitReply(reply, "TRIM", ProtocolGrammar.TrimList), (a, b) => a.OrderBy(p => p.Key).SequenceEqual(b.OrderBy(p => p.Key)));
+
+    [Fact]
+    [Trait("Category", "Fuzz")]
+    public void ParseReplies_TwinsReplyForms_RoundTrip()
+        => Gen.Select(TrimValues, Gen.Long, WireFuzz.FiniteDouble).Sample((values, counts, celsius) =>
+        {
+            Assert.Equal(values.OrderBy(p => p.Key), SerialUnitLink.ParseTrim(UnitLinkCommands.TrimList(values)).Value!.OrderBy(p => p.Key));
+            Assert.Equal(counts, SerialUnitLink.ParseRaw(string.Create(CultureInfo.InvariantCulture, $"RAW {counts}")).Value);
+            Assert.Equal(celsius, SerialUnitLink.ParseTemperature($"TEMP {Replies.Number(celsius)}").Value);
+        }, iter: WireFuzz.Iterations);
+
+    private static readonly Gen<IReadOnlyDictionary<string, long>> TrimValues =
+        Gen.Dictionary(Gen.String[Gen.Char['A', 'Z'], 1, 1].SelectMany(first => Gen.String[Gen.OneOf(Gen.Char['A', 'Z'], Gen.Char['0', '9'], Gen.Const('_')), 0, 8].Select(rest => first + rest)), Gen.Long)[1, 6]
+            .Select(d => (IReadOnlyDictionary<string, long>)d);
+
+    // Regression: found by fuzzing. The register-name pattern ended in $, which also matches before a final line feed,
+    // so "C\n" passed as a name in a read-back (and could have been written to a unit, splitting the command line).
+    [Fact]
+    public void ParseTrim_RegisterNameEndingInLineFeed_Garbage()
+        => Assert.NotNull(SerialUnitLink.ParseTrim("TRIM AX=-7560372,C\n=16597,Y1=-10785").Garbage);
+
+    [Fact]
+    public void TrimList_RegisterNameEndingInLineFeed_Refused()
+        => Assert.Throws<ArgumentException>(() => UnitLinkCommands.TrimList(new Dictionary<string, long> { ["GAIN\n"] = 1 }));
+
+    // Regression: found by fuzzing. A carriage return before the temperature, or NULs after the counts, were skipped.
+    [Theory]
+    [InlineData("TEMP \r-1")]
+    [InlineData("TEMP 21.5\0")]
+    [InlineData("TEMP ERR 5")]
+    public void ParseTemperature_GarbledReply_Garbage(string reply) => Assert.NotNull(SerialUnitLink.ParseTemperature(reply).Garbage);
+
+    [Theory]
+    [InlineData("RAW 1234\0")]
+    [InlineData("RAW  1234")]
+    [InlineData("RAW 12 34")]
+    public void ParseRaw_GarbledCounts_Garbage(string reply) => Assert.NotNull(SerialUnitLink.ParseRaw(reply).Garbage);
 }

@@ -1,3 +1,5 @@
+using System.Text.RegularExpressions;
+using LineTest.Rig.Serial.Pty;
 using LineTest.Station.Cli;
 using LineTest.Station.Composition;
 using LineTest.TestSupport;
@@ -16,7 +18,9 @@ public sealed class ProbeCommandTests
         Assert.Equal(ExitCodes.RuntimeFailure, run.ExitCode);
         Assert.Contains("source on /dev/ttyUSB0: port /dev/ttyUSB0 does not exist", run.Stdout, StringComparison.Ordinal);
         Assert.Contains("unit slot 4 on /dev/ttyUSB6: port /dev/ttyUSB6 does not exist", run.Stdout, StringComparison.Ordinal);
-        Assert.Contains("0 usable, 8 unusable", run.Stdout, StringComparison.Ordinal);
+        Assert.Contains("scanner on /dev/ttyACM0: port /dev/ttyACM0 does not exist", run.Stdout, StringComparison.Ordinal);
+        Assert.Contains("Probing fixture rig-dryblock-4: 9 instruments", run.Stdout, StringComparison.Ordinal);
+        Assert.Contains("0 usable, 9 unusable", run.Stdout, StringComparison.Ordinal);
     }
 
     [LinuxFact]
@@ -60,6 +64,56 @@ public sealed class ProbeCommandTests
             File.Delete(path);
         }
     }
+
+    [LinuxFact]
+    public async Task Probe_SimulatorFixtureWithSerialScanner_ProbesTheScannerAndShowsTheCode()
+    {
+        var work = Some.TempDirectory();
+        using var pty = PseudoTerminal.Open(Path.Combine(work, "scanner"));
+        var fixture = Path.Combine(work, "fixture.json");
+        var text = await File.ReadAllTextAsync(RepoFiles.Path("fixtures/sim-dryblock-4.json"));
+        await File.WriteAllTextAsync(fixture, text.Replace("  \"slots\": [",
+            $"  \"scanner\": {{ \"kind\": \"serial\", \"port\": {{ \"name\": \"{pty.PortName}\", \"timeoutMs\": 500 }} }},\n  \"slots\": [", StringComparison.Ordinal));
+
+        var probe = RunAsync("probe", "--fixture", fixture, "--scan-wait", "30");
+        for (var i = 0; i < 500 && !IsOpenHere(pty.SlavePath); i++)
+        {
+            await Task.Delay(10);
+        }
+
+        pty.Master.Write("\nCTP40A-2612-000042\r\n"u8);
+        var run = await probe;
+
+        Assert.Equal(ExitCodes.Done, run.ExitCode);
+        Assert.Contains("its serial scanner only (add --serial", run.Stdout, StringComparison.Ordinal);
+        Assert.Matches($@"scanner\s+{Regex.Escape(pty.PortName)}\s+ok\s+listens only; scanned 'CTP40A-2612-000042'", run.Stdout);
+        Assert.Contains("1 instruments: 1 usable, 0 unusable", run.Stdout, StringComparison.Ordinal);
+    }
+
+    [Theory]
+    [InlineData("0")]
+    [InlineData("-1")]
+    [InlineData("601")]
+    public async Task Probe_ScanWaitOutOfRange_ExitTwo(string seconds)
+    {
+        var run = await RunAsync("probe", "--fixture", RepoFiles.Path("fixtures/rig-dryblock-4.json"), "--scan-wait", seconds);
+
+        Assert.Equal(ExitCodes.BadInput, run.ExitCode);
+        Assert.Contains("--scan-wait", run.Stderr, StringComparison.Ordinal);
+    }
+
+    private static bool IsOpenHere(string slave)
+        => Directory.EnumerateFileSystemEntries("/proc/self/fd").Any(fd =>
+        {
+            try
+            {
+                return File.ResolveLinkTarget(fd, returnFinalTarget: false)?.FullName == slave;
+            }
+            catch (IOException)
+            {
+                return false;
+            }
+        });
 
     private static async Task<RunResult> RunAsync(params string[] args)
     {

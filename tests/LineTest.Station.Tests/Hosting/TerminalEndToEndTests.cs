@@ -1,4 +1,3 @@
-using System.Diagnostics;
 using LineTest.TestSupport;
 
 namespace LineTest.Station.Tests.Hosting;
@@ -23,16 +22,16 @@ public sealed class TerminalEndToEndTests
             "LINETEST_Serilog__MinimumLevel__Default=Warning");
         try
         {
-            Tmux("new-session", "-d", "-s", session, "-x", "80", "-y", "24", "-c", work, $"env {env} dotnet {dll} run; sleep 60");
-            await WaitForScreenAsync(session, "Scan the serial", TimeSpan.FromSeconds(60));
+            Tmux.Run("new-session", "-d", "-s", session, "-x", "80", "-y", "24", "-c", work, $"env {env} dotnet {dll} run; sleep 60");
+            await Tmux.WaitForScreenAsync(session, "Scan the serial", TimeSpan.FromSeconds(60));
             foreach (var serial in new[] { "CTP40A-2612-000901", "CTP40A-2612-000902" })
             {
-                Tmux("send-keys", "-t", session, serial, "Enter");
+                Tmux.Run("send-keys", "-t", session, serial, "Enter");
                 await Task.Delay(300);
             }
 
-            Tmux("send-keys", "-t", session, "Enter");
-            var screen = await WaitForScreenAsync(session, "Batch done", TimeSpan.FromSeconds(120));
+            Tmux.Run("send-keys", "-t", session, "Enter");
+            var screen = await Tmux.WaitForScreenAsync(session, "Batch done", TimeSpan.FromSeconds(120));
 
             Assert.Contains("CTP40A-2612-000901", screen, StringComparison.Ordinal);
             Assert.Contains("CTP40A-2612-000902", screen, StringComparison.Ordinal);
@@ -41,14 +40,7 @@ public sealed class TerminalEndToEndTests
         }
         finally
         {
-            try
-            {
-                Tmux("kill-session", "-t", session);
-            }
-            catch (InvalidOperationException)
-            {
-                // Already gone.
-            }
+            Tmux.TryKill(session);
         }
     }
 
@@ -61,43 +53,5 @@ public sealed class TerminalEndToEndTests
         }
 
         return count;
-    }
-
-    private static async Task<string> WaitForScreenAsync(string session, string text, TimeSpan timeout)
-    {
-        var deadline = Stopwatch.StartNew();
-        var screen = string.Empty;
-        while (deadline.Elapsed < timeout)
-        {
-            screen = Tmux("capture-pane", "-p", "-t", session);
-            if (screen.Contains(text, StringComparison.Ordinal))
-            {
-                return screen;
-            }
-
-            await Task.Delay(250);
-        }
-
-        throw new TimeoutException($"'{text}' did not appear within {timeout.TotalSeconds} s. Screen:\n{screen}");
-    }
-
-    private static string Tmux(params string[] args)
-    {
-        var start = new ProcessStartInfo("tmux") { RedirectStandardOutput = true, RedirectStandardError = true };
-        foreach (var arg in args)
-        {
-            start.ArgumentList.Add(arg);
-        }
-
-        using var process = Process.Start(start)!;
-        var output = process.StandardOutput.ReadToEnd();
-        var error = process.StandardError.ReadToEnd();
-        process.WaitForExit();
-        if (process.ExitCode != 0)
-        {
-            throw new InvalidOperationException($"tmux {string.Join(' ', args)} failed: {error}");
-        }
-
-        return output;
     }
 }

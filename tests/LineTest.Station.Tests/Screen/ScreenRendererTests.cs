@@ -19,7 +19,8 @@ public sealed class ScreenRendererTests
         };
         var snapshot = new ScreenSnapshot(
             new ScreenHeader("ST-01", "Simulated four-well dry block", "ctp40a-dac", 1, "L-2612-07", "A. Operator", "production"),
-            slots, -20, -19.98, "stable", "Scan the serial for slot 1 (or type 'N SERIAL' for slot N).", "COLD: the block is at -20 °C. Cold surfaces can freeze skin; use gloves.", null);
+            slots, -20, -19.98, "stable", "Scan the serial for slot 1 (or type 'N SERIAL' for slot N).", "COLD: the block is at -20 °C. Cold surfaces can freeze skin; use gloves.", null,
+            "Refused: CTP40A-2612-000009 was scanned while a batch runs; scan it again when the batch is done.");
         var writer = new StringWriter();
         var console = AnsiConsole.Create(new AnsiConsoleSettings
         {
@@ -40,6 +41,7 @@ public sealed class ScreenRendererTests
         Assert.Contains("ERROR", output, StringComparison.Ordinal);
         Assert.Contains("COLD", output, StringComparison.Ordinal);
         Assert.Contains("CTP40A-26", output, StringComparison.Ordinal);
+        Assert.Contains("! Refused: CTP40A-2612-000009 was scanned", output, StringComparison.Ordinal);
         Assert.True(lines.Length <= 24, $"{lines.Length} lines do not fit an 80×24 terminal");
     }
 }

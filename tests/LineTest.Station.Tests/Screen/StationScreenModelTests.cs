@@ -75,6 +75,21 @@ public sealed class StationScreenModelTests
     }
 
     [Fact]
+    public void Notice_RefusedScan_ShownAboveThePromptUntilAUnitIsLoaded()
+    {
+        var model = Model();
+        model.Prompt("Scan the serial for slot 1 (or type 'N SERIAL' for slot N).");
+
+        model.Notice("Refused: a scan with the non-printable byte 0x7F at position 1.");
+        var lines = ScreenRenderer.PlainLines(model.Snapshot());
+        model.Loaded(1, "CTP40A-2612-000001", isRetest: false);
+
+        Assert.Equal("! Refused: a scan with the non-printable byte 0x7F at position 1.", lines[^2]);
+        Assert.StartsWith("> Scan the serial for slot 1", lines[^1], StringComparison.Ordinal);
+        Assert.Null(model.Snapshot().Notice);
+    }
+
+    [Fact]
     public void Loaded_Retest_IsMarked()
     {
         var model = Model();
