@@ -60,7 +60,9 @@ public sealed class Fuzzer(FixtureDefinition fixture, byte[] fixtureBytes, Seque
             }
         }
 
-        int units = 0, pass = 0, fail = 0, error = 0, unhandled = 0, noVerdict = 0, wrong = 0, replies = 0;
+        int units = 0, pass = 0, fail = 0, error = 0, unhandled = 0, noVerdict = 0, wrong = 0, replies = 0, trimmed = 0, verified = 0;
+        var trimSteps = sequence.Steps.OfType<TrimStep>().Select(s => s.DisplayName).ToHashSet(StringComparer.Ordinal);
+        var verifySteps = sequence.Steps.OfType<VerifyStep>().Select(s => s.DisplayName).ToHashSet(StringComparer.Ordinal);
         for (var b = 0; b < garbageBatches; b++)
         {
             cancellationToken.ThrowIfCancellationRequested();
@@ -70,7 +72,10 @@ public sealed class Fuzzer(FixtureDefinition fixture, byte[] fixtureBytes, Seque
             var sensor = ReferenceConversion.SensorOf(fixture);
             var rig = new SimulatedRig(fixture, batchSeed, clock, ReferenceConversion.FromCelsius(sensor));
             var factory = new SimulatedUnitFactory(batchSeed, rig.Simulation, SimulatedUnitDesign.ForProduct(sequence.Product)!);
-            var garbage = new GarbageInstruments(rig.Instruments, batchSeed, 0.002 + (rates.NextDouble() * 0.1));
+            // Rates spread evenly in log from 1 in 10 000 to 1 in 10 replies: a batch makes a thousand or more instrument
+            // calls, so at the high end the first garbage ends it early, and only the low end lets batches get through
+            // trim and verify with a garbage reply or two on the way.
+            var garbage = new GarbageInstruments(rig.Instruments, batchSeed, 1e-4 * Math.Pow(1e3, rates.NextDouble()));
             var sink = new CollectingSink();
             var coordinator = new BatchCoordinator(garbage.Instruments, fixture, ReferenceConversion.ToCelsius(sensor), clock, sink,
                 new AutoConfirmOperator(), observer: null, NullLogger.Instance, partFitting: new SimulatedPartFitting(rig));
@@ -98,6 +103,8 @@ public sealed class Fuzzer(FixtureDefinition fixture, byte[] fixtureBytes, Seque
                     fail += run.Verdict == Verdict.Fail ? 1 : 0;
                     error += run.Verdict == Verdict.Error ? 1 : 0;
                     wrong += run.Verdict == Verdict.Pass && FaultCampaign.TrulyOutOfLimits(byserial[run.Serial], sequence) ? 1 : 0;
+                    trimmed += run.Readings.Any(r => r.Step is { } step && trimSteps.Contains(step)) ? 1 : 0;
+                    verified += run.Readings.Any(r => r.Step is { } step && verifySteps.Contains(step)) ? 1 : 0;
                 }
             }
             catch (Exception ex) when (ex is not OperationCanceledException || !cancellationToken.IsCancellationRequested)
@@ -126,6 +133,8 @@ public sealed class Fuzzer(FixtureDefinition fixture, byte[] fixtureBytes, Seque
             UnhandledInBatches = unhandled,
             UnitsWithoutVerdict = noVerdict,
             WrongPasses = wrong,
+            ReachedTrim = trimmed,
+            ReachedVerify = verified,
             FirstCrashes = crashes,
             WallSeconds = TimeProvider.System.GetElapsedTime(wallStart).TotalSeconds,
         };
