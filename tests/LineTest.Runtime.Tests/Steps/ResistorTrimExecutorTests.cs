@@ -1,7 +1,7 @@
 using LineTest.Core.Results;
 using LineTest.Rig.Simulation;
-
-namespace LineTest.Runtime.Tests.Batches;
+using LineTest.Runtime.Tests.Batches;
+namespace LineTest.Runtime.Tests.Steps;
 
 public sealed class ResistorTrimExecutorTests
 {

@@ -1,8 +1,8 @@
 using LineTest.Core.Results;
 using LineTest.Core.Sequences;
 using LineTest.Rig.Simulation;
-
-namespace LineTest.Runtime.Tests.Batches;
+using LineTest.Runtime.Tests.Batches;
+namespace LineTest.Runtime.Tests.Steps;
 
 public sealed class IvSweepExecutorTests
 {
