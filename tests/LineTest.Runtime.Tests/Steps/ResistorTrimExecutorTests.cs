@@ -1,6 +1,7 @@
 using LineTest.Core.Results;
 using LineTest.Rig.Simulation;
 using LineTest.Runtime.Tests.Batches;
+
 namespace LineTest.Runtime.Tests.Steps;
 
 public sealed class ResistorTrimExecutorTests
