@@ -94,6 +94,7 @@ public static class SecretHash
             return false;
         }
 
-        return salt.Length >= 8 && hash.Length >= 16;
+        // New hashes carry a 16-byte salt; shorter ones are read (RFC 7914's test vector uses 4 bytes) but never made here.
+        return salt.Length >= 4 && hash.Length >= 16;
     }
 }
