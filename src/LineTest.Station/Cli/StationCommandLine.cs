@@ -25,6 +25,7 @@ public static class StationCommandLine
             ReleaseCommand.Create(context),
             CampaignCommand.Create(context),
             BenchCommand.Create(context),
+            ServeCommand.Create(context),
         };
         return root;
     }
