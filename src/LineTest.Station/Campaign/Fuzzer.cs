@@ -6,7 +6,6 @@ using LineTest.Rig.Fuzzing;
 using LineTest.Rig.Simulation;
 using LineTest.Runtime.Batches;
 using LineTest.Station.Composition;
-using Microsoft.Extensions.Logging.Abstractions;
 
 namespace LineTest.Station.Campaign;
 
@@ -69,25 +68,17 @@ public sealed class Fuzzer(FixtureDefinition fixture, byte[] fixtureBytes, Seque
             var batchSeed = unchecked(seed + (b * 104729));
             var rates = new Random(batchSeed);
             var clock = new VirtualTimeProvider(new DateTimeOffset(2026, 3, 16, 6, 0, 0, TimeSpan.Zero));
-            var sensor = ReferenceConversion.SensorOf(fixture);
-            var rig = new SimulatedRig(fixture, batchSeed, clock, ReferenceConversion.FromCelsius(sensor));
-            var factory = new SimulatedUnitFactory(batchSeed, rig.Simulation, SimulatedUnitDesign.ForProduct(sequence.Product)!);
+            var station = SimulatedStation.Create(fixture, sequence.Product, batchSeed, clock);
+
             // Rates spread evenly in log from 1 in 10 000 to 1 in 10 replies: a batch makes a thousand or more instrument
             // calls, so at the high end the first garbage ends it early, and only the low end lets batches get through
             // trim and verify with a garbage reply or two on the way.
-            var garbage = new GarbageInstruments(rig.Instruments, batchSeed, 1e-4 * Math.Pow(1e3, rates.NextDouble()));
+            var garbage = new GarbageInstruments(station.Rig.Instruments, batchSeed, 1e-4 * Math.Pow(1e3, rates.NextDouble()));
             var sink = new CollectingSink();
-            var coordinator = new BatchCoordinator(garbage.Instruments, fixture, ReferenceConversion.ToCelsius(sensor), clock, sink,
-                new AutoConfirmOperator(), observer: null, NullLogger.Instance, partFitting: new SimulatedPartFitting(rig));
-            var loads = new List<SlotLoad>();
-            var byserial = new Dictionary<string, SimulatedUnit>(StringComparer.Ordinal);
-            foreach (var slot in fixture.Slots.Select(s => s.Slot).Order())
-            {
-                var unit = factory.NextUnit();
-                rig.Load(slot, unit);
-                byserial[unit.Serial] = unit;
-                loads.Add(new SlotLoad(slot, unit.Serial));
-            }
+            var coordinator = station.Coordinator(sink, instruments: garbage.Instruments);
+            var batchUnits = station.LoadUnits(fixture.Slots.Select(s => s.Slot).Order());
+            var loads = batchUnits.Select(l => l.Load).ToList();
+            var byserial = batchUnits.ToDictionary(l => l.Unit.Serial, l => l.Unit, StringComparer.Ordinal);
 
             units += loads.Count;
             try
