@@ -1,6 +1,6 @@
-namespace LineTest.Runtime.Batches;
+namespace LineTest.Runtime.Instruments;
 
-/// <summary>What the coordinator reads from a unit during a measurement.</summary>
+/// <summary>What a step reads from a unit during a measurement.</summary>
 internal enum UnitRead
 {
     /// <summary>Volts on the slot's output channel.</summary>

@@ -3,10 +3,11 @@ using LineTest.Core.Characterisation;
 using LineTest.Core.Decisions;
 using LineTest.Core.Results;
 using LineTest.Core.Sequences;
-using LineTest.Rig.Instruments;
+using LineTest.Runtime.Batches;
+using LineTest.Runtime.Instruments;
 using LineTest.Runtime.Judging;
 
-namespace LineTest.Runtime.Batches;
+namespace LineTest.Runtime.Steps;
 
 /// <summary>
 /// Runs an <see cref="IvSweepStep"/> on one unit: forces each sweep current through the sensor with the source-measure
@@ -18,31 +19,39 @@ namespace LineTest.Runtime.Batches;
 /// Compliance (an open sensor) and a curve that cannot be fitted are sensor faults: a failing reading whose note says
 /// what is wrong, so the unit is rejected. A lost source-measure unit is an instrument fault: the batch stops in error.
 /// </remarks>
-internal sealed class IvSweepExecutor
+internal sealed class IvSweepExecutor : StepExecutor<IvSweepStep>
 {
     // A resistive leak makes V rise in proportion to I at the bottom of the sweep: there the local slope dV/d(ln I)
     // reaches V itself (tens of V_T), far above the n·V_T the junction shows higher up. Twice is a clear margin.
     private const double LeakSlopeRatio = 2.0;
 
-    private readonly BatchCoordinator _coordinator;
+    protected override Task RunAsync(StepContext context, IvSweepStep step, CancellationToken ct) =>
+        context.ForEachUnitAsync(async unit =>
+        {
+            unit.Machine.BeginMeasure();
+            context.Notify(unit);
+            await SweepUnitAsync(context.Instruments, context.Sequence, step, unit, ct).ConfigureAwait(false);
+        });
 
-    public IvSweepExecutor(BatchCoordinator coordinator) => _coordinator = coordinator;
-
-    public async Task RunAsync(SequenceDefinition sequence, IvSweepStep step, UnitContext unit, CancellationToken ct)
+    private static async Task SweepUnitAsync(InstrumentGateway instruments, SequenceDefinition sequence, IvSweepStep step, UnitContext unit, CancellationToken ct)
     {
         var name = step.DisplayName;
-        var smu = _coordinator.SourceMeter
-            ?? throw new BatchFaultException($"fixture '{_coordinator.Fixture.Id}' has no source-measure unit for step '{name}'");
-        var channel = _coordinator.Fixture.Slots.First(s => s.Slot == unit.Slot).SmuChannel
-            ?? throw new UnitFaultException($"slot {unit.Slot} has no smuChannel in fixture '{_coordinator.Fixture.Id}': it cannot be swept");
-        var compliance = step.ComplianceVolts ?? _coordinator.Fixture.SourceMeter?.ComplianceVolts ?? 2.5;
+        var fixture = instruments.Fixture;
+        if (!instruments.HasSourceMeter)
+        {
+            throw new BatchFaultException($"fixture '{fixture.Id}' has no source-measure unit for step '{name}'");
+        }
+
+        var channel = fixture.Slots.First(s => s.Slot == unit.Slot).SmuChannel
+            ?? throw new UnitFaultException($"slot {unit.Slot} has no smuChannel in fixture '{fixture.Id}': it cannot be swept");
+        var compliance = step.ComplianceVolts ?? fixture.SourceMeter?.ComplianceVolts ?? 2.5;
         var currents = step.SweepCurrents();
 
-        var before = await _coordinator.ReadReferenceCelsiusAsync(ct).ConfigureAwait(false);
-        var (points, complianceAt) = await SweepAsync(smu, channel, currents, compliance, step.Samples, ct).ConfigureAwait(false);
-        var after = await _coordinator.ReadReferenceCelsiusAsync(ct).ConfigureAwait(false);
+        var before = await instruments.ReadReferenceAsync(ct).ConfigureAwait(false);
+        var (points, complianceAt) = await SweepAsync(instruments, channel, currents, compliance, step.Samples, ct).ConfigureAwait(false);
+        var after = await instruments.ReadReferenceAsync(ct).ConfigureAwait(false);
         var celsius = (before + after) / 2;
-        var now = _coordinator.Now;
+        var now = instruments.Now;
         unit.Add(UnlimitedReading.Create($"{name}.reference", celsius, "degC") with { Step = name, Setpoint = step.Setpoint, At = now });
 
         if (complianceAt is { } amps)
@@ -78,44 +87,36 @@ internal sealed class IvSweepExecutor
         unit.Sweeps.Add(new IvSweepRecord(name, step.Setpoint, celsius, fit));
     }
 
-    private async Task<(List<IvPoint> Points, double? ComplianceAt)> SweepAsync(
-        ISourceMeter smu, int channel, IReadOnlyList<double> currents, double compliance, int samples, CancellationToken ct)
+    private static async Task<(List<IvPoint> Points, double? ComplianceAt)> SweepAsync(
+        InstrumentGateway instruments, int channel, IReadOnlyList<double> currents, double compliance, int samples, CancellationToken ct)
     {
         var points = new List<IvPoint>(currents.Count);
         double? complianceAt = null;
-        try
+        foreach (var amps in currents)
         {
-            foreach (var amps in currents)
+            await instruments.SourceMeterAsync((smu, token) => smu.SetCurrentAsync(channel, amps, compliance, token), ct).ConfigureAwait(false);
+            var sum = 0.0;
+            for (var s = 0; s < samples && complianceAt is null; s++)
             {
-                await smu.SetCurrentAsync(channel, amps, compliance, ct).ConfigureAwait(false);
-                var sum = 0.0;
-                for (var s = 0; s < samples && complianceAt is null; s++)
+                await instruments.DelayAsync(instruments.Timing.MeterReadSeconds, ct).ConfigureAwait(false);
+                var reading = await instruments.SourceMeterAsync((smu, token) => smu.MeasureVoltsAsync(token), ct).ConfigureAwait(false);
+                if (reading.InCompliance || !double.IsFinite(reading.Volts))
                 {
-                    await _coordinator.DelayAsync(_coordinator.MeterReadSeconds, ct).ConfigureAwait(false);
-                    var reading = await smu.MeasureVoltsAsync(ct).ConfigureAwait(false);
-                    if (reading.InCompliance || !double.IsFinite(reading.Volts))
-                    {
-                        complianceAt = amps;
-                    }
-
-                    sum += reading.Volts;
+                    complianceAt = amps;
                 }
 
-                if (complianceAt is not null)
-                {
-                    break;
-                }
-
-                points.Add(new IvPoint(amps, sum / samples));
+                sum += reading.Volts;
             }
 
-            await smu.OutputOffAsync(ct).ConfigureAwait(false);
-        }
-        catch (InstrumentFaultException ex)
-        {
-            throw new BatchFaultException($"source-measure unit lost: {ex.Message}", ex);
+            if (complianceAt is not null)
+            {
+                break;
+            }
+
+            points.Add(new IvPoint(amps, sum / samples));
         }
 
+        await instruments.SourceMeterAsync((smu, token) => smu.OutputOffAsync(token), ct).ConfigureAwait(false);
         return (points, complianceAt);
     }
 

@@ -3,19 +3,17 @@ using LineTest.Core.Calibration;
 using LineTest.Core.Results;
 using LineTest.Core.Sequences;
 using LineTest.Core.Trims;
+using LineTest.Runtime.Batches;
 using LineTest.Runtime.Judging;
 
-namespace LineTest.Runtime.Batches;
+namespace LineTest.Runtime.Steps;
 
 /// <summary>Runs a trim step with the DAC method: compute codes (<see cref="DacTrim"/>), range-check, write, store, read back.</summary>
-internal sealed class DacTrimExecutor
+internal static class DacTrimExecutor
 {
-    private readonly BatchCoordinator _coordinator;
-
-    public DacTrimExecutor(BatchCoordinator coordinator) => _coordinator = coordinator;
-
-    public async Task RunAsync(SequenceDefinition sequence, TrimStep step, UnitContext unit, CancellationToken ct)
+    public static async Task RunAsync(StepContext context, SequenceDefinition sequence, TrimStep step, UnitContext unit, CancellationToken ct)
     {
+        var instruments = context.Instruments;
         var spec = sequence.Trim?.Dac ?? throw new InvalidOperationException("Checked sequences with a trim step have a DAC trim.");
         var points = step.Points
             .Select(p => new CalibrationPoint(p, unit.CalibrationPoints[p].ReferenceC, unit.CalibrationPoints[p].Output))
@@ -25,7 +23,7 @@ internal sealed class DacTrimExecutor
             .Select(p => new TrimCheckpoint(p, sequence.Setpoints.First(s => s.Name == p).Celsius))
             .ToList();
         var name = step.DisplayName;
-        var now = _coordinator.Now;
+        var now = instruments.Now;
         var result = DacTrim.Compute(spec, points, unit.Registers[spec.Gain.Register], unit.Registers[spec.Offset.Register], checkpoints);
         if (!result.TryGetValue(out var trim))
         {
@@ -56,10 +54,10 @@ internal sealed class DacTrimExecutor
         }
 
         var values = trim.Registers.ToDictionary(r => r.Key, r => r.Value, StringComparer.Ordinal);
-        await _coordinator.LinkAsync(unit, (link, token) => link.WriteTrimAsync(values, token), ct).ConfigureAwait(false);
-        await _coordinator.DelayAsync(_coordinator.StoreSeconds, ct).ConfigureAwait(false);
-        await _coordinator.LinkAsync(unit, (link, token) => link.StoreAsync(token), ct).ConfigureAwait(false);
-        var readBack = await _coordinator.LinkAsync(unit, (link, token) => link.ReadBackAsync(token), ct).ConfigureAwait(false);
+        await instruments.LinkAsync(unit.Slot, (link, token) => link.WriteTrimAsync(values, token), ct).ConfigureAwait(false);
+        await instruments.DelayAsync(instruments.Timing.UnitStoreSeconds, ct).ConfigureAwait(false);
+        await instruments.LinkAsync(unit.Slot, (link, token) => link.StoreAsync(token), ct).ConfigureAwait(false);
+        var readBack = await instruments.LinkAsync(unit.Slot, (link, token) => link.ReadBackAsync(token), ct).ConfigureAwait(false);
         foreach (var (register, value) in values)
         {
             if (!readBack.TryGetValue(register, out var stored) || stored != value)

@@ -1,60 +1,83 @@
 using System.Globalization;
+using LineTest.Core.Characterisation;
+using LineTest.Core.Decisions;
 using LineTest.Core.Definitions;
 using LineTest.Core.Fixtures;
-using LineTest.Core.Characterisation;
 
-namespace LineTest.Core.Sequences;
+namespace LineTest.Core.Sequences.Steps;
 
 /// <summary>
-/// The checker's rules for <see cref="IvSweepStep"/>: where the currents come from, that they are positive and
-/// increasing and enough for the fit, the units of every limit, the bias current a temperature coefficient needs,
-/// and (with a fixture) that the fixture has a source-measure unit wired to every slot that can carry the currents.
-/// The setpoint-settled rule is checked with the other steps in <see cref="SequenceChecker"/>.
+/// The <c>iv-sweep</c> step: reads at the settled setpoint; where the currents come from, that they are positive and
+/// increasing and enough for the fit, the units of every limit, the bias current a temperature coefficient needs, and
+/// (with a fixture) that the fixture has a source-measure unit wired to every slot that can carry the currents. Never
+/// crossed by the planner. Time: each unit in turn, the reference before and after, and every current's readings.
 /// </summary>
-internal static class IvSweepRules
+public sealed class IvSweepStepKind : StepKind<IvSweepStep>
 {
     /// <summary>Most currents in one sweep: enough for any fit, few enough to keep the cycle time down.</summary>
     public const int MaxPoints = 50;
 
-    public static void Check(SequenceDefinition sequence, FixtureDefinition? fixture, ProblemList problems)
+    /// <inheritdoc />
+    public override string Word => "iv-sweep";
+
+    /// <summary>The sequence-wide sweep setting: the nominal bias current, when given, is a positive number.</summary>
+    public static void CheckSequence(SequenceDefinition sequence, ProblemList problems)
     {
+        ArgumentNullException.ThrowIfNull(sequence);
+        ArgumentNullException.ThrowIfNull(problems);
         problems.AddIf(sequence.NominalBiasAmps is { } seqBias && !(seqBias > 0 && double.IsFinite(seqBias)), "$.nominalBiasAmps",
             "the nominal bias current must be a positive number of amperes");
-        var sweptAt = new List<string>();
-        for (var i = 0; i < sequence.Steps.Count; i++)
+    }
+
+    /// <inheritdoc />
+    protected override void Check(IvSweepStep step, StepCheckContext context)
+    {
+        var path = context.Path;
+        var problems = context.Problems;
+        context.RequireSettled(step.Setpoint);
+        CheckCurrents(step, path, problems);
+        problems.AddIf(step.Samples < 1, $"{path}.samples", $"samples must be 1 or more, not {step.Samples}");
+        problems.AddIf(step.ComplianceVolts is { } compliance && !(compliance > 0 && double.IsFinite(compliance)), $"{path}.complianceVolts",
+            "the compliance must be a positive number of volts");
+        problems.AddIf(step.NominalBiasAmps is { } bias && !(bias > 0 && double.IsFinite(bias)), $"{path}.nominalBiasAmps",
+            "the nominal bias current must be a positive number of amperes");
+        CheckLimits(context, step.IdealityLimits, "n", StepCheckContext.RatioUnits);
+        CheckLimits(context, step.Log10SaturationCurrentLimits, "log10Is", StepCheckContext.RatioUnits);
+        CheckLimits(context, step.SeriesResistanceLimits, "rsOhms", StepCheckContext.ResistanceUnits);
+        CheckLimits(context, step.MaxResidualLimits, "maxResidualMillivolts", StepCheckContext.VoltageUnits);
+        CheckLimits(context, step.TemperatureCoefficientLimits, "tempco", StepCheckContext.SlopeUnits);
+        CheckLimits(context, step.ZeroKelvinLimits, "zeroKelvinVolts", StepCheckContext.VoltageUnits);
+        if (step.TemperatureCoefficientLimits is not null || step.ZeroKelvinLimits is not null)
         {
-            if (sequence.Steps[i] is not IvSweepStep sweep)
-            {
-                continue;
-            }
+            var key = step.TemperatureCoefficientLimits is not null ? "tempco" : "zeroKelvinVolts";
+            problems.AddIf(!context.SweptAt.Any(s => s != step.Setpoint), $"{path}.{key}",
+                "a temperature coefficient needs an earlier iv-sweep step at another setpoint");
+            problems.AddIf((step.NominalBiasAmps ?? context.Sequence.NominalBiasAmps) is null, $"{path}.{key}",
+                "a temperature coefficient is reported at the nominal bias current: give nominalBiasAmps on the step or the sequence");
+        }
 
-            var path = $"$.steps[{i}]";
-            CheckCurrents(sweep, path, problems);
-            problems.AddIf(sweep.Samples < 1, $"{path}.samples", $"samples must be 1 or more, not {sweep.Samples}");
-            problems.AddIf(sweep.ComplianceVolts is { } compliance && !(compliance > 0 && double.IsFinite(compliance)), $"{path}.complianceVolts",
-                "the compliance must be a positive number of volts");
-            problems.AddIf(sweep.NominalBiasAmps is { } bias && !(bias > 0 && double.IsFinite(bias)), $"{path}.nominalBiasAmps",
-                "the nominal bias current must be a positive number of amperes");
-            SequenceChecker.CheckSweepLimits(sweep.IdealityLimits, path, "n", problems);
-            SequenceChecker.CheckSweepLimits(sweep.Log10SaturationCurrentLimits, path, "log10Is", problems);
-            SequenceChecker.CheckSweepLimits(sweep.SeriesResistanceLimits, path, "rsOhms", problems);
-            SequenceChecker.CheckSweepLimits(sweep.MaxResidualLimits, path, "maxResidualMillivolts", problems);
-            SequenceChecker.CheckSweepLimits(sweep.TemperatureCoefficientLimits, path, "tempco", problems);
-            SequenceChecker.CheckSweepLimits(sweep.ZeroKelvinLimits, path, "zeroKelvinVolts", problems);
-            if (sweep.TemperatureCoefficientLimits is not null || sweep.ZeroKelvinLimits is not null)
-            {
-                var key = sweep.TemperatureCoefficientLimits is not null ? "tempco" : "zeroKelvinVolts";
-                problems.AddIf(!sweptAt.Any(s => s != sweep.Setpoint), $"{path}.{key}",
-                    "a temperature coefficient needs an earlier iv-sweep step at another setpoint");
-                problems.AddIf((sweep.NominalBiasAmps ?? sequence.NominalBiasAmps) is null, $"{path}.{key}",
-                    "a temperature coefficient is reported at the nominal bias current: give nominalBiasAmps on the step or the sequence");
-            }
+        context.SweptAt.Add(step.Setpoint);
+        if (context.Fixture is { } fixture)
+        {
+            CheckFixture(step, fixture, path, problems);
+        }
+    }
 
-            sweptAt.Add(sweep.Setpoint);
-            if (fixture is not null)
-            {
-                CheckFixture(sweep, fixture, path, problems);
-            }
+    /// <inheritdoc />
+    protected override string? SetpointOf(IvSweepStep step) => step.Setpoint;
+
+    /// <inheritdoc />
+    protected override double EstimateSeconds(IvSweepStep step, StepTimeModel model) =>
+        model.Units * (2 * model.ReferenceReadSeconds + step.SweepCurrents().Count * Math.Max(step.Samples, 1) * model.MeterReadSeconds);
+
+    /// <inheritdoc />
+    protected override string DoingText(IvSweepStep step) => $"sweeping the sensor at {step.Setpoint}";
+
+    private static void CheckLimits(StepCheckContext context, LimitSpec? limits, string key, string[] units)
+    {
+        if (limits is not null)
+        {
+            context.CheckLimits(limits, $"{context.Path}.{key}", units);
         }
     }
 

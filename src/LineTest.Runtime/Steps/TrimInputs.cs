@@ -1,8 +1,9 @@
 using LineTest.Core.Calibration;
 using LineTest.Core.Sequences;
 using LineTest.Core.Trims;
+using LineTest.Runtime.Batches;
 
-namespace LineTest.Runtime.Batches;
+namespace LineTest.Runtime.Steps;
 
 /// <summary>The calibration points and checkpoints a trim step hands to its trim calculation.</summary>
 internal static class TrimInputs

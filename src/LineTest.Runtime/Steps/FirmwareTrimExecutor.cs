@@ -1,26 +1,24 @@
 using LineTest.Core.Results;
 using LineTest.Core.Sequences;
 using LineTest.Core.Trims;
+using LineTest.Runtime.Batches;
 using LineTest.Runtime.Judging;
 
-namespace LineTest.Runtime.Batches;
+namespace LineTest.Runtime.Steps;
 
 /// <summary>
 /// Runs a trim step with the firmware coefficient method: fit temperature against the unit's raw counts
 /// (<see cref="FirmwareTrim"/>), range-check the register values, write them, store, read back and compare
 /// (<see cref="FirmwareTrim.CheckReadBack"/>); a mismatch ends the unit in error naming the register.
 /// </summary>
-internal sealed class FirmwareTrimExecutor
+internal static class FirmwareTrimExecutor
 {
-    private readonly BatchCoordinator _coordinator;
-
-    public FirmwareTrimExecutor(BatchCoordinator coordinator) => _coordinator = coordinator;
-
-    public async Task RunAsync(SequenceDefinition sequence, TrimStep step, UnitContext unit, CancellationToken ct)
+    public static async Task RunAsync(StepContext context, SequenceDefinition sequence, TrimStep step, UnitContext unit, CancellationToken ct)
     {
+        var instruments = context.Instruments;
         var spec = sequence.Trim?.Firmware ?? throw new InvalidOperationException("Checked sequences with method 'firmware' have a firmware trim.");
         var name = step.DisplayName;
-        var now = _coordinator.Now;
+        var now = instruments.Now;
         var result = FirmwareTrim.Compute(spec, TrimInputs.Points(step, unit), TrimInputs.ExtraCheckpoints(sequence, step));
         if (!result.TryGetValue(out var trim))
         {
@@ -57,10 +55,10 @@ internal sealed class FirmwareTrimExecutor
         }
 
         var values = trim.Registers.ToDictionary(r => r.Register, r => r.Value, StringComparer.Ordinal);
-        await _coordinator.LinkAsync(unit, (link, token) => link.WriteTrimAsync(values, token), ct).ConfigureAwait(false);
-        await _coordinator.DelayAsync(_coordinator.StoreSeconds, ct).ConfigureAwait(false);
-        await _coordinator.LinkAsync(unit, (link, token) => link.StoreAsync(token), ct).ConfigureAwait(false);
-        var readBack = await _coordinator.LinkAsync(unit, (link, token) => link.ReadBackAsync(token), ct).ConfigureAwait(false);
+        await instruments.LinkAsync(unit.Slot, (link, token) => link.WriteTrimAsync(values, token), ct).ConfigureAwait(false);
+        await instruments.DelayAsync(instruments.Timing.UnitStoreSeconds, ct).ConfigureAwait(false);
+        await instruments.LinkAsync(unit.Slot, (link, token) => link.StoreAsync(token), ct).ConfigureAwait(false);
+        var readBack = await instruments.LinkAsync(unit.Slot, (link, token) => link.ReadBackAsync(token), ct).ConfigureAwait(false);
         var check = FirmwareTrim.CheckReadBack(trim, readBack);
         if (!check.Succeeded)
         {

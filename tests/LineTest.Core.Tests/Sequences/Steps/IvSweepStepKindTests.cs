@@ -3,9 +3,9 @@ using LineTest.Core.Fixtures;
 using LineTest.Core.Sequences;
 using LineTest.Core.Tests.TestData;
 
-namespace LineTest.Core.Tests.Sequences;
+namespace LineTest.Core.Tests.Sequences.Steps;
 
-public sealed class IvSweepRulesTests
+public sealed class IvSweepStepKindTests
 {
     private const string LowSweep = "\"setpoint\": \"cal-low\", \"fromAmps\": 1e-6, \"toAmps\": 1e-3, \"points\": 7, \"complianceVolts\": 2.5,";
 

@@ -1,9 +1,10 @@
 using LineTest.Core.Results;
 using LineTest.Core.Sequences;
 using LineTest.Core.Trims;
+using LineTest.Runtime.Batches;
 using LineTest.Runtime.Judging;
 
-namespace LineTest.Runtime.Batches;
+namespace LineTest.Runtime.Steps;
 
 /// <summary>
 /// Runs a trim step with the select-on-test resistor method: choose the parts (<see cref="ResistorTrim"/>),
@@ -14,22 +15,14 @@ namespace LineTest.Runtime.Batches;
 /// The unit has no trim registers, so nothing is written over its link: the run's trim record (chosen values and
 /// instructions) and the <c>.fitted</c> reading are the station's record of what the operator confirmed.
 /// </remarks>
-internal sealed class ResistorTrimExecutor
+internal static class ResistorTrimExecutor
 {
-    private readonly BatchCoordinator _coordinator;
-    private readonly BatchState _batch;
-
-    public ResistorTrimExecutor(BatchCoordinator coordinator, BatchState batch)
+    public static async Task RunAsync(StepContext context, SequenceDefinition sequence, TrimStep step, UnitContext unit, CancellationToken ct)
     {
-        _coordinator = coordinator;
-        _batch = batch;
-    }
-
-    public async Task RunAsync(SequenceDefinition sequence, TrimStep step, UnitContext unit, CancellationToken ct)
-    {
+        var instruments = context.Instruments;
         var spec = sequence.Trim?.Resistor ?? throw new InvalidOperationException("Checked sequences with method 'resistor' have a resistor trim.");
         var name = step.DisplayName;
-        var now = _coordinator.Now;
+        var now = instruments.Now;
         var result = ResistorTrim.Compute(spec, TrimInputs.Points(step, unit), TrimInputs.ExtraCheckpoints(sequence, step));
         if (!result.TryGetValue(out var trim))
         {
@@ -62,12 +55,12 @@ internal sealed class ResistorTrimExecutor
         }
 
         var prompt = PromptText(unit, trim.Instructions);
-        await _coordinator.PromptOperatorAsync(_batch, unit, prompt, ct).ConfigureAwait(false);
-        await _coordinator.PartsFittedAsync(unit, [trim.Gain, trim.Offset], ct).ConfigureAwait(false);
+        await context.PromptOperatorAsync(unit, prompt, ct).ConfigureAwait(false);
+        await (context.PartFitting?.PartsFittedAsync(unit.Slot, unit.Serial, [trim.Gain, trim.Offset], ct) ?? Task.CompletedTask).ConfigureAwait(false);
         unit.Add(new Reading($"{name}.fitted", 1, "1", null, null, Verdict.Pass)
         {
             Step = name,
-            At = _coordinator.Now,
+            At = instruments.Now,
             Note = $"operator confirmed: {string.Join("; ", trim.Instructions)}",
         });
     }
