@@ -842,6 +842,7 @@ public sealed partial class BatchCoordinator
         {
             Verdict = verdict,
             Reason = verdict == Verdict.Pass ? null : unit.Machine.Reason,
+            Disposition = batch.Request.Sequence.Dispositions?.For(verdict, unit.FirstFailingReading),
         };
         unit.Record = record;
         try
