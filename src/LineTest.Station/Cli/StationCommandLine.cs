@@ -45,7 +45,15 @@ public static class StationCommandLine
             return ExitCodes.BadInput;
         }
 
-        var configuration = new InvocationConfiguration { Output = context.Output, Error = context.Error, EnableDefaultExceptionHandler = false };
+        // Ctrl-C and SIGTERM are the caller's (Program's StopSignals, passed in as the token): System.CommandLine's own
+        // handling would cancel the hosted station at once and end the process after a timeout, with no confirmation.
+        var configuration = new InvocationConfiguration
+        {
+            Output = context.Output,
+            Error = context.Error,
+            EnableDefaultExceptionHandler = false,
+            ProcessTerminationTimeout = null,
+        };
         return await parse.InvokeAsync(configuration, cancellationToken).ConfigureAwait(false);
     }
 }

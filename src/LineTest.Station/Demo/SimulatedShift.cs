@@ -44,7 +44,7 @@ public sealed class SimulatedShift
         var wallStart = TimeProvider.System.GetTimestamp();
         var fixture = _options.Fixture;
         var sensor = ReferenceConversion.SensorOf(fixture);
-        var clock = new VirtualTimeProvider(TimeProvider.System.GetUtcNow());
+        var clock = _options.Clock ?? new VirtualTimeProvider(TimeProvider.System.GetUtcNow());
         var start = clock.GetUtcNow();
         var rig = new SimulatedRig(fixture, _options.Seed, clock, ReferenceConversion.FromCelsius(sensor));
         var design = SimulatedUnitDesign.ForProduct(_options.Sequence.Product)

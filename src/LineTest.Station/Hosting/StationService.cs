@@ -82,6 +82,7 @@ public sealed partial class StationService : BackgroundService
         {
             _context.Logging.ConsoleOpen = true;
             _context.Logging.ScreenMessage = null;
+            _context.Logging.Clock = null;
             _lifetime.StopApplication();
         }
     }
@@ -113,6 +114,12 @@ public sealed partial class StationService : BackgroundService
         }
 
         using var rig = opened;
+        if (rig.IsSimulated)
+        {
+            // Log events carry the simulated time, so they line up with the stored runs.
+            _context.Logging.Clock = rig.Clock;
+        }
+
         try
         {
             // Standby first: the source may hold a setpoint from a run that was interrupted; it also proves the

@@ -19,7 +19,7 @@ public static class ScreenRenderer
     public const int Height = 24;
 
     /// <summary>Shown when the block is neither hot nor cold: the inserts still may be.</summary>
-    public const string StandingCaution = "CAUTION: inserts may be hot or cold. Use tongs or gloves; keep clear while it runs.";
+    public const string StandingCaution = "CAUTION: inserts may be hot or cold. Use tongs or gloves.";
 
     /// <summary>The whole screen.</summary>
     public static IRenderable Build(ScreenSnapshot s, string scanBuffer = "")
