@@ -34,7 +34,7 @@ public sealed class StepWords
             UnitState.CheckingSupply => "supply current",
             UnitState.WaitingForSource => "block to" + at,
             UnitState.Soaking => "soaking at" + at,
-            UnitState.Measuring when definition is IvSweepStep => "diode sweep at" + at,
+            UnitState.Measuring when definition is IvSweepStep => "I-V sweep at" + at,
             UnitState.Measuring => "reading at" + at,
             UnitState.Verifying => "checking at" + at,
             UnitState.Trimming when definition is TrimStep => "trimming",
