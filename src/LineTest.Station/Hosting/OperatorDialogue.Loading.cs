@@ -44,6 +44,7 @@ public sealed partial class OperatorDialogue
         }
 
         Operator = text;
+        _talk.Model.Header = _talk.Model.Header with { Operator = text };
         LogOperator(_logger, text);
         _talk.Tell($"Operator {text}.");
         if (Lot is null)
@@ -75,6 +76,7 @@ public sealed partial class OperatorDialogue
         }
 
         Lot = text;
+        _talk.Model.Header = _talk.Model.Header with { Lot = text };
         LogLot(_logger, text, Operator);
         _talk.Tell($"Lot {text}.");
         EnterLoading();
