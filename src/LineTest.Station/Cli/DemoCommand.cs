@@ -81,6 +81,13 @@ public static class DemoCommand
             context.Logging.ConsoleOpen = parse.GetValue(verbose);
             context.Logging.Clock = clock;
             var lines = asJson ? context.Error : context.Output;
+            var resultsFolder = Path.GetFullPath(parse.GetValue(results)!);
+            using var writer = WriterLock.TakeOrRefuse(resultsFolder, context.Clock, context.Error);
+            if (writer is null)
+            {
+                return ExitCodes.RuntimeFailure;
+            }
+
             var shift = new SimulatedShift(
                 new ShiftOptions
                 {
@@ -90,7 +97,7 @@ public static class DemoCommand
                     Units = unitCount,
                     Slots = slotCount,
                     Seed = parse.GetValue(seed),
-                    ResultsDirectory = Path.GetFullPath(parse.GetValue(results)!),
+                    ResultsDirectory = resultsFolder,
                     Station = options.Id,
                     Lot = parse.GetValue(lot) ?? options.Lot,
                     Serial = parse.GetValue(serial),
@@ -126,6 +133,7 @@ public static class DemoCommand
                 return context.BadInput($"production mode refuses the sequence: {refusal}");
             }
 
+            summary = summary with { Head = Storage.Proof.HeadFile.Read(resultsFolder).Head?.Current.Anchor };
             if (asJson)
             {
                 context.Output.WriteLine(JsonSerializer.Serialize(summary));
@@ -133,6 +141,7 @@ public static class DemoCommand
             else
             {
                 WriteSummary(context.Output, summary);
+                context.Output.WriteLine(ResultsHeadLine.For(resultsFolder));
             }
 
             return ExitCodes.Done;

@@ -20,11 +20,13 @@ public static class StationCommandLine
             DryRunCommand.Create(context),
             VerifyCommand.Create(context),
             HistoryCommand.Create(context),
+            BackupCommand.Create(context),
             ReportCommand.Create(context),
             ExportCommand.Create(context),
             ReleaseCommand.Create(context),
             CampaignCommand.Create(context),
             BenchCommand.Create(context),
+            ServeCommand.Create(context),
         };
         return root;
     }
