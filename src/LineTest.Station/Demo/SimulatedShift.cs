@@ -43,7 +43,7 @@ public sealed class SimulatedShift
         ArgumentNullException.ThrowIfNull(runEnded);
         var wallStart = TimeProvider.System.GetTimestamp();
         var fixture = _options.Fixture;
-        var clock = new VirtualTimeProvider(TimeProvider.System.GetUtcNow());
+        var clock = _options.Clock ?? new VirtualTimeProvider(TimeProvider.System.GetUtcNow());
         var start = clock.GetUtcNow();
         var station = SimulatedStation.Create(fixture, _options.Sequence.Product, _options.Seed, clock);
         using var serialRig = _options.Serial ? new SimulatedSerialRig(station.Rig, _loggers) : null;
