@@ -30,7 +30,7 @@ internal static class IvSweepRules
 
             var path = $"$.steps[{i}]";
             CheckCurrents(sweep, path, problems);
-            problems.AddIf(sweep.Samples < 1, $"{path}.samples", $"samples must be 1 or more, not {sweep.Samples}");
+            DefinitionBounds.Samples.Check(sweep.Samples, $"{path}.samples", problems);
             problems.AddIf(sweep.ComplianceVolts is { } compliance && !(compliance > 0 && double.IsFinite(compliance)), $"{path}.complianceVolts",
                 "the compliance must be a positive number of volts");
             problems.AddIf(sweep.NominalBiasAmps is { } bias && !(bias > 0 && double.IsFinite(bias)), $"{path}.nominalBiasAmps",
@@ -69,9 +69,9 @@ internal static class IvSweepRules
             problems.AddIf(list.Count > MaxPoints, $"{path}.currentsAmps", $"at most {MaxPoints} currents per sweep, got {list.Count}");
             for (var k = 0; k < list.Count; k++)
             {
-                if (!(list[k] > 0) || !double.IsFinite(list[k]))
+                if (!DefinitionBounds.SensorCurrentAmps.Check(list[k], $"{path}.currentsAmps[{k}]", problems))
                 {
-                    problems.Add($"{path}.currentsAmps[{k}]", $"the current must be a positive number of amperes, not {F(list[k])}");
+                    continue;
                 }
                 else if (k > 0 && list[k] <= list[k - 1])
                 {
@@ -88,8 +88,10 @@ internal static class IvSweepRules
             return;
         }
 
-        problems.AddIf(sweep.FromAmps is not { } from || !(from > 0) || !double.IsFinite(from), $"{path}.fromAmps", "give the first current, a positive number of amperes");
-        problems.AddIf(sweep.ToAmps is not { } to || !(to > 0) || !double.IsFinite(to), $"{path}.toAmps", "give the last current, a positive number of amperes");
+        problems.AddIf(sweep.FromAmps is null, $"{path}.fromAmps", "give the first current, a positive number of amperes");
+        problems.AddIf(sweep.ToAmps is null, $"{path}.toAmps", "give the last current, a positive number of amperes");
+        DefinitionBounds.SensorCurrentAmps.Check(sweep.FromAmps, $"{path}.fromAmps", problems);
+        DefinitionBounds.SensorCurrentAmps.Check(sweep.ToAmps, $"{path}.toAmps", problems);
         if (sweep.FromAmps is { } f && sweep.ToAmps is { } t && f > 0 && t > 0 && t <= f)
         {
             problems.Add($"{path}.toAmps", $"currents must increase: the last current ({F(t)} A) must be above the first ({F(f)} A)");
@@ -115,11 +117,13 @@ internal static class IvSweepRules
 
         var unwired = fixture.Slots.Where(s => s.SmuChannel is null).Select(s => s.Slot.ToString(CultureInfo.InvariantCulture)).ToList();
         problems.AddIf(unwired.Count > 0, path, $"slot(s) {string.Join(", ", unwired)} of fixture '{fixture.Id}' have no smuChannel for an I–V sweep");
-        var currents = sweep.SweepCurrents();
-        if (currents.Count > 0 && currents.Max() > smu.MaxCurrentAmps)
+        // The largest current without building the sweep: a range ends at toAmps (a points count far out of bounds must
+        // not allocate before its own problem is reported).
+        var largest = sweep.CurrentsAmps is { Count: > 0 } list ? list.Max() : sweep.ToAmps;
+        if (largest is { } max && max > smu.MaxCurrentAmps)
         {
             problems.Add(sweep.CurrentsAmps is null ? $"{path}.toAmps" : $"{path}.currentsAmps",
-                $"{F(currents.Max())} A is above the {F(smu.MaxCurrentAmps)} A fixture '{fixture.Id}' allows through a sensor");
+                $"{F(max)} A is above the {F(smu.MaxCurrentAmps)} A fixture '{fixture.Id}' allows through a sensor");
         }
     }
 
