@@ -69,7 +69,8 @@ public sealed record NumberBound(double Minimum, double Maximum, string Unit, bo
 
     /// <summary>A number as problems show it: plain for ordinary sizes, G4 for the very large and very small.</summary>
     public static string F(double value) =>
-        Math.Abs(value) >= 1e7 || (value != 0 && Math.Abs(value) < 1e-4)
+        Math.Floor(value) == value && Math.Abs(value) < 1e15 ? value.ToString("0", CultureInfo.InvariantCulture)
+        : Math.Abs(value) >= 1e7 || (value != 0 && Math.Abs(value) < 1e-4)
             ? value.ToString("G4", CultureInfo.InvariantCulture)
             : value.ToString("0.######", CultureInfo.InvariantCulture);
 }

@@ -34,7 +34,7 @@ public sealed class FixtureLoaderTests
         ["unknown source kind"] = new("\"kind\": \"dry-block\"", "\"kind\": \"dryblock\"", "\"dryblock\"", "$.source.kind", "unknown source kind 'dryblock'"),
         ["unknown rig"] = new("\"rig\": \"simulator\"", "\"rig\": \"sim\"", "\"rig\"", "$.rig", "unknown rig 'sim' (known: simulator, serial)"),
         ["zero shunt"] = new("\"supplyChannel\": 112, \"supplyShuntOhms\": 10", "\"supplyChannel\": 112, \"supplyShuntOhms\": 0", "\"slot\": 2", "$.slots[1].supplyShuntOhms",
-            "must be a number above 0 and at most 1E+09 Ω, not 0"),
+            "must be a number above 0 and at most 1000000000 Ω, not 0"),
         ["zero meter range"] = new("\"rangeVolts\": 10,", "\"rangeVolts\": 0,", "rangeVolts", "$.meter.rangeVolts", "must be a number above 0 and at most 1000 V, not 0"),
         ["defect rate above one"] = new("\"defectRate\": 0.04", "\"defectRate\": 4", "defectRate", "$.simulation.defectRate", "must be a number 0 … 1, not 4"),
         ["more slot offsets than slots"] = new("[ 0.0, 0.01, -0.01, 0.02 ]", "[ 0.0, 0.01, -0.01, 0.02, 0.03 ]", "slotOffsetsC", "$.simulation.slotOffsetsC", "more offsets (5) than slots (4)"),
