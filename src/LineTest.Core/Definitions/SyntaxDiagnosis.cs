@@ -35,6 +35,11 @@ internal static class SyntaxDiagnosis
         }
 
         var next = SkipBlanks(text, offset);
+        if (SkipBlanks(text, 0) >= text.Length)
+        {
+            return ("$", 1, "the file is empty: a definition file holds one JSON object");
+        }
+
         if (next >= text.Length)
         {
             return depth > 0 || !rootClosed
