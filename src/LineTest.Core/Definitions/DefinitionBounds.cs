@@ -46,7 +46,7 @@ public static class DefinitionBounds
     public static readonly NumberBound Samples = NumberBound.Count(1, 1000);
 
     /// <summary>Currents of one I–V sweep: enough for the three-parameter fit, few enough for the cycle time.</summary>
-    public static readonly NumberBound SweepPoints = NumberBound.Count(Characterisation.ShockleyFit.MinimumPoints, IvSweepRules.MaxPoints);
+    public static readonly NumberBound SweepPoints = NumberBound.Count(Characterisation.ShockleyFit.MinimumPoints, Sequences.Steps.IvSweepStepKind.MaxPoints);
 
     /// <summary>A sweep or bias current through a sensor, amperes.</summary>
     public static readonly NumberBound SensorCurrentAmps = NumberBound.Positive(1, "A");
