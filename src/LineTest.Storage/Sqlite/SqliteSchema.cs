@@ -9,7 +9,7 @@ namespace LineTest.Storage.Sqlite;
 internal static class SqliteSchema
 {
     /// <summary>The schema version this code writes and reads.</summary>
-    public const int CurrentVersion = 2;
+    public const int CurrentVersion = 3;
 
     /// <summary>'LTR1' in ASCII: identifies a LineTest results file (SQLite file format, header offset 68).</summary>
     public const int ApplicationId = 0x4C545231;
@@ -123,6 +123,14 @@ internal static class SqliteSchema
         {
             Execute(connection, transaction, AddV2);
             Execute(connection, transaction, "PRAGMA user_version = 2;");
+            version = 2;
+        }
+
+        // Version 3: the factory outbox (SqliteOutboxSchema), additive.
+        if (version == 2)
+        {
+            Execute(connection, transaction, SqliteOutboxSchema.AddV3);
+            Execute(connection, transaction, "PRAGMA user_version = 3;");
         }
 
         transaction.Commit();
