@@ -27,9 +27,11 @@ public static class DemoCommand
         var lot = new Option<string?>("--lot") { Description = "Lot stored with every run" };
         var serial = new Option<bool>("--serial") { Description = "Reach the simulated instruments through the real serial drivers over pseudo-terminal ports (Linux)" };
         var production = new Option<bool>("--production") { Description = "Production mode: run only a released sequence file (see 'linetest release')" };
+        var stations = new Option<int>("--stations") { Description = "Simulated stations at once, each in its own folder under --results (--units each)", DefaultValueFactory = _ => 1 };
+        var factory = new Option<string?>("--factory") { Description = "Forward every stored run to this factory database (Npgsql connection string)" };
         var command = new Command("demo", "Run a simulated production shift on the built-in simulator")
         {
-            units, slots, seed, results, json, sequence, fixture, lot, serial, production,
+            units, slots, seed, results, json, sequence, fixture, lot, serial, production, stations, factory,
         };
         command.SetAction(async (parse, ct) =>
         {
@@ -72,26 +74,36 @@ public static class DemoCommand
                     $"sequence '{sequenceResult.Value.Id}' tests '{sequenceResult.Value.Product}', but the simulator builds only {string.Join(", ", SimulatedUnitDesign.Demo.Select(d => d.Product))}");
             }
 
+            var stationCount = parse.GetValue(stations);
+            if (stationCount < 1 || stationCount > MultiStationDemo.MaxStations)
+            {
+                return context.BadInput($"--stations must be between 1 and {MultiStationDemo.MaxStations}, not {stationCount}");
+            }
+
             var asJson = parse.GetValue(json);
             var lines = asJson ? context.Error : context.Output;
-            var shift = new SimulatedShift(
-                new ShiftOptions
-                {
-                    Fixture = fx,
-                    Sequence = sequenceResult.Value,
-                    SequenceSha256 = sequenceResult.Sha256,
-                    Units = unitCount,
-                    Slots = slotCount,
-                    Seed = parse.GetValue(seed),
-                    ResultsDirectory = Path.GetFullPath(parse.GetValue(results)!),
-                    Station = options.Id,
-                    Lot = parse.GetValue(lot) ?? options.Lot,
-                    Serial = parse.GetValue(serial),
-                    Mode = parse.GetValue(production) ? ProductionGate.Production : options.Mode,
-                    SequenceFile = sequencePath,
-                    Notice = lines.WriteLine,
-                },
-                context.Loggers);
+            var shiftOptions = new ShiftOptions
+            {
+                Fixture = fx,
+                Sequence = sequenceResult.Value,
+                SequenceSha256 = sequenceResult.Sha256,
+                Units = unitCount,
+                Slots = slotCount,
+                Seed = parse.GetValue(seed),
+                ResultsDirectory = Path.GetFullPath(parse.GetValue(results)!),
+                Station = options.Id,
+                Lot = parse.GetValue(lot) ?? options.Lot,
+                Serial = parse.GetValue(serial),
+                Mode = parse.GetValue(production) ? ProductionGate.Production : options.Mode,
+                SequenceFile = sequencePath,
+                Notice = lines.WriteLine,
+            };
+            if (stationCount > 1 || parse.GetValue(factory) is not null)
+            {
+                return await MultiStationDemo.RunAsync(context, shiftOptions, stationCount, parse.GetValue(factory), asJson, ct).ConfigureAwait(false);
+            }
+
+            var shift = new SimulatedShift(shiftOptions, context.Loggers);
             ShiftSummary summary;
             try
             {

@@ -1,4 +1,6 @@
 using System.CommandLine;
+using LineTest.Factory.Forwarding;
+using LineTest.Station.Composition;
 using LineTest.Station.Hosting;
 using Microsoft.Extensions.Configuration;
 using Microsoft.Extensions.DependencyInjection;
@@ -39,6 +41,16 @@ public static class RunCommand
             builder.Services.AddSingleton(new StationServiceContext(context.Root, context.Options, Console.In, context.Output, context.Error));
             builder.Services.AddSingleton<StationService>();
             builder.Services.AddHostedService(sp => sp.GetRequiredService<StationService>());
+            try
+            {
+                // Store-and-forward to the factory database when Station:Factory:ConnectionString is set.
+                builder.Services.AddFactoryForwarding(context.Configuration, ContentRoot.Resolve(context.Root, context.Options.Results));
+            }
+            catch (ArgumentException ex)
+            {
+                return context.BadInput(ex.Message);
+            }
+
             using var host = builder.Build();
             var station = host.Services.GetRequiredService<StationService>();
 

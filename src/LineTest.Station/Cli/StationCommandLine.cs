@@ -19,6 +19,7 @@ public static class StationCommandLine
             SchemaCommand.Create(context),
             DryRunCommand.Create(context),
             VerifyCommand.Create(context),
+            ForwardCommand.Create(context),
             ReportCommand.Create(context),
             ExportCommand.Create(context),
             ReleaseCommand.Create(context),

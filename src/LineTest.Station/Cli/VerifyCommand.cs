@@ -18,9 +18,22 @@ public static class VerifyCommand
     {
         ArgumentNullException.ThrowIfNull(context);
         var results = new Option<string>("--results") { Description = "Results folder holding results.db", DefaultValueFactory = _ => "results" };
-        var command = new Command("verify", "Check that no stored run was changed, inserted or deleted") { results };
+        var factory = new Option<string?>("--factory") { Description = "Check the factory database (Npgsql connection string) instead; with --results, compare it with that station" };
+        var station = new Option<string?>("--station") { Description = "With --factory: only this station" };
+        var command = new Command("verify", "Check that no stored run was changed, inserted or deleted") { results, factory, station };
         command.SetAction(async (parse, ct) =>
         {
+            if (parse.GetValue(factory) is { } connection)
+            {
+                var given = parse.GetResult(results) is { Implicit: false } ? Path.GetFullPath(parse.GetValue(results)!) : null;
+                return await FactoryVerify.RunAsync(context, connection, parse.GetValue(station), given, ct).ConfigureAwait(false);
+            }
+
+            if (parse.GetValue(station) is not null)
+            {
+                return context.BadInput("--station needs --factory");
+            }
+
             var path = ResultsDatabase.PathIn(Path.GetFullPath(parse.GetValue(results)!));
             if (!File.Exists(path))
             {

@@ -51,7 +51,7 @@ public sealed class SimulatedShift
             ?? throw new InvalidOperationException(
                 $"The simulator builds {string.Join(", ", SimulatedUnitDesign.Demo.Select(d => d.Product))}, not '{_options.Sequence.Product}'.");
         using var serialRig = _options.Serial ? new SimulatedSerialRig(rig, _loggers) : null;
-        var factory = new SimulatedUnitFactory(_options.Seed, rig.Simulation, design);
+        var factory = new SimulatedUnitFactory(_options.Seed, rig.Simulation, design, firstCounter: _options.FirstSerialCounter);
         var slots = fixture.Slots.Select(s => s.Slot).Order().Take(_options.Slots).ToList();
         var runs = new List<RunRecord>();
         await using var store = SqliteResultStore.Open(_options.ResultsDirectory);
