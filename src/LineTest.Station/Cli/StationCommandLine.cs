@@ -20,6 +20,7 @@ public static class StationCommandLine
             DryRunCommand.Create(context),
             VerifyCommand.Create(context),
             ForwardCommand.Create(context),
+            FactoryBenchCommand.Create(context),
             ReportCommand.Create(context),
             ExportCommand.Create(context),
             ReleaseCommand.Create(context),
