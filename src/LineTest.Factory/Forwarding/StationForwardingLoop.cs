@@ -102,6 +102,13 @@ public sealed partial class StationForwardingLoop : IFactoryBacklog, IAsyncDispo
     /// <summary>One pass: forwards everything waiting now, retrying through outages, and returns what it did.</summary>
     public async Task<ForwardResult> DrainAsync(CancellationToken ct)
     {
+        if (_outbox is null && !File.Exists(ResultsDatabase.PathIn(_resultsDirectory)))
+        {
+            // Nothing stored yet: nothing to forward, and the database is the station store's to create.
+            _status = FactoryBacklogStatus.Unknown;
+            return ForwardResult.None;
+        }
+
         var wasFailing = _status.Problem is not null;
         var result = await _pipeline.ExecuteAsync(
             async token =>

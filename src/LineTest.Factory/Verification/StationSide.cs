@@ -47,7 +47,8 @@ public sealed class StationSide
             through = Scalar(connection, "SELECT through_seq FROM outbox_forwarded WHERE factory_id = $f;", factoryId) as long? ?? 0;
         }
 
-        return new StationSide(path, chainId, through, ReadHeadFile(Path.Combine(Path.GetDirectoryName(path)!, "results.head")));
+        var head = LineTest.Storage.Proof.HeadFile.Read(Path.GetDirectoryName(path)!).Head?.Current;
+        return new StationSide(path, chainId, through, head is null ? null : (head.Seq, head.Sha256));
     }
 
     /// <summary>The station's record hash of the run at <paramref name="seq"/>, or null when it has none.</summary>
@@ -58,25 +59,6 @@ public sealed class StationSide
         command.CommandText = "SELECT record_sha256 FROM runs WHERE seq = $s;";
         command.Parameters.AddWithValue("$s", seq);
         return command.ExecuteScalar() as string;
-    }
-
-    private static (long, string)? ReadHeadFile(string path)
-    {
-        if (!File.Exists(path))
-        {
-            return null;
-        }
-
-        foreach (var line in File.ReadLines(path))
-        {
-            var parts = line.Trim().Split(' ', ':');
-            if (parts is ["head", var seqText, var hash] && long.TryParse(seqText, System.Globalization.CultureInfo.InvariantCulture, out var seq) && hash.Length == 64)
-            {
-                return (seq, hash);
-            }
-        }
-
-        return null;
     }
 
     private static SqliteConnection Open(string path)

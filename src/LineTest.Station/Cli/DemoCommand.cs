@@ -82,6 +82,7 @@ public static class DemoCommand
 
             var asJson = parse.GetValue(json);
             var lines = asJson ? context.Error : context.Output;
+            var resultsFolder = Path.GetFullPath(parse.GetValue(results)!);
             var shiftOptions = new ShiftOptions
             {
                 Fixture = fx,
@@ -90,7 +91,7 @@ public static class DemoCommand
                 Units = unitCount,
                 Slots = slotCount,
                 Seed = parse.GetValue(seed),
-                ResultsDirectory = Path.GetFullPath(parse.GetValue(results)!),
+                ResultsDirectory = resultsFolder,
                 Station = options.Id,
                 Lot = parse.GetValue(lot) ?? options.Lot,
                 Serial = parse.GetValue(serial),
@@ -100,7 +101,14 @@ public static class DemoCommand
             };
             if (stationCount > 1 || parse.GetValue(factory) is not null)
             {
+                // Each station of the demo takes its own folder's writer lock.
                 return await MultiStationDemo.RunAsync(context, shiftOptions, stationCount, parse.GetValue(factory), asJson, ct).ConfigureAwait(false);
+            }
+
+            using var writer = WriterLock.TakeOrRefuse(resultsFolder, context.Clock, context.Error);
+            if (writer is null)
+            {
+                return ExitCodes.RuntimeFailure;
             }
 
             var shift = new SimulatedShift(shiftOptions, context.Loggers);
@@ -125,6 +133,7 @@ public static class DemoCommand
                 return context.BadInput($"production mode refuses the sequence: {refusal}");
             }
 
+            summary = summary with { Head = Storage.Proof.HeadFile.Read(resultsFolder).Head?.Current.Anchor };
             if (asJson)
             {
                 context.Output.WriteLine(JsonSerializer.Serialize(summary));
@@ -132,6 +141,7 @@ public static class DemoCommand
             else
             {
                 WriteSummary(context.Output, summary);
+                context.Output.WriteLine(ResultsHeadLine.For(resultsFolder));
             }
 
             return ExitCodes.Done;

@@ -3,6 +3,7 @@ using System.Text.Json;
 using LineTest.Factory.Forwarding;
 using LineTest.Factory.Schema;
 using LineTest.Runtime.Batches;
+using LineTest.Station.Composition;
 using LineTest.Station.Demo;
 using LineTest.Storage.Store;
 using Microsoft.Extensions.Logging;
@@ -57,6 +58,19 @@ internal static class MultiStationDemo
                 Notice = Say,
             }).ToList();
 
+        var locks = new List<IDisposable>();
+        foreach (var plan in plans)
+        {
+            if (WriterLock.TakeOrRefuse(plan.ResultsDirectory, context.Clock, context.Error) is not { } taken)
+            {
+                locks.ForEach(l => l.Dispose());
+                return ExitCodes.RuntimeFailure;
+            }
+
+            locks.Add(taken);
+        }
+
+        using var release = new DisposableSet(locks);
         var forwarder = dataSource is null ? null : new FactoryForwarder(dataSource, TimeProvider.System, context.Loggers.CreateLogger<FactoryForwarder>());
         var forwarding = new FactoryForwardingOptions { PollInterval = TimeSpan.FromSeconds(1), RetryDelay = TimeSpan.FromSeconds(0.5), MaxRetryDelay = TimeSpan.FromSeconds(10) };
         var loops = forwarder is null

@@ -30,6 +30,13 @@ public static class RunCommand
                 return ExitCodes.BadInput;
             }
 
+            // One writer per results folder: refused at once, before the rig is opened or recovery looks at the journal.
+            using var writer = WriterLock.TakeOrRefuse(ContentRoot.Resolve(context.Root, context.Options.Results), context.Clock, context.Error);
+            if (writer is null)
+            {
+                return ExitCodes.RuntimeFailure;
+            }
+
             var builder = Host.CreateApplicationBuilder(new HostApplicationBuilderSettings
             {
                 ContentRootPath = context.Root,

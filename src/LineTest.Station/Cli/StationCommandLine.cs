@@ -21,11 +21,13 @@ public static class StationCommandLine
             VerifyCommand.Create(context),
             ForwardCommand.Create(context),
             FactoryBenchCommand.Create(context),
+            BackupCommand.Create(context),
             ReportCommand.Create(context),
             ExportCommand.Create(context),
             ReleaseCommand.Create(context),
             CampaignCommand.Create(context),
             BenchCommand.Create(context),
+            ServeCommand.Create(context),
         };
         return root;
     }

@@ -27,17 +27,21 @@ public sealed class SqliteOutbox : IAsyncDisposable
     public string ChainId { get; }
 
     /// <summary>
-    /// Opens the outbox of <c>results.db</c> in <paramref name="resultsDirectory"/>, creating the database (or adding
-    /// the outbox to an older one) when needed.
+    /// Opens the outbox of the existing <c>results.db</c> in <paramref name="resultsDirectory"/>, adding the outbox to a
+    /// database of an older schema. Never creates the database: that is the station's store's job (it also starts the
+    /// folder's proof files).
     /// </summary>
     /// <exception cref="ResultStoreException">The database cannot be opened or is not a LineTest results database.</exception>
     public static SqliteOutbox Open(string resultsDirectory)
     {
         const string what = "The station's outbox cannot be opened";
         var path = ResultsDatabase.PathIn(resultsDirectory);
-        // Created like the store creates it, so the forwarder may start before the first run is stored.
-        Directory.CreateDirectory(Path.GetDirectoryName(path)!);
-        var connection = new SqliteConnection(ResultsDatabase.ConnectionString(path, SqliteOpenMode.ReadWriteCreate));
+        if (!File.Exists(path))
+        {
+            throw new ResultStoreException(ResultStoreFailure.CannotOpen, $"{what}: '{path}' does not exist yet (no run has been stored).");
+        }
+
+        var connection = new SqliteConnection(ResultsDatabase.ConnectionString(path, SqliteOpenMode.ReadWrite));
         try
         {
             connection.Open();

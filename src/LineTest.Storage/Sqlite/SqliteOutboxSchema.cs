@@ -1,7 +1,7 @@
 namespace LineTest.Storage.Sqlite;
 
 /// <summary>
-/// The outbox of the factory forwarder, added by schema version 3 without touching earlier tables. Runs are only
+/// The outbox of the factory forwarder, added by schema version 4 without touching earlier tables. Runs are only
 /// ever appended in <c>seq</c> order and forwarded in that order, so the outbox is the runs after a watermark:
 /// <c>outbox_forwarded</c> holds, per factory database, the highest seq that database has committed. The watermark
 /// moves only after the server's commit, and never backwards. <c>outbox_source</c> holds this database's chain id,
@@ -9,7 +9,7 @@ namespace LineTest.Storage.Sqlite;
 /// </summary>
 internal static class SqliteOutboxSchema
 {
-    public const string AddV3 = """
+    public const string AddV4 = """
         CREATE TABLE IF NOT EXISTS outbox_source (
             only_row              INTEGER PRIMARY KEY CHECK (only_row = 1),
             chain_id              TEXT    NOT NULL

@@ -71,7 +71,7 @@ public sealed class SqliteResultStoreJournalTests
     }
 
     [Fact]
-    public async Task Open_SchemaVersionOneFile_MigratesToTwoKeepingItsRuns()
+    public async Task Open_SchemaVersionOneFile_MigratesToCurrentKeepingItsRuns()
     {
         var directory = Some.TempDirectory();
         var run = new RunRecordBuilder().Build();
@@ -86,7 +86,7 @@ public sealed class SqliteResultStoreJournalTests
         {
             connection.Open();
             using var command = connection.CreateCommand();
-            command.CommandText = "DROP TABLE runs_in_progress; DROP TABLE releases; PRAGMA user_version = 1;";
+            command.CommandText = "DROP TABLE runs_in_progress; DROP TABLE releases; DROP TABLE release_revocations; PRAGMA user_version = 1;";
             command.ExecuteNonQuery();
         }
 
