@@ -24,6 +24,9 @@ public sealed record ShiftOptions
     /// <summary>Simulator seed.</summary>
     public int Seed { get; init; } = 4040;
 
+    /// <summary>Counter of the first serial (1…999999): stations of one demo draw serials from separate blocks.</summary>
+    public int FirstSerialCounter { get; init; } = 1;
+
     /// <summary>Results folder.</summary>
     public required string ResultsDirectory { get; init; }
 

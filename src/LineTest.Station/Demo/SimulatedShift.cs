@@ -45,7 +45,7 @@ public sealed class SimulatedShift
         var fixture = _options.Fixture;
         var clock = _options.Clock ?? new VirtualTimeProvider(TimeProvider.System.GetUtcNow());
         var start = clock.GetUtcNow();
-        var station = SimulatedStation.Create(fixture, _options.Sequence.Product, _options.Seed, clock);
+        var station = SimulatedStation.Create(fixture, _options.Sequence.Product, _options.Seed, clock, _options.FirstSerialCounter);
         using var serialRig = _options.Serial ? new SimulatedSerialRig(station.Rig, _loggers) : null;
         var slots = fixture.Slots.Select(s => s.Slot).Order().Take(_options.Slots).ToList();
         var runs = new List<RunRecord>();
