@@ -432,7 +432,7 @@ public static class CsvReadingsLoader
             {
                 if (query.WantsReading(row.Name))
                 {
-                    data.Series(row.Name, row.Unit).Add(run, row.Value, row.Unit, row.Low, row.High);
+                    data.Series(first.SequenceId, row.Name, row.Unit).Add(run, row.Value, row.Unit, row.Low, row.High);
                 }
             }
 

@@ -28,15 +28,16 @@ public static class ReportCommand
         var results = new Option<string[]>("--results") { Description = "Results folder with results.db (repeatable; default ./results)" };
         var readings = new Option<string?>("--readings") { Description = "Readings CSV to report on instead of results databases" };
         var skipBadRows = new Option<bool>("--skip-bad-rows") { Description = "Report on the good rows of --readings when some rows are bad" };
-        var by = new Option<string?>("--by") { Description = "Group by station, slot, lot, day or revision" };
-        by.AcceptOnlyFromAmong("station", "slot", "lot", "day", "revision");
+        var by = new Option<string?>("--by") { Description = "Group by station, slot, lot, day, revision, operator or shift (shifts from Station:Shifts)" };
+        by.AcceptOnlyFromAmong("station", "slot", "lot", "day", "revision", "operator", "shift");
+        var firstRuns = new Option<bool>("--first-runs") { Description = "Capability and failure Pareto from each unit's first run only" };
         var json = new Option<bool>("--json") { Description = "Print the report as one JSON object instead of tables" };
         var csv = new Option<string?>("--csv") { Description = "Write the per-reading statistics to this CSV file" };
         var html = new Option<string?>("--html") { Description = "Write the report with charts to this HTML file" };
         var filters = new ReportFilterOptions();
         var command = new Command("report", "Quality report: yield, failures, capability, control charts and slot bias")
         {
-            results, readings, skipBadRows, by, json, csv, html,
+            results, readings, skipBadRows, by, firstRuns, json, csv, html,
         };
         filters.AddTo(command);
         command.SetAction(async (parse, ct) =>
@@ -47,6 +48,20 @@ public static class ReportCommand
             {
                 return context.BadInput(error!);
             }
+
+            var shifts = ShiftCalendar.Default;
+            if (context.Options.Shifts.Count > 0)
+            {
+                var (calendar, shiftError) = ShiftCalendar.Parse(context.Options.Shifts.Select(kv => $"{kv.Key}={kv.Value}"));
+                if (calendar is null)
+                {
+                    return context.BadInput($"Station:Shifts in the settings: {shiftError}");
+                }
+
+                shifts = calendar;
+            }
+
+            query = query with { FirstRunsOnly = parse.GetValue(firstRuns), Shifts = shifts };
 
             var folders = parse.GetValue(results) ?? [];
             var csvInput = parse.GetValue(readings);
@@ -82,6 +97,10 @@ public static class ReportCommand
                 if (loaded.BadRows.Count > 0)
                 {
                     context.Error.WriteLine($"linetest: skipped {loaded.BadRows.Count} bad row(s) of {csvInput}");
+                    foreach (var problem in loaded.BadRows)
+                    {
+                        loaded.Data.AddSkippedRow($"line {problem.Line}: {problem.Reason}");
+                    }
                 }
 
                 data = loaded.Data;
@@ -93,8 +112,9 @@ public static class ReportCommand
                 {
                     data = await ResultsLoader.LoadAsync(directories, query, ct).ConfigureAwait(false);
                 }
-                catch (ResultStoreException ex) when (ex.Failure is ResultStoreFailure.CannotOpen or ResultStoreFailure.Incompatible)
+                catch (ResultStoreException ex) when (ex.Failure is not (ResultStoreFailure.Locked or ResultStoreFailure.DiskError))
                 {
+                    // A missing, foreign or damaged database is bad input: say what is wrong, no stack trace.
                     return context.BadInput(ex.Message);
                 }
                 catch (ResultStoreException ex)
