@@ -17,6 +17,7 @@ public static class ReadingStatisticsCsvWriter
         "name", "unit", "low", "high", "n", "missing", "mean", "stdevOverall", "stdevWithin",
         "cp", "cpLower95", "cpUpper95", "cpk", "cpkLower95", "cpkUpper95", "pp", "ppk",
         "ppmObserved", "ppmExpected", "adStatistic", "normalityP", "lcl", "centre", "ucl", "signals", "slotF", "slotP",
+        "sequence", "covers", "nonNormal", "ppPercentile", "ppkPercentile", "withinDf",
     ];
 
     private static readonly CsvConfiguration Rfc4180 = new(CultureInfo.InvariantCulture) { NewLine = "\r\n", Delimiter = ",", Quote = '"' };
@@ -47,12 +48,33 @@ public static class ReadingStatisticsCsvWriter
                 N(r.Chart?.LowerControlLimit), N(r.Chart?.Centre), N(r.Chart?.UpperControlLimit),
                 r.Chart is { } chart ? SignalLabels.Summary(chart.Signals, "=") : string.Empty,
                 N(slots?.FStatistic), N(slots?.PValue),
+                r.SequenceId, r.Covers, r.NonNormal ? "true" : "false", N(r.Percentile?.Pp), N(r.Percentile?.Ppk), N(c.WithinDegreesOfFreedom),
             ];
             foreach (var field in fields)
             {
                 csv.WriteField(field ?? string.Empty);
             }
 
+            csv.NextRecord();
+        }
+
+        // The signal codes of the signals column, and rows left out of the input, as comment-free trailing records would
+        // break a reader expecting one table: they go in a second small table after a blank line.
+        csv.NextRecord();
+        csv.WriteField("legend");
+        csv.WriteField("meaning");
+        csv.NextRecord();
+        foreach (var (label, rule) in SignalLabels.Legend)
+        {
+            csv.WriteField(label);
+            csv.WriteField(rule);
+            csv.NextRecord();
+        }
+
+        foreach (var row in report.SkippedRows)
+        {
+            csv.WriteField("skipped row");
+            csv.WriteField(row);
             csv.NextRecord();
         }
 

@@ -27,9 +27,11 @@ public static class DemoCommand
         var lot = new Option<string?>("--lot") { Description = "Lot stored with every run" };
         var serial = new Option<bool>("--serial") { Description = "Reach the simulated instruments through the real serial drivers over pseudo-terminal ports (Linux)" };
         var production = new Option<bool>("--production") { Description = "Production mode: run only a released sequence file (see 'linetest release')" };
+        var station = new Option<string?>("--station") { Description = "Station id stored with every run (default: the station's)" };
+        var firstSerial = new Option<int?>("--first-serial") { Description = "Counter of the first serial (default: after the highest stored one)" };
         var command = new Command("demo", "Run a simulated production shift on the built-in simulator")
         {
-            units, slots, seed, results, json, sequence, fixture, lot, serial, production,
+            units, slots, seed, results, json, sequence, fixture, lot, serial, production, station, firstSerial,
         };
         command.SetAction(async (parse, ct) =>
         {
@@ -41,6 +43,16 @@ public static class DemoCommand
             if (unitCount < 1)
             {
                 return context.BadInput($"--units must be 1 or more, not {unitCount}");
+            }
+
+            if (parse.GetValue(firstSerial) is { } first && (first < 1 || first > 999_999 - unitCount + 1))
+            {
+                return context.BadInput($"--first-serial must be between 1 and {999_999 - unitCount + 1} for {unitCount} units, not {first}");
+            }
+
+            if (parse.GetValue(station) is { } stationId && string.IsNullOrWhiteSpace(stationId))
+            {
+                return context.BadInput("--station must not be empty");
             }
 
             var fixtureResult = DefinitionFiles.LoadFixture(fixturePath, context.Error);
@@ -84,7 +96,8 @@ public static class DemoCommand
                     Slots = slotCount,
                     Seed = parse.GetValue(seed),
                     ResultsDirectory = Path.GetFullPath(parse.GetValue(results)!),
-                    Station = options.Id,
+                    Station = parse.GetValue(station) ?? options.Id,
+                    FirstSerial = parse.GetValue(firstSerial),
                     Lot = parse.GetValue(lot) ?? options.Lot,
                     Serial = parse.GetValue(serial),
                     Mode = parse.GetValue(production) ? ProductionGate.Production : options.Mode,
@@ -106,6 +119,11 @@ public static class DemoCommand
             {
                 context.Error.WriteLine($"linetest: --serial cannot run here: {ex.Message}");
                 return ExitCodes.RuntimeFailure;
+            }
+
+            if (shift.Unplaced is { } unplaced)
+            {
+                return context.BadInput($"the shift does not fit before now: {unplaced}");
             }
 
             if (shift.Refusal is { } refusal)

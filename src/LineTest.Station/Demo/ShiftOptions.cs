@@ -53,4 +53,16 @@ public sealed record ShiftOptions
 
     /// <summary>Virtual seconds the operator takes to unload one batch and load the next.</summary>
     public double ReloadSeconds { get; init; } = 30;
+
+    /// <summary>
+    /// Counter of the first serial (the NNNNNN of CTP40A-YYWW-NNNNNN); null continues after the highest serial of the
+    /// product already stored in the folder (1 in an empty folder).
+    /// </summary>
+    public int? FirstSerial { get; init; }
+
+    /// <summary>
+    /// The clock that says what "now" is. The shift is laid out to end no later than now and to start after the last
+    /// run already stored, so no run is stored in the future and two shifts in one folder do not interleave.
+    /// </summary>
+    public TimeProvider Clock { get; init; } = TimeProvider.System;
 }

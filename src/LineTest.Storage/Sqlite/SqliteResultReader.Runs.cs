@@ -103,6 +103,36 @@ public sealed partial class SqliteResultReader
         return products;
     }
 
+    /// <summary>The latest end time of any stored run (from the end-time index), or null when none is stored.</summary>
+    /// <exception cref="ResultStoreException">The database cannot be opened or read, or the stored time is damaged.</exception>
+    public async Task<DateTimeOffset?> ReadLastEndedAsync(CancellationToken ct = default)
+    {
+        await using var connection = await OpenAsync(ct).ConfigureAwait(false);
+        await using var command = connection.CreateCommand();
+        command.CommandText = "SELECT seq, ended_utc FROM runs ORDER BY ended_utc DESC LIMIT 1;";
+        await using var reader = await ExecuteAsync(command, ct).ConfigureAwait(false);
+        if (!Read(reader))
+        {
+            return null;
+        }
+
+        return Checked(reader.GetInt64(0), () => UtcText.Parse(reader.GetString(1)));
+    }
+
+    /// <summary>The highest stored serial that starts with <paramref name="prefix"/> (ordinal order), or null (serial index).</summary>
+    /// <exception cref="ResultStoreException">The database cannot be opened or read.</exception>
+    public async Task<string?> ReadHighestSerialAsync(string prefix, CancellationToken ct = default)
+    {
+        ArgumentException.ThrowIfNullOrEmpty(prefix);
+        await using var connection = await OpenAsync(ct).ConfigureAwait(false);
+        await using var command = connection.CreateCommand();
+        command.CommandText = "SELECT max(serial) FROM runs WHERE serial >= $low AND serial < $high;";
+        command.Parameters.AddWithValue("$low", prefix);
+        command.Parameters.AddWithValue("$high", prefix + "\uffff");
+        await using var reader = await ExecuteAsync(command, ct).ConfigureAwait(false);
+        return Read(reader) && reader.GetValue(0) is string serial ? serial : null;
+    }
+
     /// <summary>The operator of each run matching <paramref name="filter"/>, in <c>seq</c> order (null where none was stored).</summary>
     /// <exception cref="ResultStoreException">The database cannot be opened or read.</exception>
     public async IAsyncEnumerable<(long Seq, string? Operator)> ReadOperatorsAsync(RunFilter filter, [EnumeratorCancellation] CancellationToken ct = default)
