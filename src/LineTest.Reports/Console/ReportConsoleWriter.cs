@@ -12,13 +12,31 @@ namespace LineTest.Reports.Console;
 /// </summary>
 public static class ReportConsoleWriter
 {
+    /// <summary>Widest line of plain output: wide enough that no table has to wrap a cell.</summary>
+    public const int PlainWidth = 4000;
+
     /// <summary>Writes the report to <paramref name="console"/>.</summary>
-    public static void Write(QualityReport report, IAnsiConsole console)
+    public static void Write(QualityReport report, IAnsiConsole console) => Write(report, console, plain: false);
+
+    /// <summary>
+    /// Writes the report to <paramref name="console"/>; <paramref name="plain"/> for a file or a pipe: no colour, no
+    /// full-width rules, and the console treated as <see cref="PlainWidth"/> columns wide so no cell is wrapped and no
+    /// name or number is split across lines.
+    /// </summary>
+    public static void Write(QualityReport report, IAnsiConsole console, bool plain)
     {
         ArgumentNullException.ThrowIfNull(report);
         ArgumentNullException.ThrowIfNull(console);
+        if (plain)
+        {
+            console.Profile.Width = PlainWidth;
+            console.Write(new Text(report.Title + "\n"));
+        }
+        else
+        {
+            console.Write(new Rule(Escape(report.Title)) { Justification = Justify.Left });
+        }
 
-        console.Write(new Rule(Escape(report.Title)) { Justification = Justify.Left });
         Line(console, $"Runs: {report.Query.Describe()}");
         foreach (var source in report.Sources)
         {

@@ -151,13 +151,15 @@ public static class ReportCommand
             }
             else
             {
+                // A terminal gets tables fitted to its width; a file or a pipe gets plain text whose cells never wrap.
+                var terminal = ReferenceEquals(context.Output, Console.Out) && !Console.IsOutputRedirected;
                 var console = AnsiConsole.Create(new AnsiConsoleSettings
                 {
                     Out = new AnsiConsoleOutput(context.Output),
-                    Ansi = AnsiSupport.Detect,
-                    ColorSystem = ColorSystemSupport.Detect,
+                    Ansi = terminal ? AnsiSupport.Detect : AnsiSupport.No,
+                    ColorSystem = terminal ? ColorSystemSupport.Detect : ColorSystemSupport.NoColors,
                 });
-                ReportConsoleWriter.Write(report, console);
+                ReportConsoleWriter.Write(report, console, plain: !terminal);
             }
 
             return ExitCodes.Done;

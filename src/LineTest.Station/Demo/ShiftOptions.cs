@@ -61,8 +61,9 @@ public sealed record ShiftOptions
     public int? FirstSerial { get; init; }
 
     /// <summary>
-    /// The clock that says what "now" is. The shift is laid out to end no later than now and to start after the last
-    /// run already stored, so no run is stored in the future and two shifts in one folder do not interleave.
+    /// The clock that says what "now" is. The shift starts after the last run already stored (06:00 UTC a week ago in
+    /// an empty folder) and must end no later than now, so no run is stored in the future and two shifts in one folder
+    /// do not interleave.
     /// </summary>
     public TimeProvider Clock { get; init; } = TimeProvider.System;
 }

@@ -43,9 +43,10 @@ public sealed class SimulatedShift
 
     /// <summary>
     /// Runs the shift; <paramref name="runEnded"/> sees each run once it is stored. The shift continues the folder:
-    /// serials after the highest stored one of the product, a virtual clock that starts after the last stored run and
-    /// is laid out to end no later than now (its length is measured first by simulating it, unstored, with the same
-    /// seed). A shift that would have to end in the future is not run (see <see cref="Unplaced"/>). Then the source
+    /// serials after the highest stored one of the product, a virtual clock that starts one reload gap after the last
+    /// stored run (at 06:00 UTC a week ago in an empty folder), and it must end no later than now: its length is
+    /// measured first by simulating it, unstored, with the same seed, and a shift that would end in the future is not
+    /// run (see <see cref="Unplaced"/>). Then the source
     /// goes to standby and runs left in progress by the last stop are stored as interrupted; in production mode a
     /// sequence that is not released is refused (see <see cref="Refusal"/>) before any unit is loaded.
     /// </summary>
@@ -82,20 +83,20 @@ public sealed class SimulatedShift
             scratch.Delete(recursive: true);
         }
 
-        // A minute's margin for rounding in the virtual clock; after the last stored run, one reload gap.
-        var start = now - length - TimeSpan.FromMinutes(1);
-        if (lastEnded is { } last && last + TimeSpan.FromSeconds(_options.ReloadSeconds) > start)
+        // An empty folder's first shift starts at 06:00 UTC a week ago, as if the station had been in production since;
+        // later shifts start one reload gap after the last stored run. Either way the shift must end by now.
+        var start = lastEnded is { } last
+            ? last + TimeSpan.FromSeconds(_options.ReloadSeconds)
+            : new DateTimeOffset((now - HistoryWindow).UtcDateTime.Date.AddHours(6), TimeSpan.Zero);
+        if (start + length > now)
         {
-            start = last + TimeSpan.FromSeconds(_options.ReloadSeconds);
-            if (start + length > now)
-            {
-                var perUnit = length.TotalSeconds / Math.Max(1, _options.Units);
-                var fit = (int)Math.Floor((now - start).TotalSeconds / perUnit) - _options.Slots;
-                var advice = fit > 0 ? FormattableString.Invariant($"test at most {fit} units, or use another results folder") : "use another results folder, or run it later";
-                Unplaced = FormattableString.Invariant(
-                    $"the runs in {_options.ResultsDirectory} end at {last.UtcDateTime:yyyy-MM-dd HH:mm} UTC and a shift of {_options.Units} units takes {length.TotalHours:F1} h, so after them it would end in the future; {advice}");
-                return Summary(0, [], TimeSpan.Zero, wallStart, ResultsDatabase.PathIn(_options.ResultsDirectory));
-            }
+            var perUnit = length.TotalSeconds / Math.Max(1, _options.Units);
+            var fit = (int)Math.Floor((now - start).TotalSeconds / perUnit) - _options.Slots;
+            var advice = fit > 0 ? FormattableString.Invariant($"test at most {fit} units, or use another results folder") : "use another results folder, or run it later";
+            var after = lastEnded is { } end ? FormattableString.Invariant($"the runs in {_options.ResultsDirectory} end at {end.UtcDateTime:yyyy-MM-dd HH:mm} UTC and ") : string.Empty;
+            Unplaced = FormattableString.Invariant(
+                $"{after}a shift of {_options.Units} units takes {length.TotalHours:F1} h, so starting {start.UtcDateTime:yyyy-MM-dd HH:mm} UTC it would end in the future; {advice}");
+            return Summary(0, [], TimeSpan.Zero, wallStart, ResultsDatabase.PathIn(_options.ResultsDirectory));
         }
 
         StartedUtc = start;
@@ -105,6 +106,9 @@ public sealed class SimulatedShift
 
     /// <summary>Year and week in the demo serials (YYWW).</summary>
     private const int YearWeek = 2612;
+
+    /// <summary>How far back an empty folder's first shift starts: room for about a week of demo shifts before now.</summary>
+    private static readonly TimeSpan HistoryWindow = TimeSpan.FromDays(7);
 
     private ShiftSummary Summary(int units, List<RunRecord> runs, TimeSpan simulated, long wallStart, string path)
     {
