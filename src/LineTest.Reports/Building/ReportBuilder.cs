@@ -176,7 +176,7 @@ public static class ReportBuilder
         return list;
     }
 
-    private static (List<string> Keys, int[] GroupOfRun) Partition(RunTable runs, ReportGrouping grouping, ShiftCalendar? shifts)
+    private static (List<string> Keys, int[] GroupOfRun) Partition(RunTable runs, ReportGrouping grouping, NamedShifts? shifts)
     {
         var ids = new Dictionary<string, int>(StringComparer.Ordinal);
         var keys = new List<string>();

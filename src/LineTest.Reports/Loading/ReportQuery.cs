@@ -42,8 +42,8 @@ public sealed record ReportQuery
     /// <summary>Capability and the failure Pareto from each unit's first run only (<c>--first-runs</c>).</summary>
     public bool FirstRunsOnly { get; init; }
 
-    /// <summary>The factory's shifts for <see cref="ReportGrouping.Shift"/>; null for <see cref="ShiftCalendar.Default"/>.</summary>
-    public ShiftCalendar? Shifts { get; init; }
+    /// <summary>The factory's shifts for <see cref="ReportGrouping.Shift"/>; null for <see cref="NamedShifts.Default"/>.</summary>
+    public NamedShifts? Shifts { get; init; }
 
     /// <summary>The same conditions as a storage filter.</summary>
     public RunFilter ToRunFilter() => new()

@@ -142,10 +142,10 @@ public sealed class RunTable
     public IReadOnlyList<RunOutcome> Outcomes(IReadOnlyList<int>? runs = null) => new OutcomeView(this, runs);
 
     /// <summary>The group that run <paramref name="run"/> falls in under <paramref name="grouping"/>.</summary>
-    public string GroupKey(int run, ReportGrouping grouping, ShiftCalendar? shifts = null) => grouping switch
+    public string GroupKey(int run, ReportGrouping grouping, NamedShifts? shifts = null) => grouping switch
     {
         ReportGrouping.Operator => Operator(run) ?? "(no operator)",
-        ReportGrouping.Shift => HasTimes ? (shifts ?? ShiftCalendar.Default).ShiftOf(EndedUtc(run)) : "(no time)",
+        ReportGrouping.Shift => HasTimes ? (shifts ?? NamedShifts.Default).ShiftOf(EndedUtc(run)) : "(no time)",
         ReportGrouping.None => "all",
         ReportGrouping.Station => Station(run),
         ReportGrouping.Slot => _slots[run].ToString(CultureInfo.InvariantCulture),

@@ -86,6 +86,13 @@ public static class DemoCommand
 
             var asJson = parse.GetValue(json);
             var lines = asJson ? context.Error : context.Output;
+            var resultsFolder = Path.GetFullPath(parse.GetValue(results)!);
+            using var writer = WriterLock.TakeOrRefuse(resultsFolder, context.Clock, context.Error);
+            if (writer is null)
+            {
+                return ExitCodes.RuntimeFailure;
+            }
+
             var shift = new SimulatedShift(
                 new ShiftOptions
                 {
@@ -95,7 +102,7 @@ public static class DemoCommand
                     Units = unitCount,
                     Slots = slotCount,
                     Seed = parse.GetValue(seed),
-                    ResultsDirectory = Path.GetFullPath(parse.GetValue(results)!),
+                    ResultsDirectory = resultsFolder,
                     Station = parse.GetValue(station) ?? options.Id,
                     FirstSerial = parse.GetValue(firstSerial),
                     Lot = parse.GetValue(lot) ?? options.Lot,
@@ -131,6 +138,7 @@ public static class DemoCommand
                 return context.BadInput($"production mode refuses the sequence: {refusal}");
             }
 
+            summary = summary with { Head = Storage.Proof.HeadFile.Read(resultsFolder).Head?.Current.Anchor };
             if (asJson)
             {
                 context.Output.WriteLine(JsonSerializer.Serialize(summary));
@@ -138,6 +146,7 @@ public static class DemoCommand
             else
             {
                 WriteSummary(context.Output, summary);
+                context.Output.WriteLine(ResultsHeadLine.For(resultsFolder));
             }
 
             return ExitCodes.Done;

@@ -1,4 +1,5 @@
 using System.CommandLine;
+using LineTest.Station.Composition;
 using System.Text;
 using LineTest.Reports.Building;
 using LineTest.Reports.Console;
@@ -49,10 +50,10 @@ public static class ReportCommand
                 return context.BadInput(error!);
             }
 
-            var shifts = ShiftCalendar.Default;
+            var shifts = NamedShifts.Default;
             if (context.Options.Shifts.Count > 0)
             {
-                var (calendar, shiftError) = ShiftCalendar.Parse(context.Options.Shifts.Select(kv => $"{kv.Key}={kv.Value}"));
+                var (calendar, shiftError) = NamedShifts.Parse(context.Options.Shifts.Select(kv => $"{kv.Key}={kv.Value}"));
                 if (calendar is null)
                 {
                     return context.BadInput($"Station:Shifts in the settings: {shiftError}");
@@ -160,6 +161,10 @@ public static class ReportCommand
                     ColorSystem = terminal ? ColorSystemSupport.Detect : ColorSystemSupport.NoColors,
                 });
                 ReportConsoleWriter.Write(report, console, plain: !terminal);
+                foreach (var folder in csvInput is null ? (folders.Length == 0 ? ["results"] : folders) : [])
+                {
+                    context.Output.WriteLine($"{Path.GetFullPath(folder)}: {ResultsHeadLine.For(folder)}");
+                }
             }
 
             return ExitCodes.Done;
