@@ -56,6 +56,10 @@ internal static class MultiStationDemo
                 Seed = template.Seed + k,
                 FirstSerialCounter = (k * SerialBlock) + 1,
                 Notice = Say,
+
+                // Each station runs its own virtual clock: one clock shared by shifts that run at once would let one
+                // station's waits move the others' time.
+                Clock = null,
             }).ToList();
 
         var locks = new List<IDisposable>();

@@ -45,7 +45,12 @@ public static class RunCommand
             });
             builder.Configuration.AddConfiguration(context.Configuration);
             builder.Services.AddSerilog(Log.Logger, dispose: false);
-            builder.Services.AddSingleton(new StationServiceContext(context.Root, context.Options, Console.In, context.Output, context.Error));
+            builder.Services.AddSingleton(new StationServiceContext(context.Root, context.Options, Console.In, context.Output, context.Error)
+            {
+                Logging = context.Logging,
+                Signals = context.Signals,
+            });
+            builder.Services.AddSingleton<IHostLifetime, QuietLifetime>();
             builder.Services.AddSingleton<StationService>();
             builder.Services.AddHostedService(sp => sp.GetRequiredService<StationService>());
             try
