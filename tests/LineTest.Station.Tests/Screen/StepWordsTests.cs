@@ -6,7 +6,7 @@ namespace LineTest.Station.Tests.Screen;
 
 public sealed class StepWordsTests
 {
-    private static readonly StepWords Words = new(Core.Sequences.SequenceLoader.LoadFile(RepoFiles.Path("sequences/ctp40a-dac.json")).Value!);
+    private static readonly StepWords Words = new(DefinitionFile.Sequence(RepoFiles.Path("sequences/ctp40a-dac.json")).Value!);
 
     [Theory]
     [InlineData(UnitState.Verifying, "verify.error", null, "checking at 5 °C")]
