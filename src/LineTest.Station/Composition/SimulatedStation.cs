@@ -33,9 +33,10 @@ public sealed class SimulatedStation
 
     /// <summary>
     /// Builds the simulated rig of <paramref name="fixture"/> and the production line of <paramref name="product"/>,
-    /// both seeded with <paramref name="seed"/> (same seed, same units and readings).
+    /// both seeded with <paramref name="seed"/> (same seed, same units and readings); the first unit's serial counter is
+    /// <paramref name="firstSerialCounter"/>.
     /// </summary>
-    public static SimulatedStation Create(FixtureDefinition fixture, string product, int seed, TimeProvider clock)
+    public static SimulatedStation Create(FixtureDefinition fixture, string product, int seed, TimeProvider clock, int firstSerialCounter = 1)
     {
         ArgumentNullException.ThrowIfNull(fixture);
         ArgumentNullException.ThrowIfNull(clock);
@@ -44,7 +45,7 @@ public sealed class SimulatedStation
         var design = SimulatedUnitDesign.ForProduct(product)
             ?? throw new InvalidOperationException(
                 $"The simulator builds {string.Join(", ", SimulatedUnitDesign.Demo.Select(d => d.Product))}, not '{product}'.");
-        return new SimulatedStation(fixture, rig, new SimulatedUnitFactory(seed, rig.Simulation, design), clock);
+        return new SimulatedStation(fixture, rig, new SimulatedUnitFactory(seed, rig.Simulation, design, firstCounter: firstSerialCounter), clock);
     }
 
     /// <summary>

@@ -43,9 +43,9 @@ public sealed class SimulatedShift
         ArgumentNullException.ThrowIfNull(runEnded);
         var wallStart = TimeProvider.System.GetTimestamp();
         var fixture = _options.Fixture;
-        var clock = new VirtualTimeProvider(TimeProvider.System.GetUtcNow());
+        var clock = _options.Clock ?? new VirtualTimeProvider(TimeProvider.System.GetUtcNow());
         var start = clock.GetUtcNow();
-        var station = SimulatedStation.Create(fixture, _options.Sequence.Product, _options.Seed, clock);
+        var station = SimulatedStation.Create(fixture, _options.Sequence.Product, _options.Seed, clock, _options.FirstSerialCounter);
         using var serialRig = _options.Serial ? new SimulatedSerialRig(station.Rig, _loggers) : null;
         var slots = fixture.Slots.Select(s => s.Slot).Order().Take(_options.Slots).ToList();
         var runs = new List<RunRecord>();
