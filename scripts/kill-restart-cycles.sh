@@ -35,8 +35,9 @@ for ((i = 1; i <= cycles; i++)); do
   start_demo "K$i" 40; a=$pid
   b=""
   if [ $kind -eq 1 ]; then start_demo "C$i" 40; b=$pid; concurrent=$((concurrent + 1)); fi          # two starts racing
-  # a random moment between 0.2 s (still starting or recovering) and 6.2 s (mid-shift)
-  sleep "$(awk -v r=$RANDOM 'BEGIN { printf "%.2f", 0.2 + (r % 600) / 100 }')"
+  # a random moment between 2 s and 10 s after the start (on a loaded 2-core machine .NET start-up alone takes 1-5 s,
+  # so this covers start-up, recovery, mid-batch and between batches)
+  sleep "$(awk -v r=$RANDOM 'BEGIN { printf "%.2f", 2 + (r % 800) / 100 }')"
   if [ $kind -eq 3 ]; then                                                                      # a second writer while the first runs
     $linetest demo --units 1 --lot "S$i" --results "$results" >"$work/S$i.out" 2>"$work/S$i.err"
     judge "S$i" $?; concurrent=$((concurrent + 1))
