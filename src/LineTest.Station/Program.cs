@@ -1,5 +1,6 @@
 using LineTest.Station.Cli;
 using LineTest.Station.Composition;
+using LineTest.Station.Hosting;
 using Microsoft.Extensions.Configuration;
 using Serilog;
 
@@ -7,18 +8,16 @@ var root = ContentRoot.Find();
 var configuration = StationLogging.Configuration(root);
 var options = new StationOptions();
 configuration.GetSection(StationOptions.Section).Bind(options);
-Log.Logger = StationLogging.CreateLogger(configuration);
+var routing = new LogRouting();
+Log.Logger = StationLogging.CreateLogger(configuration, routing);
 try
 {
     using var loggers = StationLogging.Factory(Log.Logger);
-    using var cancel = new CancellationTokenSource();
-    Console.CancelKeyPress += (_, e) =>
-    {
-        e.Cancel = true;
-        cancel.Cancel();
-    };
-    var context = new CliContext(root, configuration, options, Console.Out, Console.Error, loggers);
-    return await StationCommandLine.InvokeAsync(context, args, cancel.Token);
+
+    // Ctrl-C and SIGTERM cancel the command, unless the hosted station claims them (it asks before stopping a batch).
+    using var signals = StopSignals.Register();
+    var context = new CliContext(root, configuration, options, Console.Out, Console.Error, loggers) { Logging = routing, Signals = signals };
+    return await StationCommandLine.InvokeAsync(context, args, signals.Token);
 }
 finally
 {

@@ -70,4 +70,7 @@ public sealed record RunRecord
 
     /// <summary>Firmware version reported by the unit, if identified.</summary>
     public string? Firmware { get; init; }
+
+    /// <summary>Where the unit goes after this run, as the sequence names it (null when it names none).</summary>
+    public string? Disposition { get; init; }
 }

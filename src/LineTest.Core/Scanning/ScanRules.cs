@@ -13,12 +13,17 @@ public sealed class ScanRules
     /// <summary>Creates the rules for a sequence's serial pattern.</summary>
     /// <param name="serialPattern">The sequence's serial pattern (a .NET regular expression).</param>
     /// <param name="matchTimeout">Longest time one match may take (default 1 s), so a pathological pattern cannot stall the station.</param>
-    public ScanRules(string serialPattern, TimeSpan? matchTimeout = null)
+    /// <param name="example">A serial that matches, shown in refusals instead of the pattern (the sequence's <c>serialExample</c>).</param>
+    public ScanRules(string serialPattern, TimeSpan? matchTimeout = null, string? example = null)
     {
+        Example = example;
         ArgumentException.ThrowIfNullOrWhiteSpace(serialPattern);
         _pattern = new Regex(serialPattern, RegexOptions.None, matchTimeout ?? TimeSpan.FromSeconds(1));
         Pattern = serialPattern;
     }
+
+    /// <summary>An example serial for refusals, if the sequence gives one.</summary>
+    public string? Example { get; }
 
     /// <summary>The serial pattern.</summary>
     public string Pattern { get; }
@@ -50,7 +55,9 @@ public sealed class ScanRules
 
         if (!matches)
         {
-            return ScanDecision.Refuse(serial, $"'{serial}' is not a serial of this product (expected {Pattern})");
+            return ScanDecision.Refuse(serial, Example is { } like
+                ? $"'{serial}' is not a serial of this product (expected like {like})"
+                : $"'{serial}' is not a serial of this product (expected {Pattern})");
         }
 
         if (inFixture.Contains(serial, StringComparer.Ordinal))

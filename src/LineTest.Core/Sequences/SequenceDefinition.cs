@@ -27,6 +27,15 @@ public sealed record SequenceDefinition
     /// <summary>Regular expression every scanned serial must match (whole serial).</summary>
     public required string SerialPattern { get; init; }
 
+    /// <summary>
+    /// A serial that matches <see cref="SerialPattern"/>, shown to the operator when a scan is refused
+    /// ("expected like CTP40A-2612-000123") instead of the pattern itself.
+    /// </summary>
+    public string? SerialExample { get; init; }
+
+    /// <summary>Where units go after their run (shown on the end screen and stored with each run).</summary>
+    public DispositionSettings? Dispositions { get; init; }
+
     /// <summary>When the source counts as stable at a setpoint.</summary>
     public required StabilitySettings Stability { get; init; }
 

@@ -269,6 +269,7 @@ public sealed class BatchCoordinator : IUnitLifecycle
         {
             Verdict = verdict,
             Reason = verdict == Verdict.Pass ? null : unit.Machine.Reason,
+            Disposition = batch.Request.Sequence.Dispositions?.For(verdict, unit.FirstFailingReading),
         };
         unit.Record = record;
         try

@@ -22,6 +22,12 @@ public sealed record CliContext(
     /// <summary>The clock for what a command records (e.g. when a sequence was released). Default: the system clock.</summary>
     public TimeProvider Clock { get; init; } = TimeProvider.System;
 
+    /// <summary>Where log events go besides the log file (the console while it is open); changed by <c>run</c> and <c>demo</c>.</summary>
+    public LogRouting Logging { get; init; } = new();
+
+    /// <summary>Ctrl-C and SIGTERM, when the process listens for them (null in tests that run commands in-process).</summary>
+    public Hosting.StopSignals? Signals { get; init; }
+
     /// <summary>Prints a bad-input message and returns <see cref="ExitCodes.BadInput"/>.</summary>
     public int BadInput(string message)
     {

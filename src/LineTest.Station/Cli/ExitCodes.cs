@@ -11,4 +11,10 @@ public static class ExitCodes
 
     /// <summary>Bad arguments or bad input files.</summary>
     public const int BadInput = 2;
+
+    /// <summary>Stopped by Ctrl-C (SIGINT), confirmed during a batch: 128 + 2, as shells report it.</summary>
+    public const int Interrupted = 130;
+
+    /// <summary>Stopped by SIGTERM (a service manager or <c>kill</c>): 128 + 15.</summary>
+    public const int Terminated = 143;
 }

@@ -34,10 +34,11 @@ public static class ReportCommand
         var json = new Option<bool>("--json") { Description = "Print the report as one JSON object instead of tables" };
         var csv = new Option<string?>("--csv") { Description = "Write the per-reading statistics to this CSV file" };
         var html = new Option<string?>("--html") { Description = "Write the report with charts to this HTML file" };
+        var factory = new Option<string?>("--factory") { Description = "Report from the factory database (Npgsql connection string) instead of results folders" };
         var filters = new ReportFilterOptions();
         var command = new Command("report", "Quality report: yield, failures, capability, control charts and slot bias")
         {
-            results, readings, skipBadRows, by, json, csv, html,
+            results, readings, skipBadRows, by, json, csv, html, factory,
         };
         filters.AddTo(command);
         command.SetAction(async (parse, ct) =>
@@ -56,8 +57,24 @@ public static class ReportCommand
                 return context.BadInput("give either --results or --readings, not both");
             }
 
+            var factoryConnection = parse.GetValue(factory);
+            if (factoryConnection is not null && (csvInput is not null || folders.Length > 0))
+            {
+                return context.BadInput("give one of --factory, --results or --readings");
+            }
+
             ReportData data;
-            if (csvInput is not null)
+            if (factoryConnection is not null)
+            {
+                var (loaded, exitCode) = await FactoryReportSource.LoadAsync(context, factoryConnection, query, ct).ConfigureAwait(false);
+                if (loaded is null)
+                {
+                    return exitCode;
+                }
+
+                data = loaded;
+            }
+            else if (csvInput is not null)
             {
                 var loaded = CsvReadingsLoader.Load(csvInput, query, parse.GetValue(skipBadRows));
                 if (loaded.FileError is not null)

@@ -19,6 +19,9 @@ public static class StationCommandLine
             SchemaCommand.Create(context),
             DryRunCommand.Create(context),
             VerifyCommand.Create(context),
+            HistoryCommand.Create(context),
+            ForwardCommand.Create(context),
+            FactoryBenchCommand.Create(context),
             BackupCommand.Create(context),
             ReportCommand.Create(context),
             ExportCommand.Create(context),
@@ -47,7 +50,15 @@ public static class StationCommandLine
             return ExitCodes.BadInput;
         }
 
-        var configuration = new InvocationConfiguration { Output = context.Output, Error = context.Error, EnableDefaultExceptionHandler = false };
+        // Ctrl-C and SIGTERM are the caller's (Program's StopSignals, passed in as the token): System.CommandLine's own
+        // handling would cancel the hosted station at once and end the process after a timeout, with no confirmation.
+        var configuration = new InvocationConfiguration
+        {
+            Output = context.Output,
+            Error = context.Error,
+            EnableDefaultExceptionHandler = false,
+            ProcessTerminationTimeout = null,
+        };
         return await parse.InvokeAsync(configuration, cancellationToken).ConfigureAwait(false);
     }
 }

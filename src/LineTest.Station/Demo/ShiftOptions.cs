@@ -24,6 +24,9 @@ public sealed record ShiftOptions
     /// <summary>Simulator seed.</summary>
     public int Seed { get; init; } = 4040;
 
+    /// <summary>Counter of the first serial (1…999999): stations of one demo draw serials from separate blocks.</summary>
+    public int FirstSerialCounter { get; init; } = 1;
+
     /// <summary>Results folder.</summary>
     public required string ResultsDirectory { get; init; }
 
@@ -50,6 +53,9 @@ public sealed record ShiftOptions
 
     /// <summary>Receives lines for the person watching (recovered runs at start-up), or null.</summary>
     public Action<string>? Notice { get; init; }
+
+    /// <summary>The virtual clock of the shift (null: one starting now); given so that log events can carry its time.</summary>
+    public Rig.Simulation.VirtualTimeProvider? Clock { get; init; }
 
     /// <summary>Virtual seconds the operator takes to unload one batch and load the next.</summary>
     public double ReloadSeconds { get; init; } = 30;

@@ -43,15 +43,10 @@ public sealed class SimulatedShift
         ArgumentNullException.ThrowIfNull(runEnded);
         var wallStart = TimeProvider.System.GetTimestamp();
         var fixture = _options.Fixture;
-        var sensor = ReferenceConversion.SensorOf(fixture);
-        var clock = new VirtualTimeProvider(TimeProvider.System.GetUtcNow());
+        var clock = _options.Clock ?? new VirtualTimeProvider(TimeProvider.System.GetUtcNow());
         var start = clock.GetUtcNow();
-        var rig = new SimulatedRig(fixture, _options.Seed, clock, ReferenceConversion.FromCelsius(sensor));
-        var design = SimulatedUnitDesign.ForProduct(_options.Sequence.Product)
-            ?? throw new InvalidOperationException(
-                $"The simulator builds {string.Join(", ", SimulatedUnitDesign.Demo.Select(d => d.Product))}, not '{_options.Sequence.Product}'.");
-        using var serialRig = _options.Serial ? new SimulatedSerialRig(rig, _loggers) : null;
-        var factory = new SimulatedUnitFactory(_options.Seed, rig.Simulation, design);
+        var station = SimulatedStation.Create(fixture, _options.Sequence.Product, _options.Seed, clock, _options.FirstSerialCounter);
+        using var serialRig = _options.Serial ? new SimulatedSerialRig(station.Rig, _loggers) : null;
         var slots = fixture.Slots.Select(s => s.Slot).Order().Take(_options.Slots).ToList();
         var runs = new List<RunRecord>();
         await using var store = SqliteResultStore.Open(_options.ResultsDirectory);
@@ -60,16 +55,8 @@ public sealed class SimulatedShift
             runs.Add(run);
             runEnded(run);
         });
-        var coordinator = new BatchCoordinator(
-            serialRig?.Instruments ?? rig.Instruments,
-            fixture,
-            ReferenceConversion.ToCelsius(sensor),
-            clock,
-            sink,
-            new AutoConfirmOperator(),
-            observer: null,
-            _loggers.CreateLogger<BatchCoordinator>(),
-            partFitting: new SimulatedPartFitting(rig));
+        var coordinator = station.Coordinator(
+            sink, new CoordinatorParts { Logger = _loggers.CreateLogger<BatchCoordinator>() }, serialRig?.Instruments);
 
         Recovered = await StartupRecovery.RunAsync(coordinator, store, _loggers.CreateLogger<SimulatedShift>(), cancellationToken).ConfigureAwait(false);
         if (Recovered.Count > 0 && _options.Notice is { } notice)
@@ -104,14 +91,7 @@ public sealed class SimulatedShift
             while (remaining > 0)
             {
                 cancellationToken.ThrowIfCancellationRequested();
-                var loads = new List<SlotLoad>();
-                foreach (var slot in slots.Take(Math.Min(remaining, slots.Count)))
-                {
-                    var unit = factory.NextUnit();
-                    rig.Load(slot, unit);
-                    loads.Add(new SlotLoad(slot, unit.Serial));
-                }
-
+                var loads = station.LoadUnits(slots.Take(Math.Min(remaining, slots.Count))).Select(l => l.Load).ToList();
                 remaining -= loads.Count;
                 var request = new BatchRequest
                 {
@@ -126,7 +106,7 @@ public sealed class SimulatedShift
                 await coordinator.RunAsync(request, cancellationToken).ConfigureAwait(false);
                 foreach (var load in loads)
                 {
-                    rig.Unload(load.Slot);
+                    station.Rig.Unload(load.Slot);
                 }
 
                 if (remaining > 0)

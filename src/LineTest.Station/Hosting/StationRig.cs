@@ -35,6 +35,9 @@ public sealed class StationRig : IDisposable
     /// <summary>The clock waits run on (accelerated for the simulator, the wall clock for real instruments).</summary>
     public TimeProvider Clock { get; }
 
+    /// <summary>True for the built-in simulator (its clock runs faster than the wall clock).</summary>
+    public bool IsSimulated => _simulated is not null;
+
     /// <summary>Tells the simulator which resistors were fitted; null for real units.</summary>
     public IPartFitting? PartFitting { get; }
 

@@ -5,9 +5,22 @@ using Spectre.Console.Rendering;
 
 namespace LineTest.Station.Screen;
 
-/// <summary>Draws a <see cref="ScreenSnapshot"/> for a terminal (Spectre.Console), fitting 80 columns.</summary>
+/// <summary>
+/// Draws a <see cref="ScreenSnapshot"/> for a terminal (Spectre.Console) within 80×24: the caution line near the top
+/// (never pushed off), a table whose column widths never change, and below it one wrapped line per finished slot with
+/// its verdict, where the unit goes and the full reason.
+/// </summary>
 public static class ScreenRenderer
 {
+    /// <summary>The width the screen is laid out for.</summary>
+    public const int Width = 80;
+
+    /// <summary>The height the screen must fit.</summary>
+    public const int Height = 24;
+
+    /// <summary>Shown when the block is neither hot nor cold: the inserts still may be.</summary>
+    public const string StandingCaution = "CAUTION: inserts may be hot or cold. Use tongs or gloves.";
+
     /// <summary>The whole screen.</summary>
     public static IRenderable Build(ScreenSnapshot s, string scanBuffer = "")
     {
@@ -15,38 +28,53 @@ public static class ScreenRenderer
         var h = s.Header;
         var rows = new List<IRenderable>
         {
-            new Markup($"[bold]LineTest[/] station [bold]{E(h.Station)}[/] · {E(h.Fixture)}"),
-            new Markup($"sequence [bold]{E(h.Sequence)}[/] r{h.Revision} · lot {E(h.Lot ?? "-")} · operator {E(h.Operator ?? "-")} · {E(h.Mode)}"),
+            new Markup($"[bold]LineTest[/] station [bold]{E(h.Station)}[/] · {E(h.Fixture)} · {E(h.Mode)}"),
+            new Markup($"sequence [bold]{E(h.Sequence)}[/] r{h.Revision} · lot [bold]{E(h.Lot ?? "-")}[/] · operator [bold]{E(h.Operator ?? "-")}[/]"),
             new Markup(SourceLine(s)),
         };
+        var caution = s.Caution ?? StandingCaution;
+        var colour = caution.StartsWith("HOT", StringComparison.Ordinal) ? "red" : caution.StartsWith("COLD", StringComparison.Ordinal) ? "deepskyblue1" : "yellow";
+        rows.Add(new Markup($"[bold {colour}]{E(caution)}[/]"));
+        var used = 4;
         if (s.Alarm is { } alarm)
         {
-            rows.Add(new Panel(new Markup($"[bold white]{E(alarm)}[/]")).BorderColor(Color.Red).Expand());
-        }
-
-        if (s.Caution is { } caution)
-        {
-            var colour = caution.StartsWith("HOT", StringComparison.Ordinal) ? "red" : "deepskyblue1";
-            rows.Add(new Markup($"[bold {colour}]{E(caution)}[/]"));
+            rows.Add(new Markup($"[bold white on red]{E(alarm)}[/]"));
+            used += Lines(alarm);
         }
 
         rows.Add(SlotTable(s.Slots));
-        foreach (var slot in s.Slots.Where(x => x.Verdict is Verdict.Fail or Verdict.Error && x.Reason is not null))
-        {
-            rows.Add(new Markup($"[grey]slot {slot.Slot}:[/] {E(Shorten(slot.Reason!, 70))}"));
-        }
-
+        used += 4 + s.Slots.Count;
+        var below = SlotLines(s.Slots).ToList();
+        var tail = new List<(string Markup, string Text)>();
         if (s.Notice is { } notice)
         {
-            rows.Add(new Markup($"[bold red]![/] {E(notice)}"));
+            tail.Add(($"[bold red]![/] {E(notice)}", "! " + notice));
         }
 
-        rows.Add(new Markup($"[bold yellow]>[/] {E(s.Prompt)}"));
+        tail.Add(($"[bold yellow]>[/] {E(s.Prompt)}", "> " + s.Prompt));
         if (scanBuffer.Length > 0)
         {
-            rows.Add(new Markup($"  scanned: [bold]{E(scanBuffer)}[/]"));
+            tail.Add(($"  typed: [bold]{E(scanBuffer)}[/]", "  typed: " + scanBuffer));
         }
 
+        used += below.Sum(b => Lines(b.Text)) + tail.Sum(t => Lines(t.Text));
+        var info = new List<string>();
+        foreach (var line in s.Info ?? [])
+        {
+            // Information lines give way first: the slot lines, the prompt and the caution never do.
+            if (used + Lines(line) > Height)
+            {
+                info.Add("…");
+                break;
+            }
+
+            info.Add(line);
+            used += Lines(line);
+        }
+
+        rows.AddRange(below.Select(b => new Markup(b.Markup)));
+        rows.AddRange(info.Select(i => new Markup($"[grey]{E(i)}[/]")));
+        rows.AddRange(tail.Select(t => new Markup(t.Markup)));
         return new Rows(rows);
     }
 
@@ -63,9 +91,10 @@ public static class ScreenRenderer
         foreach (var slot in s.Slots)
         {
             lines.Add(string.Create(CultureInfo.InvariantCulture,
-                $"slot {slot.Slot}  {slot.Serial ?? "-",-18}  {StateWords.Of(slot.State),-25}  {(int)(slot.Progress * 100),3} %  {(slot.Verdict is { } v ? StateWords.Of(v) : string.Empty)}"));
+                $"slot {slot.Slot}  {slot.Serial ?? "-",-18}  {DoingText(slot),-25}  {(int)(slot.Progress * 100),3} %  {VerdictWord(slot)}"));
         }
 
+        lines.AddRange(SlotLines(s.Slots).Select(b => b.Text));
         if (s.Notice is { } notice)
         {
             lines.Add("! " + notice);
@@ -75,30 +104,65 @@ public static class ScreenRenderer
         return lines;
     }
 
-    private static Table SlotTable(IReadOnlyList<SlotView> slots)
+    /// <summary>What the "Doing" column says for a slot.</summary>
+    public static string DoingText(SlotView slot)
     {
-        var table = new Table().Border(TableBorder.Rounded).Expand();
-        table.AddColumn(new TableColumn("Slot").Centered());
-        table.AddColumn("Serial");
-        table.AddColumn("Doing");
-        table.AddColumn("Progress");
-        table.AddColumn(new TableColumn("Left").RightAligned());
-        table.AddColumn(new TableColumn("Verdict").Centered());
+        ArgumentNullException.ThrowIfNull(slot);
+        if (slot.OutOfService is not null)
+        {
+            return "out of service";
+        }
+
+        if (slot.Cancelled)
+        {
+            return "cancelled";
+        }
+
+        return slot.Doing.Length > 0 ? slot.Doing : StateWords.Of(slot.State);
+    }
+
+    private static IEnumerable<(string Markup, string Text)> SlotLines(IReadOnlyList<SlotView> slots)
+    {
         foreach (var slot in slots)
         {
-            var doing = slot.State is null ? "[grey]empty[/]" : E(Shorten(StateWords.Of(slot.State) + (slot.Step.Length > 0 && slot.Verdict is null && slot.State is Core.Units.UnitState.Measuring or Core.Units.UnitState.Verifying ? $" {slot.Step}" : string.Empty), 24));
-            if (slot.IsRetest && slot.Verdict is null)
+            if (slot.OutOfService is { } why)
             {
-                doing += " [grey](retest)[/]";
+                yield return ($"[grey]slot {slot.Slot} out of service:[/] {E(why)}", $"slot {slot.Slot} out of service: {why}");
+                continue;
             }
 
+            if (slot.Verdict is not { } verdict)
+            {
+                continue;
+            }
+
+            var word = VerdictWord(slot);
+            var to = slot.Disposition is { } place ? $" → {place}" : string.Empty;
+            var reason = verdict == Verdict.Pass || slot.Reason is null ? string.Empty : $": {slot.Reason}";
+            yield return ($"[bold]slot {slot.Slot} {word}{E(to)}[/]{E(reason)}", $"slot {slot.Slot} {word}{to}{reason}");
+        }
+    }
+
+    private static Table SlotTable(IReadOnlyList<SlotView> slots)
+    {
+        // Fixed widths (4+18+18+8+5+7 plus borders and padding = 79 columns): the table never jumps between redraws.
+        var table = new Table().Border(TableBorder.Rounded);
+        table.AddColumn(new TableColumn("Slot") { Width = 4, NoWrap = true }.Centered());
+        table.AddColumn(new TableColumn("Serial") { Width = 18, NoWrap = true });
+        table.AddColumn(new TableColumn("Doing") { Width = StepWords.Width, NoWrap = true });
+        table.AddColumn(new TableColumn("Progress") { Width = 8, NoWrap = true });
+        table.AddColumn(new TableColumn("Left") { Width = 5, NoWrap = true }.RightAligned());
+        table.AddColumn(new TableColumn("Verdict") { Width = 7, NoWrap = true }.Centered());
+        foreach (var slot in slots)
+        {
+            var doing = slot.State is null && slot.OutOfService is null ? "[grey]empty[/]" : E(Fit(DoingText(slot), StepWords.Width));
             table.AddRow(
                 new Markup($"[bold]{slot.Slot}[/]"),
-                new Markup(E(slot.Serial ?? "-")),
+                new Markup(E(Fit(slot.Serial ?? "-", 18))),
                 new Markup(doing),
-                new Markup(Bar(slot.Progress)),
+                new Markup(slot.OutOfService is null && slot.State is not null ? Bar(slot.Progress) : string.Empty),
                 new Markup(slot.TimeLeft is { } left && slot.Verdict is null ? $"{(int)left.TotalMinutes}:{left.Seconds:D2}" : string.Empty),
-                new Markup(VerdictMarkup(slot.Verdict)));
+                new Markup(VerdictMarkup(slot)));
         }
 
         return table;
@@ -111,22 +175,26 @@ public static class ScreenRenderer
         return $"block: setpoint [bold]{setpoint}[/], reference [bold]{actual}[/] ({E(s.SourcePhase)})";
     }
 
-    private static string VerdictMarkup(Verdict? verdict) => verdict switch
+    private static string VerdictWord(SlotView slot) => slot.OutOfService is not null ? "OFF" : slot.Verdict is { } v ? StateWords.Of(v) : string.Empty;
+
+    private static string VerdictMarkup(SlotView slot) => slot.OutOfService is not null ? "[grey]OFF[/]" : slot.Verdict switch
     {
-        Core.Results.Verdict.Pass => "[bold white on green] PASS [/]",
-        Core.Results.Verdict.Fail => "[bold white on red] FAIL [/]",
-        Core.Results.Verdict.Error => "[bold black on yellow] ERROR [/]",
+        Verdict.Pass => "[bold white on green]PASS[/]",
+        Verdict.Fail => "[bold white on red]FAIL[/]",
+        Verdict.Error => "[bold black on yellow]ERROR[/]",
         _ => string.Empty,
     };
 
     private static string Bar(double progress)
     {
-        const int width = 10;
+        const int width = 8;
         var filled = (int)Math.Round(Math.Clamp(progress, 0, 1) * width);
         return $"[green]{new string('#', filled)}[/][grey]{new string('.', width - filled)}[/]";
     }
 
-    private static string Shorten(string text, int max) => text.Length <= max ? text : text[..(max - 1)] + "…";
+    private static int Lines(string text) => Math.Max(1, (text.Length + Width - 1) / Width);
+
+    private static string Fit(string text, int max) => text.Length <= max ? text : text[..(max - 1)] + "…";
 
     private static string E(string text) => Markup.Escape(text);
 }

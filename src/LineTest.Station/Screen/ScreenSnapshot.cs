@@ -1,7 +1,10 @@
 namespace LineTest.Station.Screen;
 
 /// <summary>Everything the operator screen shows at one moment.</summary>
-/// <remarks><see cref="Notice"/> is the last refusal or scanner message, shown above the prompt so it does not hide it.</remarks>
+/// <remarks>
+/// <see cref="Notice"/> is the last answer, refusal or scanner message, shown above the prompt so it does not hide it;
+/// <see cref="Info"/> are lines shown below the table until the next input (a unit's history).
+/// </remarks>
 public sealed record ScreenSnapshot(
     ScreenHeader Header,
     IReadOnlyList<SlotView> Slots,
@@ -11,4 +14,5 @@ public sealed record ScreenSnapshot(
     string Prompt,
     string? Caution,
     string? Alarm,
-    string? Notice = null);
+    string? Notice = null,
+    IReadOnlyList<string>? Info = null);

@@ -29,4 +29,16 @@ public sealed record SlotView(int Slot)
 
     /// <summary>True when the serial ran before (a retest).</summary>
     public bool IsRetest { get; init; }
+
+    /// <summary>What the unit is doing, in the operator's words (empty: the state's words).</summary>
+    public string Doing { get; init; } = string.Empty;
+
+    /// <summary>Where the unit goes after its run, as the sequence names it.</summary>
+    public string? Disposition { get; init; }
+
+    /// <summary>True when the run was cancelled (its verdict is error).</summary>
+    public bool Cancelled { get; init; }
+
+    /// <summary>Why the slot is out of service; null when in service.</summary>
+    public string? OutOfService { get; init; }
 }

@@ -17,6 +17,7 @@ public sealed class StationScreenModel : IBatchObserver
     public const double ColdBelowC = 5;
 
     private readonly Lock _gate = new();
+    private ScreenHeader _header;
     private readonly TimeProvider _time;
     private readonly double[] _expectedStepSeconds;
     private readonly Dictionary<int, SlotView> _slots;
@@ -27,6 +28,7 @@ public sealed class StationScreenModel : IBatchObserver
     private string _prompt = string.Empty;
     private string? _alarm;
     private string? _notice;
+    private IReadOnlyList<string> _info = [];
 
     /// <summary>Creates the model.</summary>
     /// <param name="header">Station, fixture, sequence, lot and operator line.</param>
@@ -38,22 +40,42 @@ public sealed class StationScreenModel : IBatchObserver
         ArgumentNullException.ThrowIfNull(header);
         ArgumentNullException.ThrowIfNull(slots);
         ArgumentNullException.ThrowIfNull(expectedStepSeconds);
-        Header = header;
+        _header = header;
         _time = time;
         _expectedStepSeconds = [.. expectedStepSeconds];
         _slots = slots.ToDictionary(s => s, s => new SlotView(s));
         _prompt = "Scan the serial of the unit in slot " + _slots.Keys.Min() + ".";
     }
 
-    /// <summary>Header facts.</summary>
-    public ScreenHeader Header { get; }
+    /// <summary>Header facts (the operator and the lot change when scanned at the station).</summary>
+    public ScreenHeader Header
+    {
+        get
+        {
+            lock (_gate)
+            {
+                return _header;
+            }
+        }
+
+        set
+        {
+            lock (_gate)
+            {
+                _header = value;
+            }
+        }
+    }
+
+    /// <summary>The words for what a unit is doing; null: the state's words.</summary>
+    public StepWords? Words { get; init; }
 
     /// <summary>A consistent copy of everything on screen.</summary>
     public ScreenSnapshot Snapshot()
     {
         lock (_gate)
         {
-            return new ScreenSnapshot(Header, _slots.Values.OrderBy(s => s.Slot).Select(WithTimeLeft).ToList(), _setpointC, _referenceC, _phase, _prompt, Caution(), _alarm, _notice);
+            return new ScreenSnapshot(_header, _slots.Values.OrderBy(s => s.Slot).Select(WithTimeLeft).ToList(), _setpointC, _referenceC, _phase, _prompt, Caution(), _alarm, _notice, _info);
         }
     }
 
@@ -78,6 +100,25 @@ public sealed class StationScreenModel : IBatchObserver
         }
     }
 
+    /// <summary>Shows lines below the table (a unit's history) until replaced; empty clears them.</summary>
+    public void Info(IReadOnlyList<string> lines)
+    {
+        ArgumentNullException.ThrowIfNull(lines);
+        lock (_gate)
+        {
+            _info = lines;
+        }
+    }
+
+    /// <summary>Marks a slot out of service with <paramref name="reason"/>, or back in service (null).</summary>
+    public void OutOfService(int slot, string? reason)
+    {
+        lock (_gate)
+        {
+            _slots[slot] = new SlotView(slot) { OutOfService = reason };
+        }
+    }
+
     /// <summary>Shows a station-wide alarm (e.g. results cannot be stored) until cleared.</summary>
     public void Alarm(string? text)
     {
@@ -93,7 +134,7 @@ public sealed class StationScreenModel : IBatchObserver
         lock (_gate)
         {
             _notice = null;
-            _slots[slot] = new SlotView(slot) { Serial = serial, State = UnitState.Loaded, Step = "waiting for start", IsRetest = isRetest };
+            _slots[slot] = new SlotView(slot) { Serial = serial, State = UnitState.Loaded, Step = "waiting for start", IsRetest = isRetest, Doing = isRetest ? "loaded (retest)" : "loaded" };
             _stepStarted.Remove(slot);
         }
     }
@@ -104,9 +145,10 @@ public sealed class StationScreenModel : IBatchObserver
         lock (_gate)
         {
             _notice = null;
+            _info = [];
             foreach (var slot in _slots.Keys.ToList())
             {
-                _slots[slot] = new SlotView(slot);
+                _slots[slot] = new SlotView(slot) { OutOfService = _slots[slot].OutOfService };
             }
 
             _stepStarted.Clear();
@@ -130,7 +172,8 @@ public sealed class StationScreenModel : IBatchObserver
                 Serial = serial,
                 State = state,
                 Step = done ? string.Empty : step,
-                Progress = done ? 1 : stepCount == 0 ? 0 : (double)stepIndex / stepCount,
+                Progress = done ? current.Progress : stepCount == 0 ? 0 : (double)stepIndex / stepCount,
+                Doing = done ? string.Empty : Words?.Of(state, step, _setpointC) ?? string.Empty,
             };
         }
     }
@@ -142,7 +185,18 @@ public sealed class StationScreenModel : IBatchObserver
         lock (_gate)
         {
             var current = _slots.TryGetValue(run.Slot, out var view) ? view : new SlotView(run.Slot);
-            _slots[run.Slot] = current with { Verdict = run.Verdict, Reason = run.Reason, Progress = 1, Step = string.Empty, TimeLeft = TimeSpan.Zero };
+            var cancelled = run.Verdict == Verdict.Error && run.Reason is { } why && why.StartsWith("cancelled", StringComparison.OrdinalIgnoreCase);
+            _slots[run.Slot] = current with
+            {
+                Verdict = run.Verdict,
+                Reason = run.Reason,
+                Progress = cancelled ? current.Progress : 1,
+                Step = string.Empty,
+                Doing = cancelled ? "cancelled" : string.Empty,
+                TimeLeft = TimeSpan.Zero,
+                Disposition = run.Disposition,
+                Cancelled = cancelled,
+            };
         }
     }
 

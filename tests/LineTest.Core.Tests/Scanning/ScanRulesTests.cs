@@ -76,4 +76,14 @@ public sealed class ScanRulesTests
         Assert.False(decision.Accepted);
         Assert.Contains("took too long", decision.Reason, StringComparison.Ordinal);
     }
+
+    [Fact]
+    public void Check_BadSerialWithExample_RefusalShowsTheExampleNotThePattern()
+    {
+        var rules = new ScanRules("^CTP40A-[0-9]{4}-[0-9]{6}$", example: "CTP40A-2612-000123");
+
+        var decision = rules.Check("CTP40A-26-1", [], SerialHistory.None);
+
+        Assert.Equal("'CTP40A-26-1' is not a serial of this product (expected like CTP40A-2612-000123)", decision.Reason);
+    }
 }
