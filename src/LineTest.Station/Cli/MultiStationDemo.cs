@@ -57,9 +57,8 @@ internal static class MultiStationDemo
                 FirstSerialCounter = (k * SerialBlock) + 1,
                 Notice = Say,
 
-                // Each station runs its own virtual clock: one clock shared by shifts that run at once would let one
-                // station's waits move the others' time.
-                Clock = null,
+                // Log events carry no one station's simulated time when several run at once.
+                ClockStarted = null,
             }).ToList();
 
         var locks = new List<IDisposable>();

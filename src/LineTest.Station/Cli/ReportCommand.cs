@@ -29,8 +29,9 @@ public static class ReportCommand
         var results = new Option<string[]>("--results") { Description = "Results folder with results.db (repeatable; default ./results)" };
         var readings = new Option<string?>("--readings") { Description = "Readings CSV to report on instead of results databases" };
         var skipBadRows = new Option<bool>("--skip-bad-rows") { Description = "Report on the good rows of --readings when some rows are bad" };
-        var by = new Option<string?>("--by") { Description = "Group by station, slot, lot, day or revision" };
-        by.AcceptOnlyFromAmong("station", "slot", "lot", "day", "revision");
+        var by = new Option<string?>("--by") { Description = "Group by station, slot, lot, day, revision, operator or shift (shifts from Station:Shifts)" };
+        by.AcceptOnlyFromAmong("station", "slot", "lot", "day", "revision", "operator", "shift");
+        var firstRuns = new Option<bool>("--first-runs") { Description = "Capability and failure Pareto from each unit's first run only" };
         var json = new Option<bool>("--json") { Description = "Print the report as one JSON object instead of tables" };
         var csv = new Option<string?>("--csv") { Description = "Write the per-reading statistics to this CSV file" };
         var html = new Option<string?>("--html") { Description = "Write the report with charts to this HTML file" };
@@ -38,7 +39,7 @@ public static class ReportCommand
         var filters = new ReportFilterOptions();
         var command = new Command("report", "Quality report: yield, failures, capability, control charts and slot bias")
         {
-            results, readings, skipBadRows, by, json, csv, html, factory,
+            results, readings, skipBadRows, by, firstRuns, json, csv, html, factory,
         };
         filters.AddTo(command);
         command.SetAction(async (parse, ct) =>
@@ -49,6 +50,20 @@ public static class ReportCommand
             {
                 return context.BadInput(error!);
             }
+
+            var shifts = NamedShifts.Default;
+            if (context.Options.Shifts.Count > 0)
+            {
+                var (calendar, shiftError) = NamedShifts.Parse(context.Options.Shifts.Select(kv => $"{kv.Key}={kv.Value}"));
+                if (calendar is null)
+                {
+                    return context.BadInput($"Station:Shifts in the settings: {shiftError}");
+                }
+
+                shifts = calendar;
+            }
+
+            query = query with { FirstRunsOnly = parse.GetValue(firstRuns), Shifts = shifts };
 
             var folders = parse.GetValue(results) ?? [];
             var csvInput = parse.GetValue(readings);
@@ -100,6 +115,10 @@ public static class ReportCommand
                 if (loaded.BadRows.Count > 0)
                 {
                     context.Error.WriteLine($"linetest: skipped {loaded.BadRows.Count} bad row(s) of {csvInput}");
+                    foreach (var problem in loaded.BadRows)
+                    {
+                        loaded.Data.AddSkippedRow($"line {problem.Line}: {problem.Reason}");
+                    }
                 }
 
                 data = loaded.Data;
@@ -111,8 +130,9 @@ public static class ReportCommand
                 {
                     data = await ResultsLoader.LoadAsync(directories, query, ct).ConfigureAwait(false);
                 }
-                catch (ResultStoreException ex) when (ex.Failure is ResultStoreFailure.CannotOpen or ResultStoreFailure.Incompatible)
+                catch (ResultStoreException ex) when (ex.Failure is not (ResultStoreFailure.Locked or ResultStoreFailure.DiskError))
                 {
+                    // A missing, foreign or damaged database is bad input: say what is wrong, no stack trace.
                     return context.BadInput(ex.Message);
                 }
                 catch (ResultStoreException ex)
@@ -149,13 +169,15 @@ public static class ReportCommand
             }
             else
             {
+                // A terminal gets tables fitted to its width; a file or a pipe gets plain text whose cells never wrap.
+                var terminal = ReferenceEquals(context.Output, Console.Out) && !Console.IsOutputRedirected;
                 var console = AnsiConsole.Create(new AnsiConsoleSettings
                 {
                     Out = new AnsiConsoleOutput(context.Output),
-                    Ansi = AnsiSupport.Detect,
-                    ColorSystem = ColorSystemSupport.Detect,
+                    Ansi = terminal ? AnsiSupport.Detect : AnsiSupport.No,
+                    ColorSystem = terminal ? ColorSystemSupport.Detect : ColorSystemSupport.NoColors,
                 });
-                ReportConsoleWriter.Write(report, console);
+                ReportConsoleWriter.Write(report, console, plain: !terminal);
                 foreach (var folder in csvInput is null ? (folders.Length == 0 ? ["results"] : folders) : [])
                 {
                     context.Output.WriteLine($"{Path.GetFullPath(folder)}: {ResultsHeadLine.For(folder)}");

@@ -33,10 +33,10 @@ public sealed class SimulatedStation
 
     /// <summary>
     /// Builds the simulated rig of <paramref name="fixture"/> and the production line of <paramref name="product"/>,
-    /// both seeded with <paramref name="seed"/> (same seed, same units and readings); the first unit's serial counter is
-    /// <paramref name="firstSerialCounter"/>.
+    /// both seeded with <paramref name="seed"/> (same seed, same units and readings); the first unit's serial is
+    /// <paramref name="yearWeek"/>-<paramref name="firstSerialCounter"/> (YYWW-NNNNNN).
     /// </summary>
-    public static SimulatedStation Create(FixtureDefinition fixture, string product, int seed, TimeProvider clock, int firstSerialCounter = 1)
+    public static SimulatedStation Create(FixtureDefinition fixture, string product, int seed, TimeProvider clock, int firstSerialCounter = 1, int yearWeek = 2612)
     {
         ArgumentNullException.ThrowIfNull(fixture);
         ArgumentNullException.ThrowIfNull(clock);
@@ -45,7 +45,7 @@ public sealed class SimulatedStation
         var design = SimulatedUnitDesign.ForProduct(product)
             ?? throw new InvalidOperationException(
                 $"The simulator builds {string.Join(", ", SimulatedUnitDesign.Demo.Select(d => d.Product))}, not '{product}'.");
-        return new SimulatedStation(fixture, rig, new SimulatedUnitFactory(seed, rig.Simulation, design, firstCounter: firstSerialCounter), clock);
+        return new SimulatedStation(fixture, rig, new SimulatedUnitFactory(seed, rig.Simulation, design, yearWeek, firstSerialCounter), clock);
     }
 
     /// <summary>

@@ -13,8 +13,8 @@ public sealed class ThermalBoundTests
         // The bound once counted measure and verify steps only, so a sequence with I–V sweeps looked faster than it can
         // be. [derived] The shipped DAC sequence sweeps 7 currents, 1 sample, at cal-low and cal-high: for 4 units at
         // 1 s per reference and 0.2 s per reading each sweep adds 4 × (2 × 1 + 7 × 0.2) = 13.6 s to its setpoint's leg.
-        var fixture = FixtureLoader.LoadFile(TestFiles.ShippedFixturePath).Value!;
-        var sequence = SequenceLoader.LoadFile(TestFiles.ShippedSequencePath, fixture).Value!;
+        var fixture = FixtureLoader.Load(TestFiles.ShippedFixturePath, File.ReadAllBytes(TestFiles.ShippedFixturePath)).Value!;
+        var sequence = SequenceLoader.Load(TestFiles.ShippedSequencePath, File.ReadAllBytes(TestFiles.ShippedSequencePath), fixture).Value!;
         var withoutSweeps = sequence with { Steps = sequence.Steps.Where(s => s is not IvSweepStep).ToList() };
         Assert.Equal(2, sequence.Steps.Count(s => s is IvSweepStep));
 

@@ -1,6 +1,7 @@
 using LineTest.Core.Fixtures;
 using LineTest.Core.Sequences;
 using LineTest.Station.Campaign;
+using LineTest.Station.Composition;
 using LineTest.TestSupport;
 
 namespace LineTest.Station.Tests.Campaign;
@@ -20,9 +21,9 @@ public sealed class FuzzerTests
         // The garbage instruments once passed no source-measure unit on: every garbage batch of the default sequence
         // stopped at its first iv-sweep, so fuzzing never exercised trim or verify, and nothing noticed.
         var fixturePath = RepoFiles.Path("fixtures/sim-dryblock-4.json");
-        var fixture = FixtureLoader.LoadFile(fixturePath).Value!;
+        var fixture = DefinitionFiles.ReadFixture(fixturePath).Value!;
         var sequencePath = RepoFiles.Path(sequenceFile);
-        var loaded = SequenceLoader.LoadFile(sequencePath, fixture);
+        var loaded = DefinitionFiles.ReadSequence(sequencePath, fixture);
         Assert.True(loaded.IsSuccess, string.Join("\n", loaded.Problems));
         var fuzzer = new Fuzzer(fixture, File.ReadAllBytes(fixturePath), loaded.Value!, File.ReadAllBytes(sequencePath), loaded.Sha256!, seed: 4040);
 
