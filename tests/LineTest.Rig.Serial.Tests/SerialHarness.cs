@@ -22,7 +22,7 @@ internal sealed class SerialHarness : IDisposable
     /// </remarks>
     public SerialHarness(int seed = 11, int timeoutMs = 2000, int retries = 1, int? unitTimeoutMs = null, Dictionary<string, int>? timeouts = null)
     {
-        var fixture = FixtureLoader.LoadFile(RepoFiles.Path("fixtures/sim-dryblock-4.json"));
+        var fixture = DefinitionFile.Fixture(RepoFiles.Path("fixtures/sim-dryblock-4.json"));
         Assert.True(fixture.IsSuccess, string.Join("\n", fixture.Problems));
         Fixture = fixture.Value!;
         var sensor = ReferenceSensorFactory.Create(Fixture.Reference.Sensor).Sensor!;
@@ -68,7 +68,7 @@ internal sealed class SerialHarness : IDisposable
     /// <summary>Runs one batch through the serial drivers (or, with <paramref name="inMemory"/>, straight on the simulator).</summary>
     public Task<BatchOutcome> RunBatchAsync(IEnumerable<SimulatedUnit> units, bool inMemory = false, CancellationToken ct = default)
     {
-        var sequence = SequenceLoader.LoadFile(RepoFiles.Path("sequences/ctp40a-dac.json"), Fixture);
+        var sequence = DefinitionFile.Sequence(RepoFiles.Path("sequences/ctp40a-dac.json"), Fixture);
         Assert.True(sequence.IsSuccess, string.Join("\n", sequence.Problems));
         var coordinator = new BatchCoordinator(inMemory ? Rig.Instruments : Serial.Instruments, Fixture, raw => Sensor.ToCelsius(raw) is { IsSuccess: true } r ? r.Value : double.NaN,
             Clock, new ListSink(Stored), new AutoConfirmOperator(), null, NullLogger.Instance);

@@ -7,8 +7,9 @@ namespace LineTest.Core.Definitions;
 public static class LineTestJson
 {
     /// <summary>
-    /// For reading engineers' files: camelCase keys, comments and trailing commas tolerated (people edit these
-    /// by hand), unknown keys rejected (a misspelt key must not be silently ignored), nulls checked against the model.
+    /// For reading engineers' files: camelCase keys, strict JSON (comments, trailing commas and keys given twice are
+    /// refused by the scan before this is used), unknown keys rejected (a misspelt key must not be silently ignored),
+    /// nulls checked against the model.
     /// </summary>
     public static JsonSerializerOptions Definitions { get; } = CreateDefinitions();
 
@@ -23,10 +24,9 @@ public static class LineTestJson
         var options = new JsonSerializerOptions
         {
             PropertyNamingPolicy = JsonNamingPolicy.CamelCase,
-            ReadCommentHandling = JsonCommentHandling.Skip,
-            AllowTrailingCommas = true,
             UnmappedMemberHandling = JsonUnmappedMemberHandling.Disallow,
             AllowOutOfOrderMetadataProperties = true,
+            AllowDuplicateProperties = false,
             RespectNullableAnnotations = true,
             RespectRequiredConstructorParameters = true,
             NumberHandling = JsonNumberHandling.Strict,

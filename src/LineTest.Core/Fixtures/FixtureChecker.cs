@@ -16,15 +16,15 @@ public static class FixtureChecker
         CheckSource(fixture.Source, problems);
         CheckSlots(fixture, problems);
         var meter = fixture.Meter;
-        problems.AddIf(!(meter.RangeVolts > 0), "$.meter.rangeVolts", "the meter range must be positive");
-        problems.AddIf(meter.AccuracyPercentOfReading < 0, "$.meter.accuracyPercentOfReading", "cannot be negative");
-        problems.AddIf(meter.AccuracyOffsetVolts < 0, "$.meter.accuracyOffsetVolts", "cannot be negative");
-        problems.AddIf(!(meter.ResolutionVolts > 0), "$.meter.resolutionVolts", "the resolution must be positive");
-        problems.AddIf(!(meter.IntegrationPlc > 0), "$.meter.integrationPlc", "the integration time must be positive");
+        DefinitionBounds.MeterRangeVolts.Check(meter.RangeVolts, "$.meter.rangeVolts", problems);
+        DefinitionBounds.AccuracyPercent.Check(meter.AccuracyPercentOfReading, "$.meter.accuracyPercentOfReading", problems);
+        DefinitionBounds.MeterVolts.Check(meter.AccuracyOffsetVolts, "$.meter.accuracyOffsetVolts", problems);
+        DefinitionBounds.ResolutionVolts.Check(meter.ResolutionVolts, "$.meter.resolutionVolts", problems);
+        DefinitionBounds.IntegrationPlc.Check(meter.IntegrationPlc, "$.meter.integrationPlc", problems);
         var reference = fixture.Reference;
-        problems.AddIf(reference.CertificateExpandedUncertaintyC < 0, "$.reference.certificateExpandedUncertaintyC", "cannot be negative");
-        problems.AddIf(!(reference.CertificateCoverageFactor > 0), "$.reference.certificateCoverageFactor", "must be positive");
-        problems.AddIf(!(reference.ReadoutResolution > 0), "$.reference.readoutResolution", "must be positive");
+        DefinitionBounds.CertificateUncertaintyC.Check(reference.CertificateExpandedUncertaintyC, "$.reference.certificateExpandedUncertaintyC", problems);
+        DefinitionBounds.CoverageFactor.Check(reference.CertificateCoverageFactor, "$.reference.certificateCoverageFactor", problems);
+        DefinitionBounds.ReadoutResolution.Check(reference.ReadoutResolution, "$.reference.readoutResolution", problems);
         if (fixture.Rig == "serial")
         {
             problems.AddIf(fixture.Source.Port is null, "$.source", "a serial rig needs the source's port");
@@ -37,44 +37,74 @@ public static class FixtureChecker
         CheckPorts(fixture, problems);
         if (fixture.Simulation is { } sim)
         {
-            problems.AddIf(!(sim.UnitLagTimeConstantSeconds > 0), "$.simulation.unitLagTimeConstantSeconds", "must be positive");
-            problems.AddIf(sim.DefectRate is < 0 or > 1, "$.simulation.defectRate", "must be between 0 and 1");
-            problems.AddIf(sim.SensorDefectRate is < 0 or > 1, "$.simulation.sensorDefectRate", "must be between 0 and 1");
-            problems.AddIf(sim.SlotOffsetsC.Count > fixture.Slots.Count, "$.simulation.slotOffsetsC", "more offsets than slots");
+            CheckSimulation(sim, fixture.Slots.Count, problems);
         }
 
         return problems;
+    }
+
+    // Every number the simulator takes from the fixture: the simulator relies on these bounds and checks nothing itself.
+    private static void CheckSimulation(SimulationDefinition sim, int slots, ProblemList problems)
+    {
+        DefinitionBounds.TimeConstantSeconds.Check(sim.UnitLagTimeConstantSeconds, "$.simulation.unitLagTimeConstantSeconds", problems);
+        DefinitionBounds.LagSpread.Check(sim.UnitLagSpread, "$.simulation.unitLagSpread", problems);
+        DefinitionBounds.BlockNoiseC.Check(sim.BlockNoiseC, "$.simulation.blockNoiseC", problems);
+        DefinitionBounds.NoiseVolts.Check(sim.UnitOutputNoiseVolts, "$.simulation.unitOutputNoiseVolts", problems);
+        DefinitionBounds.Share.Check(sim.DefectRate, "$.simulation.defectRate", problems);
+        DefinitionBounds.Share.Check(sim.SensorDefectRate, "$.simulation.sensorDefectRate", problems);
+        problems.AddIf(sim.SlotOffsetsC.Count > slots, "$.simulation.slotOffsetsC", $"more offsets ({sim.SlotOffsetsC.Count}) than slots ({slots})");
+        for (var i = 0; i < sim.SlotOffsetsC.Count; i++)
+        {
+            DefinitionBounds.SlotOffsetC.Check(sim.SlotOffsetsC[i], $"$.simulation.slotOffsetsC[{i}]", problems);
+        }
     }
 
     private static void CheckSource(SourceDefinition source, ProblemList problems)
     {
         problems.AddIf(source.Kind is not ("dry-block" or "bath" or "chamber"), "$.source.kind",
             $"unknown source kind '{source.Kind}' (known: dry-block, bath, chamber)");
-        if (source.SafeMinC >= source.SafeMaxC)
+        // The range is judged once each end is a usable temperature.
+        var minOk = DefinitionBounds.TemperatureC.Check(source.SafeMinC, "$.source.safeMinC", problems);
+        var maxOk = DefinitionBounds.TemperatureC.Check(source.SafeMaxC, "$.source.safeMaxC", problems);
+        var standbyOk = DefinitionBounds.TemperatureC.Check(source.StandbyC, "$.source.standbyC", problems);
+        if (minOk && maxOk && source.SafeMinC >= source.SafeMaxC)
         {
             problems.Add("$.source.safeMinC", $"the safe minimum ({F(source.SafeMinC)} °C) must be below the safe maximum ({F(source.SafeMaxC)} °C)");
         }
-        else if (source.StandbyC < source.SafeMinC || source.StandbyC > source.SafeMaxC)
+        else if (minOk && maxOk && standbyOk && (source.StandbyC < source.SafeMinC || source.StandbyC > source.SafeMaxC))
         {
             problems.Add("$.source.standbyC", $"standby {F(source.StandbyC)} °C is outside the safe range {F(source.SafeMinC)} … {F(source.SafeMaxC)} °C");
         }
 
-        problems.AddIf(!(source.RampUpCPerMinute > 0), "$.source.rampUpCPerMinute", "the heating rate must be positive");
-        problems.AddIf(!(source.RampDownCPerMinute > 0), "$.source.rampDownCPerMinute", "the cooling rate must be positive");
-        problems.AddIf(!(source.SettlingTimeConstantSeconds > 0), "$.source.settlingTimeConstantSeconds", "the time constant must be positive");
+        DefinitionBounds.RampCPerMinute.Check(source.RampUpCPerMinute, "$.source.rampUpCPerMinute", problems);
+        DefinitionBounds.RampCPerMinute.Check(source.RampDownCPerMinute, "$.source.rampDownCPerMinute", problems);
+        DefinitionBounds.TimeConstantSeconds.Check(source.SettlingTimeConstantSeconds, "$.source.settlingTimeConstantSeconds", problems);
     }
 
     private static void CheckSlots(FixtureDefinition fixture, ProblemList problems)
     {
-        problems.AddIf(fixture.Slots.Count == 0, "$.slots", "a fixture needs at least one slot");
+        if (!DefinitionBounds.SlotCount.Admits(fixture.Slots.Count))
+        {
+            problems.Add("$.slots", $"a fixture needs {DefinitionBounds.SlotCount.Describe()} slots, not {fixture.Slots.Count}");
+            if (fixture.Slots.Count == 0)
+            {
+                return;
+            }
+        }
+
         var numbers = new HashSet<int>();
         var channels = new Dictionary<int, (int Slot, string Use)>();
         for (var i = 0; i < fixture.Slots.Count; i++)
         {
             var slot = fixture.Slots[i];
             var path = $"$.slots[{i}]";
-            problems.AddIf(slot.Slot < 1, $"{path}.slot", "slot numbers start at 1");
-            problems.AddIf(!numbers.Add(slot.Slot), $"{path}.slot", $"slot {slot.Slot} is defined twice");
+            if (DefinitionBounds.SlotNumber.Check(slot.Slot, $"{path}.slot", problems) && !numbers.Add(slot.Slot))
+            {
+                problems.Add($"{path}.slot", $"slot {slot.Slot} is defined twice");
+            }
+
+            DefinitionBounds.Channel.Check(slot.OutputChannel, $"{path}.outputChannel", problems);
+            DefinitionBounds.Channel.Check(slot.SupplyChannel, $"{path}.supplyChannel", problems);
             foreach (var (channel, key, use) in new[] { (slot.OutputChannel, "outputChannel", "output"), (slot.SupplyChannel, "supplyChannel", "supply shunt") })
             {
                 if (channels.TryGetValue(channel, out var other))
@@ -87,7 +117,7 @@ public static class FixtureChecker
                 }
             }
 
-            problems.AddIf(!(slot.SupplyShuntOhms > 0), $"{path}.supplyShuntOhms", "the shunt resistance must be positive");
+            DefinitionBounds.Ohms.Check(slot.SupplyShuntOhms, $"{path}.supplyShuntOhms", problems);
             problems.AddIf(fixture.Rig == "serial" && slot.UnitPort is null, $"{path}.unitPort", "a serial rig needs each slot's unit port");
         }
     }
@@ -106,7 +136,11 @@ public static class FixtureChecker
 
             var path = $"$.slots[{i}].smuChannel";
             problems.AddIf(smu is null, path, "a slot with an SMU channel needs the fixture's 'sourceMeter' object");
-            problems.AddIf(channel < 1, path, "SMU channels start at 1");
+            if (!DefinitionBounds.Channel.Check(channel, path, problems))
+            {
+                continue;
+            }
+
             if (!channels.TryAdd(channel, slot.Slot))
             {
                 problems.Add(path, $"SMU channel {channel} is already wired to slot {channels[channel]}");
@@ -118,9 +152,9 @@ public static class FixtureChecker
             return;
         }
 
-        problems.AddIf(!(smu.ComplianceVolts > 0) || !double.IsFinite(smu.ComplianceVolts), "$.sourceMeter.complianceVolts", "the compliance must be a positive number of volts");
-        problems.AddIf(!(smu.MaxCurrentAmps > 0) || !double.IsFinite(smu.MaxCurrentAmps), "$.sourceMeter.maxCurrentAmps", "the largest current must be a positive number of amperes");
-        problems.AddIf(!(smu.NoiseVolts >= 0) || !double.IsFinite(smu.NoiseVolts), "$.sourceMeter.noiseVolts", "the noise must be zero or a positive number of volts");
+        DefinitionBounds.ComplianceVolts.Check(smu.ComplianceVolts, "$.sourceMeter.complianceVolts", problems);
+        DefinitionBounds.SensorCurrentAmps.Check(smu.MaxCurrentAmps, "$.sourceMeter.maxCurrentAmps", problems);
+        DefinitionBounds.NoiseVolts.Check(smu.NoiseVolts, "$.sourceMeter.noiseVolts", problems);
         problems.AddIf(fixture.Rig == "serial" && smu.Port is null, "$.sourceMeter", "a serial rig needs the source-measure unit's port");
         problems.AddIf(channels.Count == 0, "$.sourceMeter", "no slot is wired to the source-measure unit: give each slot its smuChannel");
     }
@@ -167,10 +201,18 @@ public static class FixtureChecker
             return;
         }
 
-        problems.AddIf(string.IsNullOrWhiteSpace(port.Name), $"{path}.name", "the port needs a name, e.g. /dev/ttyUSB0 or COM3");
-        problems.AddIf(port.Baud < 1, $"{path}.baud", "the baud rate must be positive");
-        problems.AddIf(port.TimeoutMs < 1, $"{path}.timeoutMs", "the timeout must be at least 1 ms");
-        problems.AddIf(port.Retries < 0, $"{path}.retries", "the number of retries cannot be negative");
+        if (string.IsNullOrWhiteSpace(port.Name))
+        {
+            problems.Add($"{path}.name", "the port needs a name, e.g. /dev/ttyUSB0 or COM3");
+        }
+        else
+        {
+            DefinitionBounds.PortName.Check(port.Name, $"{path}.name", problems);
+        }
+
+        DefinitionBounds.Baud.Check(port.Baud, $"{path}.baud", problems);
+        DefinitionBounds.PortTimeoutMs.Check(port.TimeoutMs, $"{path}.timeoutMs", problems);
+        DefinitionBounds.Retries.Check(port.Retries, $"{path}.retries", problems);
     }
 
     private static string F(double value) => value.ToString("0.###", CultureInfo.InvariantCulture);

@@ -2,15 +2,11 @@ using LineTest.Core.Definitions;
 
 namespace LineTest.Core.Fixtures;
 
-/// <summary>Loads a fixture file: parse, then check, reporting every problem with its location.</summary>
+/// <summary>Loads a fixture from its file's bytes (the Station reads the file): parse, then check, reporting every problem with its location.</summary>
 public static class FixtureLoader
 {
     /// <summary>Extra checks supplied by the caller (e.g. that the reference sensor definition is usable).</summary>
     public delegate void ExtraCheck(FixtureDefinition fixture, ProblemList problems);
-
-    /// <summary>Loads and checks the fixture at <paramref name="path"/>.</summary>
-    public static LoadResult<FixtureDefinition> LoadFile(string path, ExtraCheck? extra = null) =>
-        Finish(JsonDefinitionReader.ReadFile<FixtureDefinition>(path), path, extra);
 
     /// <summary>Loads and checks a fixture from bytes.</summary>
     public static LoadResult<FixtureDefinition> Load(string file, byte[] utf8, ExtraCheck? extra = null) =>

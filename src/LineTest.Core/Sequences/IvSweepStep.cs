@@ -79,7 +79,9 @@ public sealed record IvSweepStep : StepDefinition
             return list;
         }
 
-        if (FromAmps is not { } from || ToAmps is not { } to || Points is not { } points || points < 2 || !(from > 0) || !(to > 0))
+        // Never more than the bound: a points count out of it is reported by the checker and must not allocate here.
+        if (FromAmps is not { } from || ToAmps is not { } to || Points is not { } points || points < 2 || points > Steps.IvSweepStepKind.MaxPoints
+            || !(from > 0) || !(to > 0))
         {
             return [];
         }

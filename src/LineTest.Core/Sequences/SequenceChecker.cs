@@ -14,14 +14,13 @@ namespace LineTest.Core.Sequences;
 /// </summary>
 public static class SequenceChecker
 {
-
     /// <summary>Checks <paramref name="sequence"/>; with a fixture, also that every setpoint is inside its safe range.</summary>
     public static ProblemList Check(SequenceDefinition sequence, FixtureDefinition? fixture)
     {
         ArgumentNullException.ThrowIfNull(sequence);
         var problems = new ProblemList();
         problems.AddIf(string.IsNullOrWhiteSpace(sequence.Id), "$.id", "the id must not be empty");
-        problems.AddIf(sequence.Revision < 1, "$.revision", $"the revision must be 1 or more, not {sequence.Revision}");
+        DefinitionBounds.Revision.Check(sequence.Revision, "$.revision", problems);
         problems.AddIf(string.IsNullOrWhiteSpace(sequence.Product), "$.product", "the product must not be empty");
         CheckSerialPattern(sequence.SerialPattern, problems);
         CheckStability(sequence.Stability, problems);
@@ -57,14 +56,14 @@ public static class SequenceChecker
 
     private static void CheckStability(StabilitySettings s, ProblemList problems)
     {
-        Positive(s.BandC, "$.stability.bandC", problems);
-        Positive(s.MaxDriftCPerMinute, "$.stability.maxDriftCPerMinute", problems);
-        Positive(s.WindowSeconds, "$.stability.windowSeconds", problems);
-        Positive(s.SampleIntervalSeconds, "$.stability.sampleIntervalSeconds", problems);
-        Positive(s.TimeoutSeconds, "$.stability.timeoutSeconds", problems);
+        DefinitionBounds.TemperatureBandC.Check(s.BandC, "$.stability.bandC", problems);
+        DefinitionBounds.DriftCPerMinute.Check(s.MaxDriftCPerMinute, "$.stability.maxDriftCPerMinute", problems);
+        DefinitionBounds.WindowSeconds.Check(s.WindowSeconds, "$.stability.windowSeconds", problems);
+        DefinitionBounds.SampleIntervalSeconds.Check(s.SampleIntervalSeconds, "$.stability.sampleIntervalSeconds", problems);
+        DefinitionBounds.TimeoutSeconds.Check(s.TimeoutSeconds, "$.stability.timeoutSeconds", problems);
 
         // A zero or negative bound could never be met: every settle would run into its timeout.
-        Positive(s.MaxOffsetFromSetpointC, "$.stability.maxOffsetFromSetpointC", problems);
+        DefinitionBounds.TemperatureBandC.Check(s.MaxOffsetFromSetpointC, "$.stability.maxOffsetFromSetpointC", problems);
         problems.AddIf(s.SampleIntervalSeconds > 0 && s.WindowSeconds > 0 && s.WindowSeconds < 2 * s.SampleIntervalSeconds,
             "$.stability.windowSeconds", "the window must hold at least three readings (two sample intervals or more)");
         problems.AddIf(s.TimeoutSeconds > 0 && s.TimeoutSeconds <= s.WindowSeconds,
@@ -73,11 +72,11 @@ public static class SequenceChecker
 
     private static void CheckSoak(SoakSettings s, ProblemList problems)
     {
-        problems.AddIf(s.MinimumSeconds < 0, "$.soak.minimumSeconds", "the minimum soak cannot be negative");
-        Positive(s.MaxDriftCPerMinute, "$.soak.maxDriftCPerMinute", problems);
-        Positive(s.WindowSeconds, "$.soak.windowSeconds", problems);
-        Positive(s.SampleIntervalSeconds, "$.soak.sampleIntervalSeconds", problems);
-        Positive(s.TimeoutSeconds, "$.soak.timeoutSeconds", problems);
+        DefinitionBounds.MinimumSoakSeconds.Check(s.MinimumSeconds, "$.soak.minimumSeconds", problems);
+        DefinitionBounds.DriftCPerMinute.Check(s.MaxDriftCPerMinute, "$.soak.maxDriftCPerMinute", problems);
+        DefinitionBounds.WindowSeconds.Check(s.WindowSeconds, "$.soak.windowSeconds", problems);
+        DefinitionBounds.SampleIntervalSeconds.Check(s.SampleIntervalSeconds, "$.soak.sampleIntervalSeconds", problems);
+        DefinitionBounds.TimeoutSeconds.Check(s.TimeoutSeconds, "$.soak.timeoutSeconds", problems);
         problems.AddIf(s.SampleIntervalSeconds > 0 && s.WindowSeconds > 0 && s.WindowSeconds < 2 * s.SampleIntervalSeconds,
             "$.soak.windowSeconds", "the window must hold at least three readings (two sample intervals or more)");
         // The drift window starts once the minimum soak is over (the unit is still far from the block before), so
@@ -90,7 +89,8 @@ public static class SequenceChecker
     private static HashSet<string> CheckSetpoints(IReadOnlyList<SetpointDefinition> setpoints, FixtureDefinition? fixture, ProblemList problems)
     {
         var names = new HashSet<string>(StringComparer.Ordinal);
-        problems.AddIf(setpoints.Count == 0, "$.setpoints", "at least one setpoint is needed");
+        problems.AddIf(!DefinitionBounds.SetpointCount.Admits(setpoints.Count), "$.setpoints",
+            $"a sequence needs {DefinitionBounds.SetpointCount.Describe()} setpoints, not {setpoints.Count}");
         for (var i = 0; i < setpoints.Count; i++)
         {
             var sp = setpoints[i];
@@ -104,11 +104,8 @@ public static class SequenceChecker
                 problems.Add($"{path}.name", $"setpoint '{sp.Name}' is defined twice");
             }
 
-            if (!double.IsFinite(sp.Celsius))
-            {
-                problems.Add($"{path}.celsius", "the temperature must be a finite number");
-            }
-            else if (fixture is not null && (sp.Celsius < fixture.Source.SafeMinC || sp.Celsius > fixture.Source.SafeMaxC))
+            // Judged against the fixture once it is a usable temperature.
+            if (DefinitionBounds.TemperatureC.Check(sp.Celsius, $"{path}.celsius", problems) && fixture is not null && (sp.Celsius < fixture.Source.SafeMinC || sp.Celsius > fixture.Source.SafeMaxC))
             {
                 problems.Add($"{path}.celsius",
                     $"{F(sp.Celsius)} °C is outside the safe range of fixture '{fixture.Id}' ({F(fixture.Source.SafeMinC)} … {F(fixture.Source.SafeMaxC)} °C)");
@@ -134,7 +131,7 @@ public static class SequenceChecker
                 }
                 else
                 {
-                    CheckDac(trim.Dac, problems);
+                    AddSpecProblems(trim.Dac.Check(), "$.trim.dac", problems);
                 }
 
                 break;
@@ -173,23 +170,12 @@ public static class SequenceChecker
         }
     }
 
-    /// <summary>
-    /// A trim spec's own problems come as "relative.path: reason"; each is placed at its JSON path under
-    /// <paramref name="root"/> so the engineer is taken to the offending key.
-    /// </summary>
-    private static void AddSpecProblems(IReadOnlyList<string> specProblems, string root, ProblemList problems)
+    /// <summary>A trim spec's own problems, each placed at its JSON path under <paramref name="root"/>.</summary>
+    private static void AddSpecProblems(IReadOnlyList<SpecProblem> specProblems, string root, ProblemList problems)
     {
         foreach (var problem in specProblems)
         {
-            var colon = problem.IndexOf(": ", StringComparison.Ordinal);
-            if (colon > 0 && !problem[..colon].Contains(' ', StringComparison.Ordinal))
-            {
-                problems.Add($"{root}.{problem[..colon]}", problem[(colon + 2)..]);
-            }
-            else
-            {
-                problems.Add(root, problem);
-            }
+            problems.Add(problem.Path.Length == 0 ? root : $"{root}.{problem.Path}", problem.Reason);
         }
     }
 
@@ -215,32 +201,20 @@ public static class SequenceChecker
                 "give soak.outputVoltsPerC (the unit's output sensitivity) so the soak can judge the unit's drift in °C");
         }
 
-        problems.AddIf(soak.OutputVoltsPerC is { } sens && (sens == 0 || !double.IsFinite(sens)), "$.soak.outputVoltsPerC",
-            "the output sensitivity must be a non-zero number");
-        problems.AddIf(soak.OutputCountsPerC is { } counts && (counts == 0 || !double.IsFinite(counts)), "$.soak.outputCountsPerC",
-            "the raw sensitivity must be a non-zero number");
-    }
-
-    private static void CheckDac(DacTrimSpec dac, ProblemList problems)
-    {
-        CheckDacChannel(dac.Gain, "$.trim.dac.gain", problems);
-        CheckDacChannel(dac.Offset, "$.trim.dac.offset", problems);
-        problems.AddIf(dac.Target.SlopeVoltsPerC == 0 || !double.IsFinite(dac.Target.SlopeVoltsPerC),
-            "$.trim.dac.target.slopeVoltsPerC", "the target slope must be a non-zero number");
-    }
-
-    private static void CheckDacChannel(DacChannelSpec channel, string path, ProblemList problems)
-    {
-        problems.AddIf(channel.Min >= channel.Max, $"{path}.min", $"min ({channel.Min}) must be below max ({channel.Max})");
-        problems.AddIf(channel.Nominal < channel.Min || channel.Nominal > channel.Max, $"{path}.nominal",
-            $"nominal code {channel.Nominal} is outside {channel.Min} … {channel.Max}");
-        problems.AddIf(channel.Step == 0 || !double.IsFinite(channel.Step), $"{path}.step", "the step must be a non-zero number");
-        problems.AddIf(string.IsNullOrWhiteSpace(channel.Register), $"{path}.register", "the register name must not be empty");
+        var most = NumberBound.F(DefinitionBounds.SensitivityMagnitude.Maximum);
+        problems.AddIf(soak.OutputVoltsPerC is { } sens && !DefinitionBounds.SensitivityMagnitude.Admits(Math.Abs(sens)), "$.soak.outputVoltsPerC",
+            $"the output sensitivity must be a number other than 0, at most {most} either way");
+        problems.AddIf(soak.OutputCountsPerC is { } counts && !DefinitionBounds.SensitivityMagnitude.Admits(Math.Abs(counts)), "$.soak.outputCountsPerC",
+            $"the raw sensitivity must be a number other than 0, at most {most} either way");
     }
 
     private static void CheckSteps(SequenceDefinition sequence, FixtureDefinition? fixture, HashSet<string> setpoints, ProblemList problems)
     {
-        problems.AddIf(sequence.Steps.Count == 0, "$.steps", "at least one step is needed");
+        if (!DefinitionBounds.StepCount.Admits(sequence.Steps.Count))
+        {
+            problems.Add("$.steps", $"a sequence needs {DefinitionBounds.StepCount.Describe()} steps, not {sequence.Steps.Count}");
+        }
+
         var context = new StepCheckContext(sequence, fixture, setpoints, problems);
         var readingNames = new Dictionary<string, int>(StringComparer.Ordinal);
         for (var i = 0; i < sequence.Steps.Count; i++)
@@ -255,7 +229,7 @@ public static class SequenceChecker
                 }
                 else if (readingNames.TryGetValue(name, out var first))
                 {
-                    problems.Add($"{path}.name", $"step name '{name}' is already used by step {first + 1}");
+                    problems.Add($"{path}.name", $"step name '{name}' is already used at $.steps[{first}].name");
                 }
                 else
                 {
@@ -275,10 +249,6 @@ public static class SequenceChecker
             }
         }
     }
-
-    private static void Positive(double value, string path, ProblemList problems) =>
-        problems.AddIf(!(value > 0) || !double.IsFinite(value), path,
-            double.IsFinite(value) ? $"must be a positive number, not {F(value)}" : "must be a positive number within range (this one overflows)");
 
     private static string F(double value) => value.ToString("0.###", CultureInfo.InvariantCulture);
 }

@@ -3,13 +3,9 @@ using LineTest.Core.Fixtures;
 
 namespace LineTest.Core.Sequences;
 
-/// <summary>Loads a sequence file: parse, then check (optionally against a fixture), reporting every problem with its location.</summary>
+/// <summary>Loads a sequence from its file's bytes (the Station reads the file): parse, then check (optionally against a fixture), reporting every problem with its location.</summary>
 public static class SequenceLoader
 {
-    /// <summary>Loads and checks the sequence at <paramref name="path"/>.</summary>
-    public static LoadResult<SequenceDefinition> LoadFile(string path, FixtureDefinition? fixture = null) =>
-        Finish(JsonDefinitionReader.ReadFile<SequenceDefinition>(path), path, fixture);
-
     /// <summary>Loads and checks a sequence from bytes (named <paramref name="file"/> in problems).</summary>
     public static LoadResult<SequenceDefinition> Load(string file, byte[] utf8, FixtureDefinition? fixture = null) =>
         Finish(JsonDefinitionReader.Parse<SequenceDefinition>(file, utf8), file, fixture);

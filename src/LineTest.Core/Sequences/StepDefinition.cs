@@ -4,8 +4,9 @@ namespace LineTest.Core.Sequences;
 
 /// <summary>
 /// One entry of a sequence. The JSON key <c>kind</c> selects the step kind.
-/// To add a step kind: derive a record here, add a <see cref="JsonDerivedTypeAttribute"/> line, check it in
-/// <see cref="SequenceChecker"/>, and execute it in the runtime's step executor.
+/// To add a step kind: derive a record here, add a <see cref="JsonDerivedTypeAttribute"/> line, describe it in
+/// <see cref="Steps.StepKinds"/> (checks, setpoint, planner role, time, screen words) and execute it in the runtime's
+/// <c>Steps/StepExecutors</c> (see DEVELOPERS.md).
 /// </summary>
 [JsonPolymorphic(TypeDiscriminatorPropertyName = "kind", UnknownDerivedTypeHandling = JsonUnknownDerivedTypeHandling.FailSerialization)]
 [JsonDerivedType(typeof(IdentifyStep), "identify")]

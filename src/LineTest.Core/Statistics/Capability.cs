@@ -76,15 +76,19 @@ public static class Capability
         var z = NormalDistribution.Quantile(0.5 + (confidenceLevel / 2));
         if (sigmaWithin > 0)
         {
+            // The within σ comes from moving ranges, which carry less information than n − 1 squared deviations:
+            // its bounds use the effective degrees of freedom of MR̄/d2, not n − 1.
             var within = Indices(mean, sigmaWithin, limits);
+            var nu = MovingRangeDegreesOfFreedom(n);
             result = result with
             {
                 Cp = within.Spread,
                 Cpu = within.Upper,
                 Cpl = within.Lower,
                 Cpk = within.Worst,
-                CpInterval = SpreadInterval(within.Spread, n, confidenceLevel),
-                CpkInterval = BissellInterval(within.Worst, n, z, confidenceLevel),
+                WithinDegreesOfFreedom = nu,
+                CpInterval = SpreadInterval(within.Spread, nu, confidenceLevel),
+                CpkInterval = BissellInterval(within.Worst, n, nu, z, confidenceLevel),
             };
         }
         else
@@ -103,8 +107,8 @@ public static class Capability
                 Ppu = overall.Upper,
                 Ppl = overall.Lower,
                 Ppk = overall.Worst,
-                PpInterval = SpreadInterval(overall.Spread, n, confidenceLevel),
-                PpkInterval = BissellInterval(overall.Worst, n, z, confidenceLevel),
+                PpInterval = SpreadInterval(overall.Spread, n - 1, confidenceLevel),
+                PpkInterval = BissellInterval(overall.Worst, n, n - 1, z, confidenceLevel),
                 ExpectedPpmBelow = below,
                 ExpectedPpmAbove = above,
                 ExpectedPpmTotal = (below ?? 0) + (above ?? 0),
@@ -129,7 +133,7 @@ public static class Capability
             throw new ArgumentOutOfRangeException(nameof(confidenceLevel), confidenceLevel, "The confidence level must lie strictly between 0 and 1.");
         }
 
-        return BissellInterval(cpk, count, NormalDistribution.Quantile(0.5 + (confidenceLevel / 2)), confidenceLevel)!.Value;
+        return BissellInterval(cpk, count, count - 1, NormalDistribution.Quantile(0.5 + (confidenceLevel / 2)), confidenceLevel)!.Value;
     }
 
     /// <summary>
@@ -143,21 +147,49 @@ public static class Capability
             throw new ArgumentOutOfRangeException(nameof(confidenceLevel), confidenceLevel, "The confidence level must lie strictly between 0 and 1.");
         }
 
-        return SpreadInterval((double?)cp, count, confidenceLevel)!.Value;
+        return SpreadInterval((double?)cp, count - 1, confidenceLevel)!.Value;
     }
 
-    private static ConfidenceInterval? BissellInterval(double? cpk, int n, double z, double level)
+    /// <summary>
+    /// Effective degrees of freedom ν of the within σ̂ = MR̄/d2 from <paramref name="count"/> independent normal values,
+    /// so that σ̂²·ν/σ² is treated as χ²(ν), as s²·(n − 1)/σ² is for the sample σ.
+    /// </summary>
+    /// <remarks>
+    /// Derived from the exact variance of MR̄: each moving range |xᵢ − xᵢ₋₁| is σ√2·|Z|, so Var(MRᵢ) = σ²(2 − 4/π);
+    /// neighbouring ranges share a value, their differences correlate with ρ = −½, and for a bivariate normal
+    /// Cov(|U|, |V|) = (2σᵤσᵥ/π)(ρ·asin ρ + √(1 − ρ²) − 1), which gives Cov(MRᵢ, MRᵢ₊₁) = (4σ²/π)(π/12 + √3/2 − 1);
+    /// ranges further apart are independent. With m = n − 1 ranges,
+    /// Var(MR̄) = [m·Var(MRᵢ) + 2(m − 1)·Cov]/m², and ν = 1/(2·Var(σ̂)/σ²) by matching the variance of a scaled
+    /// χ (Var(s)/σ² ≈ 1/(2ν)). For large n, ν ≈ 0.605(n − 1), close to the 0.62(n − 1) Cryer &amp; Ryan (1990,
+    /// Journal of Quality Technology 22) give for MR̄/d2 [from memory]; well below the n − 1 of the sample σ.
+    /// </remarks>
+    public static double MovingRangeDegreesOfFreedom(int count)
+    {
+        ArgumentOutOfRangeException.ThrowIfLessThan(count, 2);
+        double m = count - 1;
+        var variance = 2 - (4 / Math.PI);
+        var covariance = 4 / Math.PI * ((Math.PI / 12) + (Math.Sqrt(3) / 2) - 1);
+        var meanVariance = ((m * variance) + (2 * (m - 1) * covariance)) / (m * m);
+
+        // d2 = E|xᵢ − xᵢ₋₁|/σ = 2/√π exactly (the tabled 1.128 rounded).
+        var relativeVariance = meanVariance / (4 / Math.PI);
+        return 1 / (2 * relativeVariance);
+    }
+
+    private static ConfidenceInterval? BissellInterval(double? cpk, int n, double nu, double z, double level)
     {
         if (cpk is not { } c)
         {
             return null;
         }
 
-        var halfWidth = z * Math.Sqrt((1.0 / (9.0 * n)) + (c * c / (2.0 * (n - 1))));
+        // Bissell: Var(Ĉpk) ≈ 1/(9n) + Cpk²/(2ν); the first term comes from the mean (n values), the second from σ̂ with
+        // ν degrees of freedom (n − 1 for the sample σ, the effective ν for a moving-range σ).
+        var halfWidth = z * Math.Sqrt((1.0 / (9.0 * n)) + (c * c / (2.0 * nu)));
         return new ConfidenceInterval(c - halfWidth, c + halfWidth, level);
     }
 
-    private static ConfidenceInterval? SpreadInterval(double? cp, int n, double level)
+    private static ConfidenceInterval? SpreadInterval(double? cp, double df, double level)
     {
         if (cp is not { } c)
         {
@@ -165,7 +197,6 @@ public static class Capability
         }
 
         var alpha = 1 - level;
-        double df = n - 1;
         var lower = c * Math.Sqrt(ChiSquareDistribution.Quantile(df, alpha / 2) / df);
         var upper = c * Math.Sqrt(ChiSquareDistribution.Quantile(df, 1 - (alpha / 2)) / df);
         return new ConfidenceInterval(lower, upper, level);

@@ -57,10 +57,16 @@ public sealed record CapabilityResult
     /// <summary>min(Ppu, Ppl) over the limits that exist.</summary>
     public double? Ppk { get; init; }
 
-    /// <summary>Chi-square interval on Cp (treats σ within as having n − 1 degrees of freedom).</summary>
+    /// <summary>
+    /// Effective degrees of freedom of σ within (MR̄/d2), used by the Cp and Cpk bounds; null when σ within is not used.
+    /// See <see cref="Capability.MovingRangeDegreesOfFreedom"/>.
+    /// </summary>
+    public double? WithinDegreesOfFreedom { get; init; }
+
+    /// <summary>Chi-square interval on Cp with the effective degrees of freedom of σ within (about 0.6(n − 1)).</summary>
     public ConfidenceInterval? CpInterval { get; init; }
 
-    /// <summary>Bissell (1990) normal-approximation interval on Cpk.</summary>
+    /// <summary>Bissell (1990) normal-approximation interval on Cpk, with the effective degrees of freedom of σ within.</summary>
     public ConfidenceInterval? CpkInterval { get; init; }
 
     /// <summary>Chi-square interval on Pp (exact under normality).</summary>

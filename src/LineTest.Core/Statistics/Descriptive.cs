@@ -1,6 +1,10 @@
 namespace LineTest.Core.Statistics;
 
-/// <summary>Basic sample statistics over spans, without allocation.</summary>
+/// <summary>
+/// Basic sample statistics over spans, without allocation. Every function takes any finite values, up to
+/// ±<see cref="double.MaxValue"/>: a sum or a square that would overflow is computed on scaled values instead, so a
+/// reading of 1e160 gives its true mean and σ rather than infinity.
+/// </summary>
 public static class Descriptive
 {
     /// <summary>Arithmetic mean. Throws on an empty span or a non-finite value (naming its index).</summary>
@@ -23,7 +27,20 @@ public static class Descriptive
             sum += v;
         }
 
-        return sum / values.Length;
+        if (double.IsFinite(sum))
+        {
+            return sum / values.Length;
+        }
+
+        // The plain sum overflowed (values near ±1.8e308): each value divided by n first cannot.
+        double scaled = 0;
+        double n = values.Length;
+        foreach (var v in values)
+        {
+            scaled += v / n;
+        }
+
+        return scaled;
     }
 
     /// <summary>
@@ -54,15 +71,28 @@ public static class Descriptive
         double sum = 0;
         for (var i = 1; i < values.Length; i++)
         {
+            if (!double.IsFinite(values[i]) || !double.IsFinite(values[i - 1]))
+            {
+                throw new ArgumentException("values holds a non-finite reading; remove it before computing a moving range.", nameof(values));
+            }
+
             sum += Math.Abs(values[i] - values[i - 1]);
         }
 
-        if (!double.IsFinite(sum))
+        if (double.IsFinite(sum))
         {
-            throw new ArgumentException("values holds a non-finite reading; remove it before computing a moving range.", nameof(values));
+            return sum / (values.Length - 1);
         }
 
-        return sum / (values.Length - 1);
+        // A difference or the sum overflowed: halve every value (exact in binary) and average the scaled ranges.
+        double scaled = 0;
+        double m = values.Length - 1;
+        for (var i = 1; i < values.Length; i++)
+        {
+            scaled += Math.Abs((values[i] / 2) - (values[i - 1] / 2)) / m;
+        }
+
+        return 2 * scaled;
     }
 
     internal static double StandardDeviation(ReadOnlySpan<double> values, double mean)
@@ -74,6 +104,25 @@ public static class Descriptive
             sum += d * d;
         }
 
-        return Math.Sqrt(sum / (values.Length - 1));
+        if (double.IsFinite(sum))
+        {
+            return Math.Sqrt(sum / (values.Length - 1));
+        }
+
+        // A square overflowed (deviations beyond about 1e154): scale the deviations by the largest one.
+        double largest = 0;
+        foreach (var v in values)
+        {
+            largest = Math.Max(largest, Math.Abs((v / 2) - (mean / 2)));
+        }
+
+        double scaled = 0;
+        foreach (var v in values)
+        {
+            var d = ((v / 2) - (mean / 2)) / largest;
+            scaled += d * d;
+        }
+
+        return 2 * largest * Math.Sqrt(scaled / (values.Length - 1));
     }
 }

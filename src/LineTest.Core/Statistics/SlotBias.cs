@@ -15,6 +15,47 @@ public static class SlotBias
             throw new ArgumentException($"slots has {slots.Length} entries but values has {values.Length}; they must pair up one to one.", nameof(slots));
         }
 
+        // Squares of deviations beyond about 1e154 overflow. The F ratio does not depend on the scale, so very large
+        // values are analysed divided by a power of two (exact) and the means scaled back.
+        double largest = 0;
+        foreach (var v in values)
+        {
+            largest = Math.Max(largest, Math.Abs(v));
+        }
+
+        if (double.IsFinite(largest) && largest > LargeValue)
+        {
+            var scale = Math.ScaleB(1.0, Math.ILogB(largest));
+            var scaled = new double[values.Length];
+            for (var i = 0; i < scaled.Length; i++)
+            {
+                scaled[i] = values[i] / scale;
+            }
+
+            var outcome = AnalyzeUnscaled(slots, scaled);
+            if (outcome.Value is not { } r)
+            {
+                return outcome;
+            }
+
+            return StatisticOutcome<SlotBiasResult>.Computed(r with
+            {
+                GrandMean = r.GrandMean * scale,
+                SumOfSquaresBetween = r.SumOfSquaresBetween * scale * scale,
+                SumOfSquaresWithin = r.SumOfSquaresWithin * scale * scale,
+                Groups = r.Groups.Select(g => g with { Mean = g.Mean * scale, OffsetFromGrandMean = g.OffsetFromGrandMean * scale }).ToList(),
+            });
+        }
+
+        return AnalyzeUnscaled(slots, values);
+    }
+
+    /// <summary>Above this magnitude values are scaled before squaring.</summary>
+    private const double LargeValue = 1e100;
+
+    private static StatisticOutcome<SlotBiasResult> AnalyzeUnscaled(ReadOnlySpan<int> slots, ReadOnlySpan<double> values)
+    {
+
         var index = new Dictionary<int, int>();
         var counts = new List<int>();
         var sums = new List<double>();

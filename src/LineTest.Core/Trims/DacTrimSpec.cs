@@ -1,3 +1,5 @@
+using LineTest.Core.Definitions;
+
 namespace LineTest.Core.Trims;
 
 /// <summary>
@@ -19,55 +21,67 @@ public sealed record DacTrimSpec
     public required LinearTransfer Target { get; init; }
 
     /// <summary>
-    /// Problems that make the spec unusable, each with its JSON path (e.g. <c>gain.step: must not be 0</c>);
+    /// Problems that make the spec unusable, each with its path relative to the spec (e.g. <c>gain.step</c>);
     /// empty when the spec is sound. The sequence checker reports these; the trim refuses to run with any.
     /// </summary>
-    public IReadOnlyList<string> Check()
+    public IReadOnlyList<SpecProblem> Check()
     {
-        var problems = new List<string>();
+        var problems = new List<SpecProblem>();
         CheckChannel("gain", Gain, problems);
         CheckChannel("offset", Offset, problems);
         if (Target is null)
         {
-            problems.Add("target: missing");
+            problems.Add(new("target", "missing"));
         }
         else
         {
-            if (!double.IsFinite(Target.OffsetVolts))
+            if (DefinitionBounds.TransferOffsetVolts.Refusal(Target.OffsetVolts) is { } offset)
             {
-                problems.Add("target.offsetVolts: must be a finite number");
+                problems.Add(new("target.offsetVolts", offset));
             }
 
             if (!double.IsFinite(Target.SlopeVoltsPerC) || Target.SlopeVoltsPerC == 0.0)
             {
-                problems.Add("target.slopeVoltsPerC: must be a finite number other than 0");
+                problems.Add(new("target.slopeVoltsPerC", "must be a finite number other than 0"));
             }
         }
 
         return problems;
     }
 
-    private static void CheckChannel(string path, DacChannelSpec? channel, List<string> problems)
+    private static void CheckChannel(string path, DacChannelSpec? channel, List<SpecProblem> problems)
     {
         if (channel is null)
         {
-            problems.Add($"{path}: missing");
+            problems.Add(new(path, "missing"));
             return;
         }
 
-        if (channel.Min > channel.Max)
+        foreach (var (key, code) in new[] { ("min", channel.Min), ("max", channel.Max), ("nominal", channel.Nominal) })
         {
-            problems.Add($"{path}: min ({channel.Min}) is above max ({channel.Max})");
+            if (DefinitionBounds.DacCode.Refusal(code) is { } reason)
+            {
+                problems.Add(new($"{path}.{key}", reason));
+            }
+        }
+
+        if (channel.Min >= channel.Max)
+        {
+            problems.Add(new($"{path}.min", $"min ({channel.Min}) must be below max ({channel.Max})"));
+        }
+        else if (channel.Nominal < channel.Min || channel.Nominal > channel.Max)
+        {
+            problems.Add(new($"{path}.nominal", $"nominal code {channel.Nominal} is outside {channel.Min} … {channel.Max}"));
         }
 
         if (!double.IsFinite(channel.Step) || channel.Step == 0.0)
         {
-            problems.Add($"{path}.step: must be a finite number other than 0");
+            problems.Add(new($"{path}.step", "must be a finite number other than 0"));
         }
 
-        if (string.IsNullOrWhiteSpace(channel.Register))
+        if (DefinitionBounds.RegisterName.Refusal(channel.Register) is { } register)
         {
-            problems.Add($"{path}.register: must name the register written over the unit link");
+            problems.Add(new($"{path}.register", register));
         }
     }
 }

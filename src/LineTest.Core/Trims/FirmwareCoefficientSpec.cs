@@ -1,5 +1,6 @@
 using System.Globalization;
 using System.Text.Json.Serialization;
+using LineTest.Core.Definitions;
 
 namespace LineTest.Core.Trims;
 
@@ -72,33 +73,33 @@ public sealed record FirmwareCoefficientSpec
         return unchecked((ulong)registerValue) & (Bits == 64 ? ulong.MaxValue : (1UL << Bits) - 1);
     }
 
-    /// <summary>Problems with this register's declaration, each prefixed by <paramref name="path"/>.</summary>
-    public IReadOnlyList<string> Check(string path)
+    /// <summary>Problems with this register's declaration, each with its path relative to the register object.</summary>
+    public IReadOnlyList<SpecProblem> Check()
     {
-        var problems = new List<string>();
-        if (string.IsNullOrWhiteSpace(Register))
+        var problems = new List<SpecProblem>();
+        if (DefinitionBounds.RegisterName.Refusal(Register) is { } register)
         {
-            problems.Add($"{path}.register: must name the register written over the unit link");
+            problems.Add(new("register", register));
         }
 
         if (Bits is < 2 or > MaxBits)
         {
-            problems.Add(string.Create(CultureInfo.InvariantCulture, $"{path}.bits: {Bits} is outside 2…{MaxBits}"));
+            problems.Add(new("bits", string.Create(CultureInfo.InvariantCulture, $"{Bits} is outside 2…{MaxBits}")));
         }
 
         if (FractionalBits is null == Scale is null)
         {
-            problems.Add($"{path}: give exactly one of fractionalBits and scale");
+            problems.Add(new(string.Empty, "give exactly one of fractionalBits and scale"));
         }
 
         if (FractionalBits is { } n && Math.Abs(n) > 200)
         {
-            problems.Add(string.Create(CultureInfo.InvariantCulture, $"{path}.fractionalBits: {n} is not a usable format"));
+            problems.Add(new("fractionalBits", string.Create(CultureInfo.InvariantCulture, $"{n} is not a usable format")));
         }
 
         if (Scale is { } scale && !(scale > 0.0 && double.IsFinite(scale)))
         {
-            problems.Add($"{path}.scale: must be positive");
+            problems.Add(new("scale", "must be positive"));
         }
 
         return problems;

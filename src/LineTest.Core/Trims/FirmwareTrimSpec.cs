@@ -19,41 +19,40 @@ public sealed record FirmwareTrimSpec
     /// <summary>One register per coefficient, c0 first; Order + 1 entries.</summary>
     public required IReadOnlyList<FirmwareCoefficientSpec> Coefficients { get; init; }
 
-    /// <summary>Problems that make the spec unusable, each with its JSON path; empty when the spec is sound.</summary>
-    public IReadOnlyList<string> Check()
+    /// <summary>Problems that make the spec unusable, each with its path relative to the spec; empty when the spec is sound.</summary>
+    public IReadOnlyList<SpecProblem> Check()
     {
-        var problems = new List<string>();
+        var problems = new List<SpecProblem>();
         if (Order is not (1 or 2))
         {
-            problems.Add($"order: {Order} is not 1 (line) or 2 (quadratic)");
+            problems.Add(new("order", $"{Order} is not 1 (line) or 2 (quadratic)"));
         }
 
         if (Coefficients is null)
         {
-            problems.Add("coefficients: missing");
+            problems.Add(new("coefficients", "missing"));
             return problems;
         }
 
         if (Order is 1 or 2 && Coefficients.Count != Order + 1)
         {
-            problems.Add($"coefficients: order {Order} needs {Order + 1} registers, got {Coefficients.Count}");
+            problems.Add(new("coefficients", $"order {Order} needs {Order + 1} registers, got {Coefficients.Count}"));
         }
 
+        var seen = new HashSet<string>(StringComparer.Ordinal);
         for (var i = 0; i < Coefficients.Count; i++)
         {
-            if (Coefficients[i] is null)
+            if (Coefficients[i] is not { } coefficient)
             {
-                problems.Add($"coefficients[{i}]: missing");
+                problems.Add(new($"coefficients[{i}]", "missing"));
                 continue;
             }
 
-            problems.AddRange(Coefficients[i].Check($"coefficients[{i}]"));
-        }
-
-        var duplicates = Coefficients.Where(c => c is not null).GroupBy(c => c.Register, StringComparer.Ordinal).Where(g => g.Count() > 1);
-        foreach (var duplicate in duplicates)
-        {
-            problems.Add($"coefficients: register '{duplicate.Key}' is used more than once");
+            problems.AddRange(coefficient.Check().Select(p => p.Under($"coefficients[{i}]")));
+            if (coefficient.Register is { } register && !seen.Add(register))
+            {
+                problems.Add(new($"coefficients[{i}].register", $"register '{register}' is used more than once"));
+            }
         }
 
         return problems;

@@ -1,3 +1,5 @@
+using LineTest.Core.Definitions;
+
 namespace LineTest.Core.Trims;
 
 /// <summary>
@@ -36,83 +38,91 @@ public sealed record ResistorTrimSpec
     /// <summary>The transfer function the trimmed unit must follow.</summary>
     public required LinearTransfer Target { get; init; }
 
-    /// <summary>Problems that make the spec unusable, each with its JSON path; empty when the spec is sound.</summary>
-    public IReadOnlyList<string> Check()
+    /// <summary>Problems that make the spec unusable, each with its path relative to the spec; empty when the spec is sound.</summary>
+    public IReadOnlyList<SpecProblem> Check()
     {
-        var problems = new List<string>();
+        var problems = new List<SpecProblem>();
         if (!ESeries.TryParse(Series, out _))
         {
-            problems.Add($"series: '{Series}' is not one of E12, E24, E48, E96");
+            problems.Add(new("series", $"'{Series}' is not one of E12, E24, E48, E96"));
         }
 
-        if (!(double.IsFinite(TolerancePercent) && TolerancePercent >= 0.0 && TolerancePercent < 100.0))
+        if (DefinitionBounds.TolerancePercent.Refusal(TolerancePercent) is { } tolerance)
         {
-            problems.Add("tolerancePercent: must be at least 0 and below 100");
+            problems.Add(new("tolerancePercent", tolerance));
         }
 
         if (Gain is null)
         {
-            problems.Add("gain: missing");
+            problems.Add(new("gain", "missing"));
         }
         else
         {
             CheckPosition("gain", Gain.Position, Gain.FittedOhms, Gain.MinOhms, Gain.MaxOhms, problems);
-            if (!(Gain.FeedbackOhms > 0.0 && double.IsFinite(Gain.FeedbackOhms)))
-            {
-                problems.Add("gain.feedbackOhms: must be positive");
-            }
+            Ohms("gain.feedbackOhms", Gain.FeedbackOhms, problems);
         }
 
         if (Offset is null)
         {
-            problems.Add("offset: missing");
+            problems.Add(new("offset", "missing"));
         }
         else
         {
             CheckPosition("offset", Offset.Position, Offset.FittedOhms, Offset.MinOhms, Offset.MaxOhms, problems);
-            if (!(Offset.FeedbackOhms > 0.0 && double.IsFinite(Offset.FeedbackOhms)))
+            Ohms("offset.feedbackOhms", Offset.FeedbackOhms, problems);
+            if (!DefinitionBounds.ReferenceVoltsMagnitude.Admits(Math.Abs(Offset.ReferenceVolts)))
             {
-                problems.Add("offset.feedbackOhms: must be positive");
-            }
-
-            if (!double.IsFinite(Offset.ReferenceVolts) || Offset.ReferenceVolts == 0.0)
-            {
-                problems.Add("offset.referenceVolts: must be a finite number other than 0");
+                problems.Add(new("offset.referenceVolts", $"must be a number other than 0, at most {NumberBound.F(DefinitionBounds.ReferenceVoltsMagnitude.Maximum)} V either way"));
             }
         }
 
         if (Target is null)
         {
-            problems.Add("target: missing");
+            problems.Add(new("target", "missing"));
         }
-        else if (!double.IsFinite(Target.SlopeVoltsPerC) || Target.SlopeVoltsPerC == 0.0 || !double.IsFinite(Target.OffsetVolts))
+        else
         {
-            problems.Add("target: slopeVoltsPerC must be a finite number other than 0 and offsetVolts finite");
+            if (!double.IsFinite(Target.SlopeVoltsPerC) || Target.SlopeVoltsPerC == 0.0)
+            {
+                problems.Add(new("target.slopeVoltsPerC", "must be a finite number other than 0"));
+            }
+
+            if (DefinitionBounds.TransferOffsetVolts.Refusal(Target.OffsetVolts) is { } offset)
+            {
+                problems.Add(new("target.offsetVolts", offset));
+            }
         }
 
         return problems;
     }
 
-    private static void CheckPosition(string path, string position, double? fitted, double min, double max, List<string> problems)
+    private static void CheckPosition(string path, string position, double? fitted, double min, double max, List<SpecProblem> problems)
     {
         if (string.IsNullOrWhiteSpace(position))
         {
-            problems.Add($"{path}.position: must name the board position, e.g. R7");
+            problems.Add(new($"{path}.position", "must name the board position, e.g. R7"));
         }
 
-        if (fitted is { } f && !(f > 0.0 && double.IsFinite(f)))
+        if (fitted is { } f)
         {
-            problems.Add($"{path}.fittedOhms: must be positive, or left out for an open position");
+            Ohms($"{path}.fittedOhms", f, problems, " (or leave it out for an open position)");
         }
 
-        if (!(min > 0.0 && double.IsFinite(min)))
+        var minOk = Ohms($"{path}.minOhms", min, problems);
+        if (Ohms($"{path}.maxOhms", max, problems) && minOk && max < min)
         {
-            problems.Add($"{path}.minOhms: must be positive");
+            problems.Add(new($"{path}.maxOhms", "must be at least minOhms"));
+        }
+    }
+
+    private static bool Ohms(string path, double value, List<SpecProblem> problems, string hint = "")
+    {
+        if (DefinitionBounds.Ohms.Refusal(value) is not { } reason)
+        {
+            return true;
         }
 
-        if (!(double.IsFinite(max) && max >= min))
-        {
-            problems.Add($"{path}.maxOhms: must be at least minOhms");
-        }
+        problems.Add(new(path, reason + hint));
+        return false;
     }
 }

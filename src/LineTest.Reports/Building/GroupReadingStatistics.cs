@@ -8,6 +8,7 @@ namespace LineTest.Reports.Building;
 /// <param name="StdDevWithin">Within standard deviation MR̄/1.128 in run order; null when fewer than 2 values.</param>
 /// <param name="Cpk">Cpk (within σ); null when not defined.</param>
 /// <param name="Ppk">Ppk (overall σ); null when not defined.</param>
+/// <param name="SequenceId">The sequence (product) of the values; null when the source names none.</param>
 public sealed record GroupReadingStatistics(
     string Name,
     int Count,
@@ -15,4 +16,5 @@ public sealed record GroupReadingStatistics(
     double? StdDevOverall,
     double? StdDevWithin,
     double? Cpk,
-    double? Ppk);
+    double? Ppk,
+    string? SequenceId = null);

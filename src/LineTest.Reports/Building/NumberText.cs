@@ -42,6 +42,10 @@ public static class NumberText
         null => NotDefined,
     };
 
+    /// <summary>A rate such as retests per unit: always 2 decimals (0.00, 0.99, 1.13), one format for the column.</summary>
+    public static string Rate(double? value) =>
+        value is { } v && double.IsFinite(v) ? v.ToString("F2", CultureInfo.InvariantCulture) : NotDefined;
+
     /// <summary>A count with thousands separators, e.g. 1,000,000.</summary>
     public static string Count(long value) => value.ToString("N0", CultureInfo.InvariantCulture);
 }

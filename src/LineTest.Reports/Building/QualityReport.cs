@@ -33,6 +33,9 @@ public sealed record QualityReport
     /// <summary>Groups in key order when <see cref="ReportQuery.GroupBy"/> is set; empty otherwise.</summary>
     public required IReadOnlyList<GroupReport> Groups { get; init; }
 
+    /// <summary>Input rows left out (<c>--skip-bad-rows</c>), each "line N: reason"; empty when none.</summary>
+    public IReadOnlyList<string> SkippedRows { get; init; } = [];
+
     /// <summary>Yield per UTC day, oldest first (the yield trend); empty when run times are unknown.</summary>
     public required IReadOnlyList<DailyYield> DailyYield { get; init; }
 }

@@ -11,6 +11,27 @@ public sealed record ReadingStatistics
     /// <summary>Unit symbol.</summary>
     public required string Unit { get; init; }
 
+    /// <summary>The sequence (one product) the values come from; null when the source names none.</summary>
+    public string? SequenceId { get; init; }
+
+    /// <summary>Which product, sequence and revisions the figures cover, e.g. "CTP-40A: ctp40a-dac rev 3".</summary>
+    public string Covers { get; init; } = "all runs";
+
+    /// <summary>
+    /// True when the Anderson–Darling test rejects normality at 5 % (p &lt; 0.05): the normal-based indices and
+    /// expected ppm are then not to be trusted, and <see cref="Percentile"/> is the figure to read.
+    /// </summary>
+    public bool NonNormal => Normality is { PValue: < NormalityAlpha };
+
+    /// <summary>The significance level of the normality flag.</summary>
+    public const double NormalityAlpha = 0.05;
+
+    /// <summary>Percentile-based capability (ISO 22514-2 percentile method); null when <see cref="PercentileNote"/> says why not.</summary>
+    public PercentileCapabilityResult? Percentile { get; init; }
+
+    /// <summary>Why percentile capability was not computed.</summary>
+    public string? PercentileNote { get; init; }
+
     /// <summary>Lower limit (of the latest reading with limits); null for none.</summary>
     public double? Low { get; init; }
 

@@ -1,20 +1,29 @@
+using System.Globalization;
+using System.Runtime.InteropServices;
 using LineTest.Core.Statistics;
 using LineTest.Reports.Loading;
 
 namespace LineTest.Reports.Building;
 
 /// <summary>Computes a <see cref="QualityReport"/> from loaded data with the statistics of LineTest.Core.</summary>
+/// <remarks>
+/// Readings are analysed per (sequence, reading name): a sequence tests one product, and two products' values are
+/// never pooled. In groups, a unit's runs all count in the group of its first run, so the groups' runs and units add
+/// up to the overall table; reading values count in the group of their own run.
+/// </remarks>
 public static class ReportBuilder
 {
     /// <summary>Builds the report. The data's values must be in run order (they are, as loaded).</summary>
     /// <param name="data">Runs and readings.</param>
-    /// <param name="query">Filters used (for the title block) and the grouping.</param>
+    /// <param name="query">Filters used (for the title block), the grouping and whether only first runs count.</param>
     /// <param name="time">Clock for the time the report was made.</param>
     public static QualityReport Build(ReportData data, ReportQuery query, TimeProvider time)
     {
         ArgumentNullException.ThrowIfNull(data);
         ArgumentNullException.ThrowIfNull(query);
         ArgumentNullException.ThrowIfNull(time);
+
+        var firstRuns = query.FirstRunsOnly ? data.Runs.FirstRuns() : null;
 
         // Series are independent and their analysis only reads the loaded data, so a large report uses every core;
         // results go into their series' position, so the order stays the load order.
@@ -23,36 +32,54 @@ public static class ReportBuilder
         var slots = new SlotBiasEntry[series.Count];
         Parallel.For(0, series.Count, i =>
         {
-            readings[i] = Analyze(series[i]);
-            slots[i] = SlotBiasOf(series[i], data.Runs);
+            var (values, kept) = Selected(series[i], firstRuns);
+            var runs = kept is null ? series[i].Runs : kept;
+            readings[i] = Analyze(series[i], values, runs, data);
+            slots[i] = SlotBiasOf(series[i], values, runs, data.Runs);
         });
+
+        var yield = YieldAnalysis.Summarize(data.Runs.Outcomes());
+        if (firstRuns is not null)
+        {
+            // First-pass figures are already about first runs; the Pareto of failures is narrowed to them.
+            var first = YieldAnalysis.Summarize(data.Runs.Outcomes(Indices(firstRuns)));
+            yield = yield with { FailurePareto = first.FailurePareto, ErrorReasons = first.ErrorReasons };
+        }
 
         return new QualityReport
         {
             GeneratedUtc = time.GetUtcNow(),
             Sources = data.Sources,
             Query = query,
-            Yield = YieldAnalysis.Summarize(data.Runs.Outcomes()),
+            Yield = yield,
             Readings = readings,
             Slots = slots,
-            Groups = query.GroupBy == ReportGrouping.None ? [] : Groups(data, query.GroupBy),
+            Groups = query.GroupBy == ReportGrouping.None ? [] : Groups(data, query, firstRuns),
             DailyYield = data.Runs.HasTimes ? Daily(data.Runs) : [],
+            SkippedRows = data.SkippedRows,
         };
     }
 
-    /// <summary>Statistics of one series.</summary>
+    /// <summary>Statistics of one series over all its values.</summary>
     public static ReadingStatistics Analyze(ReadingSeries series)
     {
         ArgumentNullException.ThrowIfNull(series);
-        var values = series.Values;
+        return Analyze(series, series.Values.ToArray(), series.Runs, data: null);
+    }
+
+    private static ReadingStatistics Analyze(ReadingSeries series, double[] values, ReadOnlySpan<int> runs, ReportData? data)
+    {
         var limits = new SpecLimits(series.Low, series.High);
         var capability = Capability.Analyze(values, limits);
         var normality = AndersonDarling.Test(values);
+        var percentile = PercentileCapability.Analyze(values, limits);
         var chart = IndividualsChart.Compute(values);
         return new ReadingStatistics
         {
             Name = series.Name,
             Unit = series.Unit,
+            SequenceId = series.SequenceId,
+            Covers = data is null ? Describe(series.SequenceId, null, []) : CoversOf(series, runs, data),
             Low = series.Low,
             High = series.High,
             LimitsChanged = series.LimitsChanged,
@@ -60,33 +87,103 @@ public static class ReportBuilder
             Capability = capability,
             Normality = normality.Value,
             NormalityNote = normality.Reason,
+            Percentile = percentile.Value,
+            PercentileNote = percentile.Reason,
             Chart = chart.Value,
             ChartNote = chart.Reason,
-            Values = values.ToArray(),
+            Values = values,
         };
     }
 
-    private static SlotBiasEntry SlotBiasOf(ReadingSeries series, RunTable runs)
+    /// <summary>The values analysed and, when only some are kept, their runs (null: all of the series' runs).</summary>
+    private static (double[] Values, int[]? Runs) Selected(ReadingSeries series, bool[]? firstRuns)
     {
-        var runIndices = series.Runs;
-        var slotOf = new int[runIndices.Length];
-        for (var i = 0; i < slotOf.Length; i++)
+        var values = series.Values;
+        var runs = series.Runs;
+        if (firstRuns is null)
         {
-            slotOf[i] = runs.Slot(runIndices[i]);
+            return (values.ToArray(), null);
         }
 
-        var outcome = SlotBias.Analyze(slotOf, series.Values);
-        return new SlotBiasEntry(series.Name, series.Unit, outcome.Value, outcome.Reason);
+        var keptValues = new List<double>(values.Length);
+        var keptRuns = new List<int>(values.Length);
+        for (var i = 0; i < values.Length; i++)
+        {
+            if (firstRuns[runs[i]])
+            {
+                keptValues.Add(values[i]);
+                keptRuns.Add(runs[i]);
+            }
+        }
+
+        return (keptValues.ToArray(), keptRuns.ToArray());
     }
 
-    private static (List<string> Keys, int[] GroupOfRun) Partition(RunTable runs, ReportGrouping grouping)
+    private static string CoversOf(ReadingSeries series, ReadOnlySpan<int> runs, ReportData data)
+    {
+        var revisions = new SortedSet<int>();
+        foreach (var run in runs)
+        {
+            if (data.Runs.Revision(run) is { } revision)
+            {
+                revisions.Add(revision);
+            }
+        }
+
+        var product = series.SequenceId is { } id && data.Products.TryGetValue(id, out var p) ? p : null;
+        return Describe(series.SequenceId, product, revisions);
+    }
+
+    private static string Describe(string? sequenceId, string? product, IReadOnlyCollection<int> revisions)
+    {
+        if (sequenceId is null)
+        {
+            return "runs without a sequence id (products cannot be told apart)";
+        }
+
+        var text = product is null ? sequenceId : $"{product}: {sequenceId}";
+        return revisions.Count switch
+        {
+            0 => text,
+            1 => string.Create(CultureInfo.InvariantCulture, $"{text} rev {revisions.First()}"),
+            _ => $"{text} revs {string.Join(", ", revisions.Select(r => r.ToString(CultureInfo.InvariantCulture)))}",
+        };
+    }
+
+    private static SlotBiasEntry SlotBiasOf(ReadingSeries series, double[] values, ReadOnlySpan<int> runs, RunTable table)
+    {
+        var slotOf = new int[runs.Length];
+        for (var i = 0; i < slotOf.Length; i++)
+        {
+            slotOf[i] = table.Slot(runs[i]);
+        }
+
+        var outcome = SlotBias.Analyze(slotOf, values);
+        return new SlotBiasEntry(series.Name, series.Unit, outcome.Value, outcome.Reason) { SequenceId = series.SequenceId };
+    }
+
+    private static List<int> Indices(bool[] flags)
+    {
+        var list = new List<int>();
+        for (var i = 0; i < flags.Length; i++)
+        {
+            if (flags[i])
+            {
+                list.Add(i);
+            }
+        }
+
+        return list;
+    }
+
+    private static (List<string> Keys, int[] GroupOfRun) Partition(RunTable runs, ReportGrouping grouping, NamedShifts? shifts)
     {
         var ids = new Dictionary<string, int>(StringComparer.Ordinal);
         var keys = new List<string>();
         var groupOfRun = new int[runs.Count];
         for (var r = 0; r < runs.Count; r++)
         {
-            var key = runs.GroupKey(r, grouping);
+            var key = runs.GroupKey(r, grouping, shifts);
             if (!ids.TryGetValue(key, out var id))
             {
                 id = keys.Count;
@@ -98,6 +195,28 @@ public static class ReportBuilder
         }
 
         return (keys, groupOfRun);
+    }
+
+    /// <summary>Each run's group for yield: the group of its unit's first run, so every unit is in exactly one group.</summary>
+    private static int[] UnitGroups(RunTable runs, int[] groupOfRun)
+    {
+        var first = runs.FirstRuns();
+        var groupOfSerial = new Dictionary<string, int>(StringComparer.Ordinal);
+        for (var r = 0; r < runs.Count; r++)
+        {
+            if (first[r])
+            {
+                groupOfSerial[runs.Serial(r)] = groupOfRun[r];
+            }
+        }
+
+        var unitGroup = new int[runs.Count];
+        for (var r = 0; r < runs.Count; r++)
+        {
+            unitGroup[r] = groupOfSerial[runs.Serial(r)];
+        }
+
+        return unitGroup;
     }
 
     private static List<int>[] RunsByGroup(int groupCount, int[] groupOfRun)
@@ -116,10 +235,10 @@ public static class ReportBuilder
         return runsOf;
     }
 
-    private static List<GroupReport> Groups(ReportData data, ReportGrouping grouping)
+    private static List<GroupReport> Groups(ReportData data, ReportQuery query, bool[]? firstRuns)
     {
-        var (keys, groupOfRun) = Partition(data.Runs, grouping);
-        var runsOf = RunsByGroup(keys.Count, groupOfRun);
+        var (keys, groupOfRun) = Partition(data.Runs, query.GroupBy, query.Shifts);
+        var runsOf = RunsByGroup(keys.Count, UnitGroups(data.Runs, groupOfRun));
 
         // Per group and reading, the values in run order: one pass over each series.
         var perGroup = new List<GroupReadingStatistics>[keys.Count];
@@ -135,8 +254,11 @@ public static class ReportBuilder
             var runIndices = series.Runs;
             for (var i = 0; i < values.Length; i++)
             {
-                var g = groupOfRun[runIndices[i]];
-                (buckets[g] ??= []).Add(values[i]);
+                if (firstRuns is null || firstRuns[runIndices[i]])
+                {
+                    var g = groupOfRun[runIndices[i]];
+                    (buckets[g] ??= []).Add(values[i]);
+                }
             }
 
             var limits = new SpecLimits(series.Low, series.High);
@@ -147,25 +269,26 @@ public static class ReportBuilder
                     continue;
                 }
 
-                var c = Capability.Analyze(System.Runtime.InteropServices.CollectionsMarshal.AsSpan(bucket), limits);
-                perGroup[g].Add(new GroupReadingStatistics(series.Name, c.Count, c.Mean, c.StdDevOverall, c.StdDevWithin, c.Cpk, c.Ppk));
+                var c = Capability.Analyze(CollectionsMarshal.AsSpan(bucket), limits);
+                perGroup[g].Add(new GroupReadingStatistics(series.Name, c.Count, c.Mean, c.StdDevOverall, c.StdDevWithin, c.Cpk, c.Ppk, series.SequenceId));
             }
         }
 
         var groups = new List<GroupReport>(keys.Count);
         for (var g = 0; g < keys.Count; g++)
         {
+            // A group whose units all started in another group has no runs of its own for yield.
             groups.Add(new GroupReport(keys[g], YieldAnalysis.Summarize(data.Runs.Outcomes(runsOf[g])), perGroup[g]));
         }
 
-        groups.Sort((a, b) => RunTable.CompareGroupKeys(grouping, a.Key, b.Key));
+        groups.Sort((a, b) => RunTable.CompareGroupKeys(query.GroupBy, a.Key, b.Key));
         return groups;
     }
 
     private static List<DailyYield> Daily(RunTable runs)
     {
-        var (keys, groupOfRun) = Partition(runs, ReportGrouping.Day);
-        var runsOf = RunsByGroup(keys.Count, groupOfRun);
+        var (keys, groupOfRun) = Partition(runs, ReportGrouping.Day, null);
+        var runsOf = RunsByGroup(keys.Count, UnitGroups(runs, groupOfRun));
         var days = new List<DailyYield>(keys.Count);
         for (var g = 0; g < keys.Count; g++)
         {

@@ -39,10 +39,9 @@ public static class IndividualsChartPlot
         data.LineWidth = 1;
         data.MarkerSize = xs.Length > 300 ? 0 : 3;
 
-        var right = xs.Length > 0 ? xs[^1] : 1;
-        AddLevel(plot, chart.UpperControlLimit, ChartColors.Control, LinePattern.Dashed, "UCL", right);
-        AddLevel(plot, chart.Centre, ChartColors.Centre, LinePattern.Solid, "X̄", right);
-        AddLevel(plot, chart.LowerControlLimit, ChartColors.Control, LinePattern.Dashed, "LCL", right);
+        AddLevel(plot, chart.UpperControlLimit, ChartColors.Control, LinePattern.Dashed, "UCL");
+        AddLevel(plot, chart.Centre, ChartColors.Centre, LinePattern.Solid, "X̄");
+        AddLevel(plot, chart.LowerControlLimit, ChartColors.Control, LinePattern.Dashed, "LCL");
 
         var signalled = new SortedSet<int>();
         foreach (var signal in chart.Signals)
@@ -65,26 +64,21 @@ public static class IndividualsChartPlot
         {
             var markers = plot.Add.Markers(mx.ToArray(), my.ToArray(), MarkerShape.OpenCircle, 9, ChartColors.Signal);
             markers.MarkerLineWidth = 2;
-            markers.LegendText = "Run-rule signal";
-            plot.ShowLegend(Alignment.UpperLeft);
+            markers.LegendText = "Run-rule signal (rules under the chart)";
         }
+
+        plot.ShowLegend(Alignment.UpperLeft);
 
         plot.Axes.Bottom.Label.Text = first > 0 ? $"Run (latest {MaxPoints:N0} of {all.Length:N0})" : "Run";
         plot.Axes.Left.Label.Text = string.IsNullOrEmpty(reading.Unit) ? reading.Name : reading.Unit;
         return plot;
     }
 
-    private static void AddLevel(Plot plot, double y, Color color, LinePattern pattern, string label, double right)
+    private static void AddLevel(Plot plot, double y, Color color, LinePattern pattern, string label)
     {
-        plot.Add.HorizontalLine(y, 1.5f, color, pattern);
+        var line = plot.Add.HorizontalLine(y, 1.5f, color, pattern);
 
-        // Label at the right end, inside the data area, where it cannot be cut off at the figure edge.
-        var text = plot.Add.Text($"{label} {NumberText.Value(y)}", right, y);
-        text.LabelFontColor = color;
-        text.LabelBold = true;
-        text.LabelFontSize = 11;
-        text.LabelBackgroundColor = Colors.White.WithAlpha(0.8);
-        text.LabelAlignment = Alignment.LowerRight;
-        text.OffsetY = -2;
+        // The value goes in the legend: three labels on lines a few pixels apart would overlap.
+        line.LegendText = $"{label} {NumberText.Value(y)}";
     }
 }

@@ -17,6 +17,7 @@ public static class ReadingStatisticsCsvWriter
         "name", "unit", "low", "high", "n", "missing", "mean", "stdevOverall", "stdevWithin",
         "cp", "cpLower95", "cpUpper95", "cpk", "cpkLower95", "cpkUpper95", "pp", "ppk",
         "ppmObserved", "ppmExpected", "adStatistic", "normalityP", "lcl", "centre", "ucl", "signals", "slotF", "slotP",
+        "sequence", "covers", "nonNormal", "ppPercentile", "ppkPercentile", "withinDf", "signalRules", "skippedRows",
     ];
 
     private static readonly CsvConfiguration Rfc4180 = new(CultureInfo.InvariantCulture) { NewLine = "\r\n", Delimiter = ",", Quote = '"' };
@@ -47,6 +48,8 @@ public static class ReadingStatisticsCsvWriter
                 N(r.Chart?.LowerControlLimit), N(r.Chart?.Centre), N(r.Chart?.UpperControlLimit),
                 r.Chart is { } chart ? SignalLabels.Summary(chart.Signals, "=") : string.Empty,
                 N(slots?.FStatistic), N(slots?.PValue),
+                r.SequenceId, r.Covers, r.NonNormal ? "true" : "false", N(r.Percentile?.Pp), N(r.Percentile?.Ppk), N(c.WithinDegreesOfFreedom),
+                Legend(r), report.SkippedRows.Count.ToString(CultureInfo.InvariantCulture),
             ];
             foreach (var field in fields)
             {
@@ -57,6 +60,18 @@ public static class ReadingStatisticsCsvWriter
         }
 
         csv.Flush();
+    }
+
+    /// <summary>The meaning of each signal code in this row's signals column (the legend, row by row).</summary>
+    private static string Legend(ReadingStatistics r)
+    {
+        if (r.Chart is not { Signals.Count: > 0 } chart)
+        {
+            return string.Empty;
+        }
+
+        var codes = chart.Signals.Select(SignalLabels.Label).ToHashSet(StringComparer.Ordinal);
+        return string.Join("; ", SignalLabels.Legend.Where(l => codes.Contains(l.Label)).Select(l => $"{l.Label}: {l.Rule}"));
     }
 
     private static string N(double? value) =>

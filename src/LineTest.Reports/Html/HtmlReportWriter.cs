@@ -35,15 +35,19 @@ public static class HtmlReportWriter
         Failures(h, report);
         Trend(h, report);
         Overview(h, report);
+        var label = ReportText.Labeller(report);
         foreach (var (reading, i) in report.Readings.Select((r, i) => (r, i)))
         {
-            ReadingSection(h, reading, report.Slots[i], i + 1);
+            ReadingSection(h, reading, report.Slots[i], i + 1, label(reading));
         }
 
         Groups(h, report);
         h.Append("<footer>Capability: Cp, Cpk from the within σ (average moving range / 1.128, run order); Pp, Ppk and expected ppm from the overall σ. ")
-            .Append("95 % bounds: chi-square on Cp, Bissell (1990) on Cpk. Normality: Anderson–Darling A*² with its p-value. ")
-            .Append("Run rules: WE1–WE4 Western Electric (1956), N1–N8 Nelson (1984). A dash marks a value that is not defined.</footer>\n");
+            .Append("95 % bounds: chi-square on Cp, Bissell (1990) on Cpk, with the effective degrees of freedom of the moving-range σ (about 0.6(n − 1)). ")
+            .Append("Normality: Anderson–Darling A*² with its p-value; ! marks p < 0.05, where Ppk pct (ISO 22514-2 percentile method) is the figure to read. ")
+            .Append("Run rules: WE1–WE4 Western Electric (1956), N1–N8 Nelson (1984): ")
+            .Append(E(string.Join("; ", SignalLabels.Legend.Select(l => $"{l.Label} {l.Rule}"))))
+            .Append(". A dash marks a value that is not defined.</footer>\n");
         h.Append("</main>\n</body>\n</html>\n");
         writer.Write(h.ToString());
     }
@@ -75,6 +79,7 @@ public static class HtmlReportWriter
         th:first-child, td:first-child { text-align: left; white-space: normal; }
         th { background: #eef2f6; font-weight: 600; }
         td.low { color: var(--bad); font-weight: 600; }
+        .bad { color: var(--bad); }
         td.sig { white-space: normal; text-align: left; font-size: 11px; min-width: 9em; }
         figure { margin: 10px 0; }
         figure img { display: block; width: 100%; max-width: 100%; height: auto; border: 1px solid var(--line); border-radius: 4px; }
@@ -108,7 +113,14 @@ public static class HtmlReportWriter
 
         h.Append("</p>\n<p class=\"meta\"><b>Made:</b> ")
             .Append(E(report.GeneratedUtc.UtcDateTime.ToString("yyyy-MM-dd HH:mm", CultureInfo.InvariantCulture))).Append(" UTC · <b>from</b> ")
-            .Append(E(string.Join(", ", report.Sources))).Append("</p>\n</header>\n");
+            .Append(E(string.Join(", ", report.Sources))).Append("</p>\n");
+        if (report.SkippedRows.Count > 0)
+        {
+            h.Append("<p class=\"meta\"><b>Skipped ").Append(NumberText.Count(report.SkippedRows.Count)).Append(" bad input row(s):</b> ")
+                .Append(E(string.Join("; ", report.SkippedRows.Take(50)))).Append(report.SkippedRows.Count > 50 ? " …" : string.Empty).Append("</p>\n");
+        }
+
+        h.Append("</header>\n");
     }
 
     private static void Summary(StringBuilder h, QualityReport report)
@@ -118,7 +130,7 @@ public static class HtmlReportWriter
         Tile(h, "First-pass yield", NumberText.Percent(y.FirstPassYield));
         Tile(h, "Final yield", NumberText.Percent(y.FinalYield));
         Tile(h, "Units / runs", $"{NumberText.Count(y.Units)} / {NumberText.Count(y.Runs)}");
-        Tile(h, "Retests per unit", NumberText.Value(y.RetestRate));
+        Tile(h, "Retests per unit", NumberText.Rate(y.RetestRate));
         Tile(h, "Runs in error", NumberText.Percent(y.ErrorRate));
         Tile(h, "Pass / fail / error runs", $"{NumberText.Count(y.PassRuns)} / {NumberText.Count(y.FailRuns)} / {NumberText.Count(y.ErrorRuns)}");
         h.Append("</div>\n");
@@ -170,58 +182,71 @@ public static class HtmlReportWriter
             return;
         }
 
-        h.Append("<table>\n<tr><th>Reading</th><th>n</th><th>Mean</th><th>SD overall</th><th>Cpk</th><th>Cpk 95 %</th><th>Ppk</th><th>ppm obs</th><th>ppm exp</th><th>Signals</th></tr>\n");
+        var label = ReportText.Labeller(report);
+        h.Append("<table>\n<tr><th>Reading</th><th>Covers</th><th>n</th><th>Mean</th><th>SD overall</th><th>Cpk</th><th>Cpk 95 %</th><th>Ppk</th><th>Ppk pct</th><th>ppm obs</th><th>ppm exp</th><th>Signals</th></tr>\n");
         foreach (var r in report.Readings)
         {
             var c = r.Capability;
-            h.Append("<tr><td>").Append(E(r.Name)).Append(string.IsNullOrEmpty(r.Unit) ? string.Empty : $" <small>({E(r.Unit)})</small>").Append("</td>");
+            var format = ReportText.ValueFormat(r);
+            h.Append("<tr><td>").Append(E(label(r))).Append(string.IsNullOrEmpty(r.Unit) ? string.Empty : $" <small>({E(r.Unit)})</small>")
+                .Append(r.NonNormal ? " <b class=\"bad\" title=\"not normal: Anderson–Darling p &lt; 0.05\">!</b>" : string.Empty).Append("</td>");
+            h.Append("<td><small>").Append(E(r.Covers)).Append("</small></td>");
             Cell(h, NumberText.Count(r.Count));
-            Cell(h, NumberText.Value(c.Mean));
-            Cell(h, NumberText.Value(c.StdDevOverall));
+            Cell(h, format(c.Mean));
+            Cell(h, format(c.StdDevOverall));
             Cell(h, NumberText.Index(c.Cpk), c.Cpk < 1.33);
             Cell(h, c.CpkInterval is { } ci ? $"{NumberText.Index(ci.Lower)}–{NumberText.Index(ci.Upper)}" : NumberText.NotDefined);
             Cell(h, NumberText.Index(c.Ppk), c.Ppk < 1.33);
+            Cell(h, NumberText.Index(r.Percentile?.Ppk), r.Percentile?.Ppk < 1.33);
             Cell(h, NumberText.Ppm(c.ObservedPpmTotal));
             Cell(h, NumberText.Ppm(c.ExpectedPpmTotal));
             h.Append("<td class=\"sig\">").Append(E(r.Chart is { } chart ? SignalLabels.Summary(chart.Signals) : NumberText.NotDefined)).Append("</td>");
             h.Append("</tr>\n");
         }
 
-        h.Append("</table>\n<p class=\"meta\">Indices below 1.33, a usual minimum for an established process, are shown in red.</p>\n");
+        h.Append("</table>\n<p class=\"meta\">Indices below 1.33, a usual minimum for an established process, are shown in red. ");
+        foreach (var note in ReportText.CapabilityNotes(report))
+        {
+            h.Append(E(note)).Append(' ');
+        }
+
+        h.Append("</p>\n");
     }
 
-    private static void ReadingSection(StringBuilder h, ReadingStatistics r, SlotBiasEntry slots, int number)
+    private static void ReadingSection(StringBuilder h, ReadingStatistics r, SlotBiasEntry slots, int number, string name)
     {
         var c = r.Capability;
-        h.Append("<section class=\"reading\">\n<h3>").Append(number.ToString(CultureInfo.InvariantCulture)).Append(". ").Append(E(r.Name));
+        var format = ReportText.ValueFormat(r);
+        h.Append("<section class=\"reading\">\n<h3>").Append(number.ToString(CultureInfo.InvariantCulture)).Append(". ").Append(E(name));
         if (!string.IsNullOrEmpty(r.Unit))
         {
             h.Append(" <small>(").Append(E(r.Unit)).Append(")</small>");
         }
 
-        h.Append("</h3>\n<div class=\"figures\"><dl>\n");
+        h.Append("</h3>\n<p class=\"meta\">Covers ").Append(E(r.Covers)).Append(r.NonNormal ? " · <b class=\"bad\">! not normal (Anderson–Darling p &lt; 0.05): read Ppk pct</b>" : string.Empty).Append("</p>\n<div class=\"figures\"><dl>\n");
         Pair(h, "Limits", $"{NumberText.Value(r.Low)} … {NumberText.Value(r.High)}");
         Pair(h, "n", NumberText.Count(r.Count) + (r.Missing > 0 ? $" (+{NumberText.Count(r.Missing)} missing)" : string.Empty));
-        Pair(h, "Mean", NumberText.Value(c.Mean));
-        Pair(h, "SD overall / within", $"{NumberText.Value(c.StdDevOverall)} / {NumberText.Value(c.StdDevWithin)}");
+        Pair(h, "Mean", format(c.Mean));
+        Pair(h, "SD overall / within", $"{format(c.StdDevOverall)} / {format(c.StdDevWithin)}");
         Pair(h, "Cp", c.CpInterval is { } cpi ? $"{NumberText.Index(c.Cp)} ({NumberText.Index(cpi.Lower)}–{NumberText.Index(cpi.Upper)})" : NumberText.Index(c.Cp));
         Pair(h, "Cpk", c.CpkInterval is { } cki ? $"{NumberText.Index(c.Cpk)} ({NumberText.Index(cki.Lower)}–{NumberText.Index(cki.Upper)})" : NumberText.Index(c.Cpk));
         Pair(h, "Pp / Ppk", $"{NumberText.Index(c.Pp)} / {NumberText.Index(c.Ppk)}");
+        Pair(h, "Pp / Ppk pct", r.Percentile is { } pct ? $"{NumberText.Index(pct.Pp)} / {NumberText.Index(pct.Ppk)}" : NumberText.NotDefined);
         Pair(h, "ppm obs / exp", $"{NumberText.Ppm(c.ObservedPpmTotal)} / {NumberText.Ppm(c.ExpectedPpmTotal)}");
         Pair(h, "A*² / p", r.Normality is { } ad ? $"{NumberText.Value(ad.AStarSquared)} / {NumberText.P(ad.PValue)}" : NumberText.NotDefined);
         Pair(h, "Slot bias F / p", slots.Result is { } s ? $"{NumberText.Value(s.FStatistic)} / {NumberText.P(s.PValue)}" : NumberText.NotDefined);
-        Pair(h, "UCL / LCL", r.Chart is { } ch ? $"{NumberText.Value(ch.UpperControlLimit)} / {NumberText.Value(ch.LowerControlLimit)}" : NumberText.NotDefined);
+        Pair(h, "UCL / LCL", r.Chart is { } ch ? $"{format(ch.UpperControlLimit)} / {format(ch.LowerControlLimit)}" : NumberText.NotDefined);
         Pair(h, "Signals", r.Chart is { } chs ? SignalLabels.Summary(chs.Signals) : NumberText.NotDefined);
         h.Append("</dl></div>\n");
 
         if (HistogramChart.Create(r) is { } histogram)
         {
-            Figure(h, ChartImage.PngDataUri(histogram, ChartWidth, ChartHeight), $"Histogram of {r.Name}", "Histogram with the specification limits (dashed), the mean (dotted) and the fitted normal curve.");
+            Figure(h, ChartImage.PngDataUri(histogram, ChartWidth, ChartHeight), $"Histogram of {name}", "Histogram with the specification limits (dashed), the mean (dotted) and the fitted normal curve; bars span the bulk of the data, values beyond them are counted in the end bars.");
         }
 
         if (IndividualsChartPlot.Create(r) is { } control)
         {
-            Figure(h, ChartImage.PngDataUri(control, ChartWidth, ChartHeight), $"Individuals chart of {r.Name}", "Individuals chart in run order with control limits X̄ ± 2.66·MR̄; circled points end a run-rule pattern.");
+            Figure(h, ChartImage.PngDataUri(control, ChartWidth, ChartHeight), $"Individuals chart of {name}", "Individuals chart in run order with control limits X̄ ± 2.66·MR̄; circled points end a run-rule pattern.");
         }
 
         if (slots.Result is { } bias)
@@ -231,7 +256,7 @@ public static class HtmlReportWriter
             {
                 h.Append("<tr><td>").Append(g.Slot.ToString(CultureInfo.InvariantCulture)).Append("</td>");
                 Cell(h, NumberText.Count(g.Count));
-                Cell(h, NumberText.Value(g.Mean));
+                Cell(h, format(g.Mean));
                 Cell(h, NumberText.Offset(g.OffsetFromGrandMean));
                 h.Append("</tr>\n");
             }
@@ -276,6 +301,7 @@ public static class HtmlReportWriter
         }
 
         var by = report.Query.GroupBy.ToString().ToLowerInvariant();
+        var label = ReportText.Labeller(report);
         h.Append("<h2>By ").Append(E(by)).Append("</h2>\n<table>\n<tr><th>").Append(E(by)).Append("</th><th>Runs</th><th>Units</th><th>First pass</th><th>Final</th><th>Retests/unit</th><th>Errors</th></tr>\n");
         foreach (var g in report.Groups)
         {
@@ -285,20 +311,22 @@ public static class HtmlReportWriter
             Cell(h, NumberText.Count(y.Units));
             Cell(h, NumberText.Percent(y.FirstPassYield));
             Cell(h, NumberText.Percent(y.FinalYield));
-            Cell(h, NumberText.Value(y.RetestRate));
+            Cell(h, NumberText.Rate(y.RetestRate));
             Cell(h, NumberText.Percent(y.ErrorRate));
             h.Append("</tr>\n");
         }
 
-        h.Append("</table>\n<table>\n<tr><th>").Append(E(by)).Append(" · reading</th><th>n</th><th>Mean</th><th>SD overall</th><th>Cpk</th><th>Ppk</th></tr>\n");
+        h.Append("</table>\n<p class=\"meta\">A unit's runs count in the group of its first run, so the groups add up to the overall figures.</p>\n<table>\n<tr><th>").Append(E(by)).Append(" · reading</th><th>n</th><th>Mean</th><th>SD overall</th><th>Cpk</th><th>Ppk</th></tr>\n");
         foreach (var g in report.Groups)
         {
             foreach (var r in g.Readings)
             {
-                h.Append("<tr><td>").Append(E(g.Key)).Append(" · ").Append(E(r.Name)).Append("</td>");
+                var whole = report.Readings.FirstOrDefault(x => x.Name == r.Name && x.SequenceId == r.SequenceId);
+                var format = whole is null ? NumberText.Value : ReportText.ValueFormat(whole);
+                h.Append("<tr><td>").Append(E(g.Key)).Append(" · ").Append(E(whole is null ? r.Name : label(whole))).Append("</td>");
                 Cell(h, NumberText.Count(r.Count));
-                Cell(h, NumberText.Value(r.Mean));
-                Cell(h, NumberText.Value(r.StdDevOverall));
+                Cell(h, format(r.Mean));
+                Cell(h, format(r.StdDevOverall));
                 Cell(h, NumberText.Index(r.Cpk), r.Cpk < 1.33);
                 Cell(h, NumberText.Index(r.Ppk), r.Ppk < 1.33);
                 h.Append("</tr>\n");

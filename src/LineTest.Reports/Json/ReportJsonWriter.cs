@@ -14,7 +14,7 @@ public static class ReportJsonWriter
 {
     /// <summary>Top-level keys, in order.</summary>
     public static IReadOnlyList<string> TopLevelKeys { get; } =
-        ["title", "generatedUtc", "sources", "filters", "yield", "pareto", "errors", "readings", "slots", "groups", "dailyYield"];
+        ["title", "generatedUtc", "sources", "filters", "yield", "pareto", "errors", "readings", "slots", "groups", "dailyYield", "skippedRows", "signalLegend"];
 
     /// <summary>Writes the report to <paramref name="stream"/> (UTF-8, indented).</summary>
     public static void Write(QualityReport report, Stream stream)
@@ -84,6 +84,20 @@ public static class ReportJsonWriter
         }
 
         json.WriteEndArray();
+        json.WriteStartArray("skippedRows");
+        foreach (var row in report.SkippedRows)
+        {
+            json.WriteStringValue(row);
+        }
+
+        json.WriteEndArray();
+        json.WriteStartObject("signalLegend");
+        foreach (var (label, rule) in SignalLabels.Legend)
+        {
+            json.WriteString(label, rule);
+        }
+
+        json.WriteEndObject();
         json.WriteEndObject();
         json.Flush();
     }
@@ -159,6 +173,25 @@ public static class ReportJsonWriter
         Number(json, "ppmExpected", c.ExpectedPpmTotal);
         Number(json, "adStatistic", r.Normality?.AStarSquared);
         Number(json, "normalityP", r.Normality?.PValue);
+        Text(json, "sequence", r.SequenceId);
+        json.WriteString("covers", r.Covers);
+        json.WriteBoolean("nonNormal", r.NonNormal);
+        Number(json, "withinDf", c.WithinDegreesOfFreedom);
+        if (r.Percentile is { } pct)
+        {
+            json.WriteStartObject("percentile");
+            json.WriteNumber("p00135", pct.Lower);
+            json.WriteNumber("median", pct.Median);
+            json.WriteNumber("p99865", pct.Upper);
+            Number(json, "pp", pct.Pp);
+            Number(json, "ppk", pct.Ppk);
+            json.WriteBoolean("extremesInterpolated", pct.ExtremesInterpolated);
+            json.WriteEndObject();
+        }
+        else
+        {
+            json.WriteNull("percentile");
+        }
         if (r.Chart is { } chart)
         {
             json.WriteStartObject("controlLimits");
@@ -215,6 +248,21 @@ public static class ReportJsonWriter
             yield return r.NormalityNote;
         }
 
+        if (r.NonNormal)
+        {
+            yield return "Not normal (Anderson–Darling p < 0.05): the normal-based indices and expected ppm are not to be trusted; read the percentile Ppk (ISO 22514-2 percentile method).";
+        }
+
+        if (r.Percentile is { ExtremesInterpolated: true })
+        {
+            yield return "Percentile capability from fewer than 741 values: the 0.135 % and 99.865 % points lie at the sample's edge, so it reads high.";
+        }
+
+        if (r.HasLimits && r.PercentileNote is not null)
+        {
+            yield return r.PercentileNote;
+        }
+
         if (r.ChartNote is not null)
         {
             yield return r.ChartNote;
@@ -225,6 +273,7 @@ public static class ReportJsonWriter
     {
         json.WriteStartObject();
         json.WriteString("name", entry.Name);
+        Text(json, "sequence", entry.SequenceId);
         json.WriteString("unit", entry.Unit);
         var r = entry.Result;
         Number(json, "f", r?.FStatistic);
@@ -270,6 +319,7 @@ public static class ReportJsonWriter
             {
                 json.WriteStartObject();
                 json.WriteString("name", r.Name);
+                Text(json, "sequence", r.SequenceId);
                 json.WriteNumber("n", r.Count);
                 Number(json, "mean", r.Mean);
                 Number(json, "stdevOverall", r.StdDevOverall);

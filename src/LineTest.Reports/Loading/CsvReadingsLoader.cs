@@ -1,6 +1,7 @@
 using System.Globalization;
 using CsvHelper;
 using CsvHelper.Configuration;
+using LineTest.Core.Decisions;
 using LineTest.Core.Results;
 
 namespace LineTest.Reports.Loading;
@@ -8,7 +9,7 @@ namespace LineTest.Reports.Loading;
 /// <summary>
 /// Reads report data from a readings CSV: a header row with the columns <c>serial</c>, <c>name</c>,
 /// <c>value</c>, <c>unit</c>, <c>low</c>, <c>high</c> and optionally <c>time</c>, <c>station</c>, <c>slot</c>,
-/// <c>lot</c>, <c>verdict</c> (and, as <c>linetest export</c> writes them, <c>run_id</c>, <c>run_verdict</c>,
+/// <c>lot</c>, <c>operator</c>, <c>verdict</c> (and, as <c>linetest export</c> writes them, <c>run_id</c>, <c>run_verdict</c>,
 /// <c>sequence_id</c>, <c>sequence_revision</c>; <c>ended_utc</c> is read as <c>time</c>).
 /// </summary>
 /// <remarks>
@@ -95,6 +96,9 @@ public static class CsvReadingsLoader
         data.AddSource(source);
         data.Runs.HasTimes = columns.ContainsKey("time");
         var builder = new RunBuilder(data, query);
+
+        // The same filter the database loader hands to SQL, applied to each row's run columns.
+        var filter = query.ToRunFilter();
         var headerCount = csv.HeaderRecord!.Length;
         while (true)
         {
@@ -133,9 +137,10 @@ public static class CsvReadingsLoader
                 continue;
             }
 
-            if (Matches(parsed.Value, query))
+            var row = parsed.Value;
+            if (filter.Matches(row.Time, row.Station, row.Slot, row.Lot, row.SequenceId, row.Revision, row.Serial))
             {
-                builder.Add(parsed.Value);
+                builder.Add(row);
             }
         }
 
@@ -177,7 +182,8 @@ public static class CsvReadingsLoader
     {
         var needs = new List<(bool Asked, string Option, string Column)>
         {
-            (query.FromUtc.HasValue || query.ToUtc.HasValue || query.GroupBy == ReportGrouping.Day, "--from, --to and --by day", "time"),
+            (query.FromUtc.HasValue || query.ToUtc.HasValue || query.GroupBy is ReportGrouping.Day or ReportGrouping.Shift, "--from, --to, --by day and --by shift", "time"),
+            (query.GroupBy == ReportGrouping.Operator, "--by operator", "operator"),
             (query.Station is not null || query.GroupBy == ReportGrouping.Station, "--station and --by station", "station"),
             (query.Slot.HasValue || query.GroupBy == ReportGrouping.Slot, "--slot and --by slot", "slot"),
             (query.Lot is not null || query.GroupBy == ReportGrouping.Lot, "--lot and --by lot", "lot"),
@@ -283,7 +289,8 @@ public static class CsvReadingsLoader
             revision,
             verdict,
             runVerdict,
-            NullIfEmpty(Field("run_id")));
+            NullIfEmpty(Field("run_id")),
+            NullIfEmpty(Field("operator")));
     }
 
     private static string? NullIfEmpty(string? text) => string.IsNullOrEmpty(text) ? null : text;
@@ -324,15 +331,6 @@ public static class CsvReadingsLoader
         return true;
     }
 
-    private static bool Matches(CsvRow row, ReportQuery query) =>
-        (query.FromUtc is not { } from || row.Time >= from)
-        && (query.ToUtc is not { } to || row.Time < to)
-        && (query.Station is null || string.Equals(row.Station, query.Station, StringComparison.Ordinal))
-        && (query.Slot is not { } slot || row.Slot == slot)
-        && (query.Lot is null || string.Equals(row.Lot, query.Lot, StringComparison.Ordinal))
-        && (query.SequenceId is null || string.Equals(row.SequenceId, query.SequenceId, StringComparison.Ordinal))
-        && (query.SequenceRevision is not { } revision || row.Revision == revision);
-
     private readonly record struct CsvRow(
         string Serial,
         string Name,
@@ -348,7 +346,8 @@ public static class CsvReadingsLoader
         int? Revision,
         Verdict? Verdict,
         Verdict? RunVerdict,
-        string? RunId)
+        string? RunId,
+        string? Operator)
     {
         public bool SameRunAs(CsvRow other) =>
             string.Equals(Serial, other.Serial, StringComparison.Ordinal)
@@ -358,20 +357,9 @@ public static class CsvReadingsLoader
             && string.Equals(Lot, other.Lot, StringComparison.Ordinal)
             && string.Equals(RunId, other.RunId, StringComparison.Ordinal);
 
-        public Verdict Judged()
-        {
-            if (Verdict is { } given)
-            {
-                return given;
-            }
-
-            if (Value is not { } v)
-            {
-                return Core.Results.Verdict.Error;
-            }
-
-            return (Low is { } lo && v < lo) || (High is { } hi && v > hi) ? Core.Results.Verdict.Fail : Core.Results.Verdict.Pass;
-        }
+        /// <summary>The row's verdict as given, or judged by the station's own rule (simple acceptance, ILAC G8).</summary>
+        public Verdict Judged() =>
+            Verdict ?? Acceptance.Decide(Value, new LimitSpec { Low = Low, High = High, Unit = Unit }).Verdict;
     }
 
     /// <summary>Collects the rows of the current run and adds the run when the next one starts.</summary>
@@ -428,11 +416,12 @@ public static class CsvReadingsLoader
                 first.Revision,
                 failure,
                 verdict == Verdict.Error ? error : null);
+            data.Runs.SetOperator(run, first.Operator);
             foreach (var row in _rows)
             {
                 if (query.WantsReading(row.Name))
                 {
-                    data.Series(row.Name, row.Unit).Add(run, row.Value, row.Unit, row.Low, row.High);
+                    data.Series(first.SequenceId, row.Name, row.Unit).Add(run, row.Value, row.Unit, row.Low, row.High);
                 }
             }
 

@@ -54,7 +54,10 @@ internal sealed class ReadingBuffer
     /// </summary>
     public int AddTo(ReportData data, List<long> seqs, int firstIndex, int position)
     {
-        var series = new ReadingSeries?[_shapeList.Count];
+        // Series per (sequence, shape): one array of series per sequence, the last one used kept at hand.
+        var bySequence = new Dictionary<int, ReadingSeries?[]>();
+        var lastKey = int.MinValue;
+        ReadingSeries?[] series = [];
         for (var i = 0; i < _seqs.Count; i++)
         {
             var seq = _seqs[i];
@@ -68,10 +71,23 @@ internal sealed class ReadingBuffer
                 continue;
             }
 
+            var run = firstIndex + position;
+            var key = data.Runs.SequenceKey(run);
+            if (key != lastKey)
+            {
+                if (!bySequence.TryGetValue(key, out series!))
+                {
+                    series = new ReadingSeries?[_shapeList.Count];
+                    bySequence.Add(key, series);
+                }
+
+                lastKey = key;
+            }
+
             var shape = _shapeList[_shapes[i]];
-            var target = series[_shapes[i]] ??= data.Series(shape.Name, shape.Unit);
+            var target = series[_shapes[i]] ??= data.Series(data.Runs.SequenceId(run), shape.Name, shape.Unit);
             var value = _values[i];
-            target.Add(firstIndex + position, double.IsNaN(value) ? null : value, shape.Unit, shape.Low, shape.High);
+            target.Add(run, double.IsNaN(value) ? null : value, shape.Unit, shape.Low, shape.High);
         }
 
         return position;

@@ -22,6 +22,9 @@ public sealed class ReadingSeries
     /// <summary>Reading name.</summary>
     public string Name { get; }
 
+    /// <summary>The sequence (one product) whose runs this series holds; null when the source names none.</summary>
+    public string? SequenceId { get; init; }
+
     /// <summary>Unit symbol of the latest reading.</summary>
     public string Unit { get; private set; }
 

@@ -5,9 +5,11 @@ namespace LineTest.Reports.Loading;
 /// </summary>
 public sealed class ReportData
 {
-    private readonly Dictionary<string, ReadingSeries> _byName = new(StringComparer.Ordinal);
+    private readonly Dictionary<(string? Sequence, string Name), ReadingSeries> _byName = [];
+    private readonly Dictionary<string, string> _products = new(StringComparer.Ordinal);
     private readonly List<ReadingSeries> _readings = [];
     private readonly List<string> _sources = [];
+    private readonly List<string> _skipped = [];
 
     /// <summary>The runs.</summary>
     public RunTable Runs { get; } = new();
@@ -18,6 +20,16 @@ public sealed class ReportData
     /// <summary>Where the data came from (database or CSV paths).</summary>
     public IReadOnlyList<string> Sources => _sources;
 
+    /// <summary>Input rows left out by <c>--skip-bad-rows</c>, each with its line and reason; every report format names them.</summary>
+    public IReadOnlyList<string> SkippedRows => _skipped;
+
+    /// <summary>Records a skipped row ("line 12: value 'abc' is not a number").</summary>
+    public void AddSkippedRow(string description)
+    {
+        ArgumentException.ThrowIfNullOrWhiteSpace(description);
+        _skipped.Add(description);
+    }
+
     /// <summary>Records a source.</summary>
     public void AddSource(string source)
     {
@@ -25,13 +37,30 @@ public sealed class ReportData
         _sources.Add(source);
     }
 
-    /// <summary>The series for <paramref name="name"/>, created on first use.</summary>
-    public ReadingSeries Series(string name, string unit)
+    /// <summary>Product name per sequence id, where the source names it.</summary>
+    public IReadOnlyDictionary<string, string> Products => _products;
+
+    /// <summary>Records the product a sequence tests.</summary>
+    public void AddProduct(string sequenceId, string product)
     {
-        if (!_byName.TryGetValue(name, out var series))
+        ArgumentException.ThrowIfNullOrWhiteSpace(sequenceId);
+        ArgumentException.ThrowIfNullOrWhiteSpace(product);
+        _products[sequenceId] = product;
+    }
+
+    /// <summary>The series for <paramref name="name"/> without a sequence, created on first use.</summary>
+    public ReadingSeries Series(string name, string unit) => Series(null, name, unit);
+
+    /// <summary>
+    /// The series for <paramref name="name"/> of sequence <paramref name="sequenceId"/>, created on first use. A
+    /// reading of one name in two sequences is two series: products are never pooled.
+    /// </summary>
+    public ReadingSeries Series(string? sequenceId, string name, string unit)
+    {
+        if (!_byName.TryGetValue((sequenceId, name), out var series))
         {
-            series = new ReadingSeries(name, unit);
-            _byName.Add(name, series);
+            series = new ReadingSeries(name, unit) { SequenceId = sequenceId };
+            _byName.Add((sequenceId, name), series);
             _readings.Add(series);
         }
 

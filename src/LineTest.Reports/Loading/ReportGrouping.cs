@@ -20,4 +20,10 @@ public enum ReportGrouping
 
     /// <summary>By sequence id and revision.</summary>
     Revision,
+
+    /// <summary>By the operator stored with the run.</summary>
+    Operator,
+
+    /// <summary>By the shift (from the station's shift calendar) in which a run ended.</summary>
+    Shift,
 }

@@ -39,6 +39,12 @@ public sealed record ReportQuery
     /// <summary>How runs are grouped.</summary>
     public ReportGrouping GroupBy { get; init; }
 
+    /// <summary>Capability and the failure Pareto from each unit's first run only (<c>--first-runs</c>).</summary>
+    public bool FirstRunsOnly { get; init; }
+
+    /// <summary>The factory's shifts for <see cref="ReportGrouping.Shift"/>; null for <see cref="NamedShifts.Default"/>.</summary>
+    public NamedShifts? Shifts { get; init; }
+
     /// <summary>The same conditions as a storage filter.</summary>
     public RunFilter ToRunFilter() => new()
     {
@@ -114,6 +120,11 @@ public sealed record ReportQuery
         if (ReadingNames.Count > 0)
         {
             parts.Add("readings " + string.Join(", ", ReadingNames));
+        }
+
+        if (FirstRunsOnly)
+        {
+            parts.Add("capability and failures from first runs only");
         }
 
         return parts.Count == 0 ? "all runs" : string.Join("; ", parts);

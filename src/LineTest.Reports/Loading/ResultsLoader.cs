@@ -46,7 +46,7 @@ public static class ResultsLoader
         {
             var reader = SqliteResultReader.InDirectory(directory);
             data.AddSource(reader.DatabasePath);
-            await LoadOneAsync(reader, filter, data, parts, ct).ConfigureAwait(false);
+            await LoadOneAsync(reader, filter, data, parts, query.GroupBy == ReportGrouping.Operator, ct).ConfigureAwait(false);
         }
 
         if (resultsDirectories.Count > 1)
@@ -57,7 +57,7 @@ public static class ResultsLoader
         return data;
     }
 
-    private static async Task LoadOneAsync(SqliteResultReader reader, RunFilter filter, ReportData data, int? parts, CancellationToken ct)
+    private static async Task LoadOneAsync(SqliteResultReader reader, RunFilter filter, ReportData data, int? parts, bool operators, CancellationToken ct)
     {
         // The runs that match now; pinning both scans to this range keeps runs and readings describing the same runs
         // while the station goes on writing (runs are only appended).
@@ -73,8 +73,26 @@ public static class ResultsLoader
         var rangeTasks = range.Split(parts ?? (range.Last - range.First + 1 >= MinRunsPerPart * 2 ? Environment.ProcessorCount : 1))
             .Select(part => Task.Run(() => ReadingBuffer.FillAsync(reader, pinned with { FirstSeq = part.First, LastSeq = part.Last }, ct), ct))
             .ToList();
-        var (firstIndex, seqs) = await runsTask.ConfigureAwait(false);
+        var (firstIndex, seqs, firstOfSequence) = await runsTask.ConfigureAwait(false);
         var buffers = await Task.WhenAll(rangeTasks).ConfigureAwait(false);
+        foreach (var (sequence, product) in await reader.ReadProductsAsync(firstOfSequence, ct).ConfigureAwait(false))
+        {
+            data.AddProduct(sequence, product);
+        }
+
+        if (operators)
+        {
+            // Same filter, same seq range, same order: the n-th operator belongs to the n-th run.
+            var n = 0;
+            await foreach (var (seq, name) in reader.ReadOperatorsAsync(pinned, ct).ConfigureAwait(false))
+            {
+                if (n < seqs.Count && seqs[n] == seq)
+                {
+                    data.Runs.SetOperator(firstIndex + n, name);
+                    n++;
+                }
+            }
+        }
 
         // Ranges are in seq order and each buffer is in seq order, so one forward walk over the runs' seqs finds each
         // reading's run.
@@ -85,13 +103,22 @@ public static class ResultsLoader
         }
     }
 
-    private static async Task<(int FirstIndex, List<long> Seqs)> ReadRunsAsync(SqliteResultReader reader, RunFilter filter, RunTable runs, CancellationToken ct)
+    private static async Task<(int FirstIndex, List<long> Seqs, List<long> FirstOfSequence)> ReadRunsAsync(SqliteResultReader reader, RunFilter filter, RunTable runs, CancellationToken ct)
     {
         var firstIndex = runs.Count;
         var seqs = new List<long>();
+        var sequences = new HashSet<string>(StringComparer.Ordinal);
+        var firstOfSequence = new List<long>();
+        string? lastSequence = null;
         await foreach (var run in reader.ReadRunsForReportAsync(filter, ct).ConfigureAwait(false))
         {
             seqs.Add(run.Seq);
+            if (!ReferenceEquals(run.SequenceId, lastSequence) && sequences.Add(run.SequenceId))
+            {
+                firstOfSequence.Add(run.Seq);
+            }
+
+            lastSequence = run.SequenceId;
             runs.Add(
                 run.Serial,
                 run.EndedUtc,
@@ -105,6 +132,6 @@ public static class ResultsLoader
                 run.Reason);
         }
 
-        return (firstIndex, seqs);
+        return (firstIndex, seqs, firstOfSequence);
     }
 }

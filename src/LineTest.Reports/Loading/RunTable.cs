@@ -20,6 +20,7 @@ public sealed class RunTable
     private readonly List<int> _revisions = [];
     private readonly List<int> _failures = [];
     private readonly List<int> _reasons = [];
+    private readonly List<int> _operators = [];
     private readonly StringPool _pool = new();
 
     /// <summary>Number of runs.</summary>
@@ -63,7 +64,47 @@ public sealed class RunTable
         _revisions.Add(revision ?? int.MinValue);
         _failures.Add(_pool.Intern(failureName));
         _reasons.Add(_pool.Intern(reason));
+        _operators.Add(-1);
         return _serials.Count - 1;
+    }
+
+    /// <summary>Sets the operator of run <paramref name="run"/> (read only when a report groups by operator).</summary>
+    public void SetOperator(int run, string? name) => _operators[run] = _pool.Intern(string.IsNullOrWhiteSpace(name) ? null : name);
+
+    /// <summary>Operator of run <paramref name="run"/>, or null.</summary>
+    public string? Operator(int run) => _pool.Text(_operators[run]);
+
+    /// <summary>Sequence id of run <paramref name="run"/>, or null when the source gave none.</summary>
+    public string? SequenceId(int run) => _pool.Text(_sequences[run]);
+
+    /// <summary>A small number standing for the run's sequence id (equal ids, equal numbers; -1 for none).</summary>
+    internal int SequenceKey(int run) => _sequences[run];
+
+    /// <summary>Sequence revision of run <paramref name="run"/>, or null.</summary>
+    public int? Revision(int run) => _revisions[run] == int.MinValue ? null : _revisions[run];
+
+    /// <summary>
+    /// For each run, true when it is its unit's first run: the earliest end time of its serial, equal times in the
+    /// order added (the rule <see cref="YieldAnalysis"/> uses for first-pass yield).
+    /// </summary>
+    public bool[] FirstRuns()
+    {
+        var first = new Dictionary<string, int>(StringComparer.Ordinal);
+        for (var r = 0; r < Count; r++)
+        {
+            if (!first.TryGetValue(_serials[r], out var f) || _endedTicks[r] < _endedTicks[f])
+            {
+                first[_serials[r]] = r;
+            }
+        }
+
+        var flags = new bool[Count];
+        foreach (var r in first.Values)
+        {
+            flags[r] = true;
+        }
+
+        return flags;
     }
 
     /// <summary>Serial of run <paramref name="run"/>.</summary>
@@ -101,8 +142,10 @@ public sealed class RunTable
     public IReadOnlyList<RunOutcome> Outcomes(IReadOnlyList<int>? runs = null) => new OutcomeView(this, runs);
 
     /// <summary>The group that run <paramref name="run"/> falls in under <paramref name="grouping"/>.</summary>
-    public string GroupKey(int run, ReportGrouping grouping) => grouping switch
+    public string GroupKey(int run, ReportGrouping grouping, NamedShifts? shifts = null) => grouping switch
     {
+        ReportGrouping.Operator => Operator(run) ?? "(no operator)",
+        ReportGrouping.Shift => HasTimes ? (shifts ?? NamedShifts.Default).ShiftOf(EndedUtc(run)) : "(no time)",
         ReportGrouping.None => "all",
         ReportGrouping.Station => Station(run),
         ReportGrouping.Slot => _slots[run].ToString(CultureInfo.InvariantCulture),

@@ -6,7 +6,6 @@ using LineTest.Runtime.Batches;
 using LineTest.Station.Composition;
 using LineTest.Storage.Sqlite;
 using Microsoft.Data.Sqlite;
-using Microsoft.Extensions.Logging.Abstractions;
 
 namespace LineTest.Station.Campaign;
 
@@ -26,13 +25,10 @@ public sealed class FaultCampaign(CampaignOptions options)
         var wallStart = TimeProvider.System.GetTimestamp();
         var fixture = _options.Fixture;
         var sequence = _options.Sequence;
-        var sensor = ReferenceConversion.SensorOf(fixture);
         var clock = new VirtualTimeProvider(new DateTimeOffset(2026, 3, 16, 6, 0, 0, TimeSpan.Zero));
         var start = clock.GetUtcNow();
-        var rig = new SimulatedRig(fixture, _options.Seed, clock, ReferenceConversion.FromCelsius(sensor));
-        var design = SimulatedUnitDesign.ForProduct(sequence.Product)
-            ?? throw new InvalidOperationException($"The simulator does not build '{sequence.Product}'.");
-        var factory = new SimulatedUnitFactory(_options.Seed, rig.Simulation, design);
+        var station = SimulatedStation.Create(fixture, sequence.Product, _options.Seed, clock);
+        var rig = station.Rig;
         var faults = new Random(unchecked(_options.Seed * 7919 + 17));
         var watch = new SourceWatch(rig.Instruments.Source);
         var instruments = rig.Instruments with { Source = watch };
@@ -46,9 +42,7 @@ public sealed class FaultCampaign(CampaignOptions options)
 
         await using (var store = SqliteResultStore.Open(_options.ResultsDirectory))
         {
-            var coordinator = new BatchCoordinator(
-                instruments, fixture, ReferenceConversion.ToCelsius(sensor), clock, new StoreSink(store), new AutoConfirmOperator(),
-                observer: null, NullLogger.Instance, partFitting: new SimulatedPartFitting(rig));
+            var coordinator = station.Coordinator(new StoreSink(store), instruments: instruments);
             var remaining = _options.Units;
             while (remaining > 0)
             {
@@ -56,12 +50,10 @@ public sealed class FaultCampaign(CampaignOptions options)
                 batches++;
                 var batchId = $"C{_options.Seed}-{batches:D5}";
                 var loads = new List<SlotLoad>();
-                foreach (var slot in slots.Take(Math.Min(remaining, slots.Count)))
+                foreach (var (load, unit) in station.LoadUnits(slots.Take(Math.Min(remaining, slots.Count))))
                 {
-                    var unit = factory.NextUnit();
                     units[unit.Serial] = unit;
-                    rig.Load(slot, unit);
-                    loads.Add(new SlotLoad(slot, unit.Serial));
+                    loads.Add(load);
                     loaded.Add((batchId, unit.Serial));
                 }
 

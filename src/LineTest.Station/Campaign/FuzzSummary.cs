@@ -48,6 +48,15 @@ public sealed record FuzzSummary
     /// <summary>Units passed on garbage instruments that the simulator knows are out of limits.</summary>
     public required int WrongPasses { get; init; }
 
+    /// <summary>
+    /// Units on garbage instruments whose run holds readings of a trim step: the garbage batches got that far (an
+    /// instrument the garbage wrapper forgot would stop every batch earlier and leave this at zero).
+    /// </summary>
+    public int ReachedTrim { get; init; }
+
+    /// <summary>Units on garbage instruments whose run holds readings of a verify step.</summary>
+    public int ReachedVerify { get; init; }
+
     /// <summary>The first few crash messages, for the bug report.</summary>
     public required IReadOnlyList<string> FirstCrashes { get; init; }
 

@@ -6,7 +6,6 @@ using LineTest.Rig.Fuzzing;
 using LineTest.Rig.Simulation;
 using LineTest.Runtime.Batches;
 using LineTest.Station.Composition;
-using Microsoft.Extensions.Logging.Abstractions;
 
 namespace LineTest.Station.Campaign;
 
@@ -60,29 +59,26 @@ public sealed class Fuzzer(FixtureDefinition fixture, byte[] fixtureBytes, Seque
             }
         }
 
-        int units = 0, pass = 0, fail = 0, error = 0, unhandled = 0, noVerdict = 0, wrong = 0, replies = 0;
+        int units = 0, pass = 0, fail = 0, error = 0, unhandled = 0, noVerdict = 0, wrong = 0, replies = 0, trimmed = 0, verified = 0;
+        var trimSteps = sequence.Steps.OfType<TrimStep>().Select(s => s.DisplayName).ToHashSet(StringComparer.Ordinal);
+        var verifySteps = sequence.Steps.OfType<VerifyStep>().Select(s => s.DisplayName).ToHashSet(StringComparer.Ordinal);
         for (var b = 0; b < garbageBatches; b++)
         {
             cancellationToken.ThrowIfCancellationRequested();
             var batchSeed = unchecked(seed + (b * 104729));
             var rates = new Random(batchSeed);
             var clock = new VirtualTimeProvider(new DateTimeOffset(2026, 3, 16, 6, 0, 0, TimeSpan.Zero));
-            var sensor = ReferenceConversion.SensorOf(fixture);
-            var rig = new SimulatedRig(fixture, batchSeed, clock, ReferenceConversion.FromCelsius(sensor));
-            var factory = new SimulatedUnitFactory(batchSeed, rig.Simulation, SimulatedUnitDesign.ForProduct(sequence.Product)!);
-            var garbage = new GarbageInstruments(rig.Instruments, batchSeed, 0.002 + (rates.NextDouble() * 0.1));
+            var station = SimulatedStation.Create(fixture, sequence.Product, batchSeed, clock);
+
+            // Rates spread evenly in log from 1 in 10 000 to 1 in 10 replies: a batch makes a thousand or more instrument
+            // calls, so at the high end the first garbage ends it early, and only the low end lets batches get through
+            // trim and verify with a garbage reply or two on the way.
+            var garbage = new GarbageInstruments(station.Rig.Instruments, batchSeed, 1e-4 * Math.Pow(1e3, rates.NextDouble()));
             var sink = new CollectingSink();
-            var coordinator = new BatchCoordinator(garbage.Instruments, fixture, ReferenceConversion.ToCelsius(sensor), clock, sink,
-                new AutoConfirmOperator(), observer: null, NullLogger.Instance, partFitting: new SimulatedPartFitting(rig));
-            var loads = new List<SlotLoad>();
-            var byserial = new Dictionary<string, SimulatedUnit>(StringComparer.Ordinal);
-            foreach (var slot in fixture.Slots.Select(s => s.Slot).Order())
-            {
-                var unit = factory.NextUnit();
-                rig.Load(slot, unit);
-                byserial[unit.Serial] = unit;
-                loads.Add(new SlotLoad(slot, unit.Serial));
-            }
+            var coordinator = station.Coordinator(sink, instruments: garbage.Instruments);
+            var batchUnits = station.LoadUnits(fixture.Slots.Select(s => s.Slot).Order());
+            var loads = batchUnits.Select(l => l.Load).ToList();
+            var byserial = batchUnits.ToDictionary(l => l.Unit.Serial, l => l.Unit, StringComparer.Ordinal);
 
             units += loads.Count;
             try
@@ -98,6 +94,8 @@ public sealed class Fuzzer(FixtureDefinition fixture, byte[] fixtureBytes, Seque
                     fail += run.Verdict == Verdict.Fail ? 1 : 0;
                     error += run.Verdict == Verdict.Error ? 1 : 0;
                     wrong += run.Verdict == Verdict.Pass && FaultCampaign.TrulyOutOfLimits(byserial[run.Serial], sequence) ? 1 : 0;
+                    trimmed += run.Readings.Any(r => r.Step is { } step && trimSteps.Contains(step)) ? 1 : 0;
+                    verified += run.Readings.Any(r => r.Step is { } step && verifySteps.Contains(step)) ? 1 : 0;
                 }
             }
             catch (Exception ex) when (ex is not OperationCanceledException || !cancellationToken.IsCancellationRequested)
@@ -126,6 +124,8 @@ public sealed class Fuzzer(FixtureDefinition fixture, byte[] fixtureBytes, Seque
             UnhandledInBatches = unhandled,
             UnitsWithoutVerdict = noVerdict,
             WrongPasses = wrong,
+            ReachedTrim = trimmed,
+            ReachedVerify = verified,
             FirstCrashes = crashes,
             WallSeconds = TimeProvider.System.GetElapsedTime(wallStart).TotalSeconds,
         };

@@ -142,7 +142,7 @@ public static class CampaignCommand
     private static string FuzzText(FuzzSummary s) => string.Join(Environment.NewLine,
     [
         string.Create(CultureInfo.InvariantCulture, $"Damaged files {s.LoaderCases}: {s.Loaded} loaded, {s.Refused} refused with problems, {s.LoaderCrashes} crashes, {s.ProblemsWithoutLocation} problems without a location"),
-        string.Create(CultureInfo.InvariantCulture, $"Garbage batches {s.GarbageBatches} ({s.GarbageReplies} garbage replies): {s.Units} units, {s.Pass} pass, {s.Fail} fail, {s.Error} error; {s.UnhandledInBatches} unhandled, {s.UnitsWithoutVerdict} without a verdict, {s.WrongPasses} wrong passes"),
+        string.Create(CultureInfo.InvariantCulture, $"Garbage batches {s.GarbageBatches} ({s.GarbageReplies} garbage replies): {s.Units} units, {s.Pass} pass, {s.Fail} fail, {s.Error} error; {s.UnhandledInBatches} unhandled, {s.UnitsWithoutVerdict} without a verdict, {s.WrongPasses} wrong passes; {s.ReachedTrim} reached trim, {s.ReachedVerify} reached verify"),
         .. s.FirstCrashes.Select(c => $"  crash: {c}"),
         string.Create(CultureInfo.InvariantCulture, $"Wall {s.WallSeconds:F1} s"),
     ]);

@@ -28,9 +28,13 @@ public static class DemoCommand
         var serial = new Option<bool>("--serial") { Description = "Reach the simulated instruments through the real serial drivers over pseudo-terminal ports (Linux)" };
         var production = new Option<bool>("--production") { Description = "Production mode: run only a released sequence file (see 'linetest release')" };
         var verbose = new Option<bool>("--verbose") { Description = "Also write log events to the console (standard error); they always go to the log file" };
+        var stations = new Option<int>("--stations") { Description = "Simulated stations at once, each in its own folder under --results (--units each)", DefaultValueFactory = _ => 1 };
+        var factory = new Option<string?>("--factory") { Description = "Forward every stored run to this factory database (Npgsql connection string)" };
+        var station = new Option<string?>("--station") { Description = "Station id stored with every run (default: the station's)" };
+        var firstSerial = new Option<int?>("--first-serial") { Description = "Counter of the first serial (default: after the highest stored one)" };
         var command = new Command("demo", "Run a simulated production shift on the built-in simulator")
         {
-            units, slots, seed, results, json, sequence, fixture, lot, serial, production, verbose,
+            units, slots, seed, results, json, sequence, fixture, lot, serial, production, verbose, stations, factory, station, firstSerial,
         };
         command.SetAction(async (parse, ct) =>
         {
@@ -42,6 +46,16 @@ public static class DemoCommand
             if (unitCount < 1)
             {
                 return context.BadInput($"--units must be 1 or more, not {unitCount}");
+            }
+
+            if (parse.GetValue(firstSerial) is { } first && (first < 1 || first > 999_999 - unitCount + 1))
+            {
+                return context.BadInput($"--first-serial must be between 1 and {999_999 - unitCount + 1} for {unitCount} units, not {first}");
+            }
+
+            if (parse.GetValue(station) is { } stationId && string.IsNullOrWhiteSpace(stationId))
+            {
+                return context.BadInput("--station must not be empty");
             }
 
             var fixtureResult = DefinitionFiles.LoadFixture(fixturePath, context.Error);
@@ -73,40 +87,50 @@ public static class DemoCommand
                     $"sequence '{sequenceResult.Value.Id}' tests '{sequenceResult.Value.Product}', but the simulator builds only {string.Join(", ", SimulatedUnitDesign.Demo.Select(d => d.Product))}");
             }
 
+            var stationCount = parse.GetValue(stations);
+            if (stationCount < 1 || stationCount > MultiStationDemo.MaxStations)
+            {
+                return context.BadInput($"--stations must be between 1 and {MultiStationDemo.MaxStations}, not {stationCount}");
+            }
+
             var asJson = parse.GetValue(json);
 
             // A person reads the unit lines and the summary: log events go to the log file (and to the console only
             // with --verbose), stamped with the shift's simulated time.
-            var clock = new VirtualTimeProvider(context.Clock.GetUtcNow());
             context.Logging.ConsoleOpen = parse.GetValue(verbose);
-            context.Logging.Clock = clock;
             var lines = asJson ? context.Error : context.Output;
             var resultsFolder = Path.GetFullPath(parse.GetValue(results)!);
+            var shiftOptions = new ShiftOptions
+            {
+                Fixture = fx,
+                Sequence = sequenceResult.Value,
+                SequenceSha256 = sequenceResult.Sha256,
+                Units = unitCount,
+                Slots = slotCount,
+                Seed = parse.GetValue(seed),
+                ResultsDirectory = resultsFolder,
+                Station = parse.GetValue(station) ?? options.Id,
+                FirstSerial = parse.GetValue(firstSerial),
+                Lot = parse.GetValue(lot) ?? options.Lot,
+                Serial = parse.GetValue(serial),
+                Mode = parse.GetValue(production) ? ProductionGate.Production : options.Mode,
+                SequenceFile = sequencePath,
+                Notice = lines.WriteLine,
+                ClockStarted = c => context.Logging.Clock = c,
+            };
+            if (stationCount > 1 || parse.GetValue(factory) is not null)
+            {
+                // Each station of the demo takes its own folder's writer lock.
+                return await MultiStationDemo.RunAsync(context, shiftOptions, stationCount, parse.GetValue(factory), asJson, ct).ConfigureAwait(false);
+            }
+
             using var writer = WriterLock.TakeOrRefuse(resultsFolder, context.Clock, context.Error);
             if (writer is null)
             {
                 return ExitCodes.RuntimeFailure;
             }
 
-            var shift = new SimulatedShift(
-                new ShiftOptions
-                {
-                    Fixture = fx,
-                    Sequence = sequenceResult.Value,
-                    SequenceSha256 = sequenceResult.Sha256,
-                    Units = unitCount,
-                    Slots = slotCount,
-                    Seed = parse.GetValue(seed),
-                    ResultsDirectory = resultsFolder,
-                    Station = options.Id,
-                    Lot = parse.GetValue(lot) ?? options.Lot,
-                    Serial = parse.GetValue(serial),
-                    Mode = parse.GetValue(production) ? ProductionGate.Production : options.Mode,
-                    SequenceFile = sequencePath,
-                    Notice = lines.WriteLine,
-                    Clock = clock,
-                },
-                context.Loggers);
+            var shift = new SimulatedShift(shiftOptions, context.Loggers);
             ShiftSummary summary;
             try
             {
@@ -126,6 +150,11 @@ public static class DemoCommand
             {
                 context.Logging.ConsoleOpen = true;
                 context.Logging.Clock = null;
+            }
+
+            if (shift.Unplaced is { } unplaced)
+            {
+                return context.BadInput($"the shift does not fit before now: {unplaced}");
             }
 
             if (shift.Refusal is { } refusal)

@@ -61,7 +61,7 @@ public static class ExportCommand
                     context.Output.WriteLine(string.Create(CultureInfo.InvariantCulture, $"{count} readings written to {Path.GetFullPath(readingsPath)}"));
                 }
             }
-            catch (ResultStoreException ex) when (ex.Failure is ResultStoreFailure.CannotOpen or ResultStoreFailure.Incompatible)
+            catch (ResultStoreException ex) when (ex.Failure is not (ResultStoreFailure.Locked or ResultStoreFailure.DiskError))
             {
                 return context.BadInput(ex.Message);
             }

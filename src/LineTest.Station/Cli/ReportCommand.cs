@@ -4,6 +4,7 @@ using System.Text;
 using LineTest.Reports.Building;
 using LineTest.Reports.Console;
 using LineTest.Reports.Csv;
+using LineTest.Reports.Fuzzing;
 using LineTest.Reports.Html;
 using LineTest.Reports.Json;
 using LineTest.Reports.Loading;
@@ -29,15 +30,18 @@ public static class ReportCommand
         var results = new Option<string[]>("--results") { Description = "Results folder with results.db (repeatable; default ./results)" };
         var readings = new Option<string?>("--readings") { Description = "Readings CSV to report on instead of results databases" };
         var skipBadRows = new Option<bool>("--skip-bad-rows") { Description = "Report on the good rows of --readings when some rows are bad" };
-        var by = new Option<string?>("--by") { Description = "Group by station, slot, lot, day or revision" };
-        by.AcceptOnlyFromAmong("station", "slot", "lot", "day", "revision");
+        var by = new Option<string?>("--by") { Description = "Group by station, slot, lot, day, revision, operator or shift (shifts from Station:Shifts)" };
+        by.AcceptOnlyFromAmong("station", "slot", "lot", "day", "revision", "operator", "shift");
+        var fuzz = new Option<int?>("--fuzz") { Description = "Fuzz the report: N damaged copies of the --results database (or mutations of the --readings CSV); prints the figures" };
+        var firstRuns = new Option<bool>("--first-runs") { Description = "Capability and failure Pareto from each unit's first run only" };
         var json = new Option<bool>("--json") { Description = "Print the report as one JSON object instead of tables" };
         var csv = new Option<string?>("--csv") { Description = "Write the per-reading statistics to this CSV file" };
         var html = new Option<string?>("--html") { Description = "Write the report with charts to this HTML file" };
+        var factory = new Option<string?>("--factory") { Description = "Report from the factory database (Npgsql connection string) instead of results folders" };
         var filters = new ReportFilterOptions();
         var command = new Command("report", "Quality report: yield, failures, capability, control charts and slot bias")
         {
-            results, readings, skipBadRows, by, json, csv, html,
+            results, readings, skipBadRows, by, firstRuns, json, csv, html, factory, fuzz,
         };
         filters.AddTo(command);
         command.SetAction(async (parse, ct) =>
@@ -49,6 +53,20 @@ public static class ReportCommand
                 return context.BadInput(error!);
             }
 
+            var shifts = NamedShifts.Default;
+            if (context.Options.Shifts.Count > 0)
+            {
+                var (calendar, shiftError) = NamedShifts.Parse(context.Options.Shifts.Select(kv => $"{kv.Key}={kv.Value}"));
+                if (calendar is null)
+                {
+                    return context.BadInput($"Station:Shifts in the settings: {shiftError}");
+                }
+
+                shifts = calendar;
+            }
+
+            query = query with { FirstRunsOnly = parse.GetValue(firstRuns), Shifts = shifts };
+
             var folders = parse.GetValue(results) ?? [];
             var csvInput = parse.GetValue(readings);
             if (csvInput is not null && folders.Length > 0)
@@ -56,8 +74,29 @@ public static class ReportCommand
                 return context.BadInput("give either --results or --readings, not both");
             }
 
+            if (parse.GetValue(fuzz) is { } iterations)
+            {
+                return Fuzz(context, iterations, csvInput, folders);
+            }
+
+            var factoryConnection = parse.GetValue(factory);
+            if (factoryConnection is not null && (csvInput is not null || folders.Length > 0))
+            {
+                return context.BadInput("give one of --factory, --results or --readings");
+            }
+
             ReportData data;
-            if (csvInput is not null)
+            if (factoryConnection is not null)
+            {
+                var (loaded, exitCode) = await FactoryReportSource.LoadAsync(context, factoryConnection, query, ct).ConfigureAwait(false);
+                if (loaded is null)
+                {
+                    return exitCode;
+                }
+
+                data = loaded;
+            }
+            else if (csvInput is not null)
             {
                 var loaded = CsvReadingsLoader.Load(csvInput, query, parse.GetValue(skipBadRows));
                 if (loaded.FileError is not null)
@@ -83,6 +122,10 @@ public static class ReportCommand
                 if (loaded.BadRows.Count > 0)
                 {
                     context.Error.WriteLine($"linetest: skipped {loaded.BadRows.Count} bad row(s) of {csvInput}");
+                    foreach (var problem in loaded.BadRows)
+                    {
+                        loaded.Data.AddSkippedRow($"line {problem.Line}: {problem.Reason}");
+                    }
                 }
 
                 data = loaded.Data;
@@ -94,8 +137,9 @@ public static class ReportCommand
                 {
                     data = await ResultsLoader.LoadAsync(directories, query, ct).ConfigureAwait(false);
                 }
-                catch (ResultStoreException ex) when (ex.Failure is ResultStoreFailure.CannotOpen or ResultStoreFailure.Incompatible)
+                catch (ResultStoreException ex) when (ex.Failure is not (ResultStoreFailure.Locked or ResultStoreFailure.DiskError))
                 {
+                    // A missing, foreign or damaged database is bad input: say what is wrong, no stack trace.
                     return context.BadInput(ex.Message);
                 }
                 catch (ResultStoreException ex)
@@ -132,13 +176,15 @@ public static class ReportCommand
             }
             else
             {
+                // A terminal gets tables fitted to its width; a file or a pipe gets plain text whose cells never wrap.
+                var terminal = ReferenceEquals(context.Output, Console.Out) && !Console.IsOutputRedirected;
                 var console = AnsiConsole.Create(new AnsiConsoleSettings
                 {
                     Out = new AnsiConsoleOutput(context.Output),
-                    Ansi = AnsiSupport.Detect,
-                    ColorSystem = ColorSystemSupport.Detect,
+                    Ansi = terminal ? AnsiSupport.Detect : AnsiSupport.No,
+                    ColorSystem = terminal ? ColorSystemSupport.Detect : ColorSystemSupport.NoColors,
                 });
-                ReportConsoleWriter.Write(report, console);
+                ReportConsoleWriter.Write(report, console, plain: !terminal);
                 foreach (var folder in csvInput is null ? (folders.Length == 0 ? ["results"] : folders) : [])
                 {
                     context.Output.WriteLine($"{Path.GetFullPath(folder)}: {ResultsHeadLine.For(folder)}");
@@ -148,5 +194,48 @@ public static class ReportCommand
             return ExitCodes.Done;
         });
         return command;
+    }
+
+    /// <summary>
+    /// <c>report --fuzz N</c>: damaged inputs through loading, building and every format; exit 1 when any crashed or
+    /// took more than 10 s. The figures in docs/reliability.md come from this.
+    /// </summary>
+    private static int Fuzz(CliContext context, int iterations, string? csvInput, string[] folders)
+    {
+        if (iterations < 1)
+        {
+            return context.BadInput($"--fuzz must be 1 or more, not {iterations}");
+        }
+
+        FuzzSummary summary;
+        if (csvInput is not null)
+        {
+            if (!File.Exists(csvInput))
+            {
+                return context.BadInput($"'{csvInput}' does not exist");
+            }
+
+            summary = ReportFuzzer.FuzzCsv(File.ReadAllText(csvInput), iterations, seed: 1);
+        }
+        else
+        {
+            var folder = Path.GetFullPath(folders.Length == 0 ? "results" : folders[0]);
+            if (!File.Exists(Path.Combine(folder, "results.db")))
+            {
+                return context.BadInput($"'{folder}' holds no results.db to fuzz");
+            }
+
+            summary = ReportFuzzer.FuzzDatabase(folder, iterations, seed: 1);
+        }
+
+        context.Output.WriteLine(string.Create(
+            System.Globalization.CultureInfo.InvariantCulture,
+            $"{summary.Kind}: {summary.Inputs} inputs, {summary.Reported} reported, {summary.Refused} refused with a reason, {summary.Crashed} crashed, {summary.OverTenSeconds} over 10 s (slowest {summary.SlowestSeconds:F2} s)"));
+        if (summary.FirstCrash is { } crash)
+        {
+            context.Output.WriteLine($"first crash: {crash}");
+        }
+
+        return summary.Crashed == 0 && summary.OverTenSeconds == 0 ? ExitCodes.Done : ExitCodes.RuntimeFailure;
     }
 }

@@ -1,4 +1,5 @@
 using System.CommandLine;
+using LineTest.Factory.Forwarding;
 using LineTest.Station.Composition;
 using LineTest.Station.Hosting;
 using Microsoft.Extensions.Configuration;
@@ -52,6 +53,16 @@ public static class RunCommand
             builder.Services.AddSingleton<IHostLifetime, QuietLifetime>();
             builder.Services.AddSingleton<StationService>();
             builder.Services.AddHostedService(sp => sp.GetRequiredService<StationService>());
+            try
+            {
+                // Store-and-forward to the factory database when Station:Factory:ConnectionString is set.
+                builder.Services.AddFactoryForwarding(context.Configuration, ContentRoot.Resolve(context.Root, context.Options.Results));
+            }
+            catch (ArgumentException ex)
+            {
+                return context.BadInput(ex.Message);
+            }
+
             using var host = builder.Build();
             var station = host.Services.GetRequiredService<StationService>();
 

@@ -20,6 +20,8 @@ public static class StationCommandLine
             DryRunCommand.Create(context),
             VerifyCommand.Create(context),
             HistoryCommand.Create(context),
+            ForwardCommand.Create(context),
+            FactoryBenchCommand.Create(context),
             BackupCommand.Create(context),
             ReportCommand.Create(context),
             ExportCommand.Create(context),

@@ -24,9 +24,22 @@ public static class VerifyCommand
         ArgumentNullException.ThrowIfNull(context);
         var results = new Option<string>("--results") { Description = "Results folder holding results.db", DefaultValueFactory = _ => "results" };
         var expect = new Option<string?>("--expect-head") { Description = "A head written down earlier (SEQ:HASH, as demo, report and verify print it): that run must still be stored" };
-        var command = new Command("verify", "Check that no stored run was changed, inserted or deleted, and that none is missing from the end") { results, expect };
+        var factory = new Option<string?>("--factory") { Description = "Check the factory database (Npgsql connection string) instead; with --results, compare it with that station" };
+        var station = new Option<string?>("--station") { Description = "With --factory: only this station" };
+        var command = new Command("verify", "Check that no stored run was changed, inserted or deleted, and that none is missing from the end") { results, expect, factory, station };
         command.SetAction(async (parse, ct) =>
         {
+            if (parse.GetValue(factory) is { } connection)
+            {
+                var given = parse.GetResult(results) is { Implicit: false } ? Path.GetFullPath(parse.GetValue(results)!) : null;
+                return await FactoryVerify.RunAsync(context, connection, parse.GetValue(station), given, ct).ConfigureAwait(false);
+            }
+
+            if (parse.GetValue(station) is not null)
+            {
+                return context.BadInput("--station needs --factory");
+            }
+
             var folder = Path.GetFullPath(parse.GetValue(results)!);
             var path = ResultsDatabase.PathIn(folder);
             (long Seq, string Sha256)? anchor = null;

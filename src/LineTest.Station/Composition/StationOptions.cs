@@ -36,6 +36,13 @@ public sealed class StationOptions
     /// <summary>How many times faster than real time the simulator runs under <c>linetest run</c>. Default 60.</summary>
     public double SimulatorSpeed { get; set; } = 60;
 
+    /// <summary>
+    /// The factory's shifts for <c>linetest report --by shift</c>: name → start time of day in UTC (HH:mm), e.g.
+    /// <c>{"early": "06:00", "late": "14:00", "night": "22:00"}</c> (the default when empty). A shift lasts until the
+    /// next one starts.
+    /// </summary>
+    public Dictionary<string, string> Shifts { get; set; } = [];
+
     /// <summary>Every problem with these options, in one list (empty when valid).</summary>
     public IReadOnlyList<string> Validate()
     {

@@ -5,7 +5,6 @@ using LineTest.Core.Throughput;
 using LineTest.Rig.Simulation;
 using LineTest.Runtime.Batches;
 using LineTest.Station.Composition;
-using Microsoft.Extensions.Logging.Abstractions;
 
 namespace LineTest.Station.Demo;
 
@@ -22,23 +21,11 @@ public static class DryRun
         ArgumentNullException.ThrowIfNull(sequence);
         var simulation = (fixture.Simulation ?? new SimulationDefinition()) with { DefectRate = 0, SensorDefectRate = 0 };
         var perfect = fixture with { Simulation = simulation };
-        var sensor = ReferenceConversion.SensorOf(perfect);
         var clock = new VirtualTimeProvider(new DateTimeOffset(2026, 1, 1, 6, 0, 0, TimeSpan.Zero));
-        var rig = new SimulatedRig(perfect, seed, clock, ReferenceConversion.FromCelsius(sensor));
-        var design = SimulatedUnitDesign.ForProduct(sequence.Product)
-            ?? throw new ArgumentException($"The simulator builds no '{sequence.Product}' units.", nameof(sequence));
-        var factory = new SimulatedUnitFactory(seed, simulation, design);
-        var sink = new MemorySink();
+        var station = SimulatedStation.Create(perfect, sequence.Product, seed, clock);
         var timing = new InstrumentTiming();
-        var coordinator = new BatchCoordinator(rig.Instruments, perfect, ReferenceConversion.ToCelsius(sensor), clock, sink,
-            new AutoConfirmOperator(), null, NullLogger.Instance, timing, new SimulatedPartFitting(rig));
-        var loads = new List<SlotLoad>();
-        foreach (var slot in perfect.Slots.Select(s => s.Slot).Order().Take(units))
-        {
-            var unit = factory.NextUnit();
-            rig.Load(slot, unit);
-            loads.Add(new SlotLoad(slot, unit.Serial));
-        }
+        var coordinator = station.Coordinator(new MemorySink(), new CoordinatorParts { Timing = timing });
+        var loads = station.LoadUnits(perfect.Slots.Select(s => s.Slot).Order().Take(units)).Select(l => l.Load).ToList();
 
         var outcome = await coordinator.RunAsync(
             new BatchRequest { Sequence = sequence, SequenceSha256 = sha256, Station = "dry-run", Loads = loads, Mode = "engineering" },

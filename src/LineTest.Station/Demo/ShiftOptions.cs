@@ -24,6 +24,12 @@ public sealed record ShiftOptions
     /// <summary>Simulator seed.</summary>
     public int Seed { get; init; } = 4040;
 
+    /// <summary>
+    /// Counter of the first serial (1…999999) when the folder holds none of the product yet and <see cref="FirstSerial"/>
+    /// is not given: stations of one demo draw serials from separate blocks.
+    /// </summary>
+    public int FirstSerialCounter { get; init; } = 1;
+
     /// <summary>Results folder.</summary>
     public required string ResultsDirectory { get; init; }
 
@@ -51,9 +57,25 @@ public sealed record ShiftOptions
     /// <summary>Receives lines for the person watching (recovered runs at start-up), or null.</summary>
     public Action<string>? Notice { get; init; }
 
-    /// <summary>The virtual clock of the shift (null: one starting now); given so that log events can carry its time.</summary>
-    public Rig.Simulation.VirtualTimeProvider? Clock { get; init; }
+    /// <summary>
+    /// Called with the shift's virtual clock when the stored pass starts, so that log events can carry its time
+    /// (null: nobody asks).
+    /// </summary>
+    public Action<TimeProvider>? ClockStarted { get; init; }
 
     /// <summary>Virtual seconds the operator takes to unload one batch and load the next.</summary>
     public double ReloadSeconds { get; init; } = 30;
+
+    /// <summary>
+    /// Counter of the first serial (the NNNNNN of CTP40A-YYWW-NNNNNN); null continues after the highest serial of the
+    /// product already stored in the folder (1 in an empty folder).
+    /// </summary>
+    public int? FirstSerial { get; init; }
+
+    /// <summary>
+    /// The clock that says what "now" is. The shift starts after the last run already stored (06:00 UTC a week ago in
+    /// an empty folder) and must end no later than now, so no run is stored in the future and two shifts in one folder
+    /// do not interleave.
+    /// </summary>
+    public TimeProvider Clock { get; init; } = TimeProvider.System;
 }

@@ -34,68 +34,140 @@ public sealed class SimulatedShift
     public string? Refusal { get; private set; }
 
     /// <summary>
-    /// Runs the shift; <paramref name="runEnded"/> sees each run once it is stored. First the source goes to standby
-    /// and runs left in progress by the last stop are stored as interrupted; in production mode a sequence that is
-    /// not released is then refused (see <see cref="Refusal"/>) before any unit is loaded.
+    /// Why the shift was not run because it does not fit between the last stored run and now, or null.
+    /// </summary>
+    public string? Unplaced { get; private set; }
+
+    /// <summary>When the shift's virtual clock started (UTC).</summary>
+    public DateTimeOffset StartedUtc { get; private set; }
+
+    /// <summary>
+    /// Runs the shift; <paramref name="runEnded"/> sees each run once it is stored. The shift continues the folder:
+    /// serials after the highest stored one of the product, a virtual clock that starts one reload gap after the last
+    /// stored run (at 06:00 UTC a week ago in an empty folder), and it must end no later than now: its length is
+    /// measured first by simulating it, unstored, with the same seed, and a shift that would end in the future is not
+    /// run (see <see cref="Unplaced"/>). Then the source
+    /// goes to standby and runs left in progress by the last stop are stored as interrupted; in production mode a
+    /// sequence that is not released is refused (see <see cref="Refusal"/>) before any unit is loaded.
     /// </summary>
     public async Task<ShiftSummary> RunAsync(Action<RunRecord> runEnded, CancellationToken cancellationToken)
     {
         ArgumentNullException.ThrowIfNull(runEnded);
         var wallStart = TimeProvider.System.GetTimestamp();
-        var fixture = _options.Fixture;
-        var sensor = ReferenceConversion.SensorOf(fixture);
-        var clock = _options.Clock ?? new VirtualTimeProvider(TimeProvider.System.GetUtcNow());
-        var start = clock.GetUtcNow();
-        var rig = new SimulatedRig(fixture, _options.Seed, clock, ReferenceConversion.FromCelsius(sensor));
         var design = SimulatedUnitDesign.ForProduct(_options.Sequence.Product)
             ?? throw new InvalidOperationException(
                 $"The simulator builds {string.Join(", ", SimulatedUnitDesign.Demo.Select(d => d.Product))}, not '{_options.Sequence.Product}'.");
-        using var serialRig = _options.Serial ? new SimulatedSerialRig(rig, _loggers) : null;
-        var factory = new SimulatedUnitFactory(_options.Seed, rig.Simulation, design);
+        var now = _options.Clock.GetUtcNow();
+        DateTimeOffset? lastEnded;
+        string? highest;
+        await using (var opened = SqliteResultStore.Open(_options.ResultsDirectory))
+        {
+            var reader = new SqliteResultReader(opened.DatabasePath);
+            lastEnded = await reader.ReadLastEndedAsync(cancellationToken).ConfigureAwait(false);
+            highest = await reader.ReadHighestSerialAsync($"{design.SerialPrefix}-{YearWeek:D4}-", cancellationToken).ConfigureAwait(false);
+        }
+
+        var firstCounter = _options.FirstSerial ?? (highest is { Length: >= 6 } && int.TryParse(highest.AsSpan(highest.Length - 6), System.Globalization.NumberStyles.None, System.Globalization.CultureInfo.InvariantCulture, out var counter) ? counter + 1 : _options.FirstSerialCounter);
+
+        // The length of the shift, from a dry pass with the same seed into a folder that is thrown away: the same
+        // units, verdicts and waits, so the same virtual duration.
+        var scratch = Directory.CreateTempSubdirectory("linetest-demo-");
+        TimeSpan length;
+        try
+        {
+            var dry = await SimulateAsync(now, firstCounter, scratch.FullName, "engineering", _ => { }, notice: null, Microsoft.Extensions.Logging.Abstractions.NullLoggerFactory.Instance, cancellationToken).ConfigureAwait(false);
+            length = dry.LastEnded - now;
+        }
+        finally
+        {
+            scratch.Delete(recursive: true);
+        }
+
+        // An empty folder's first shift starts at 06:00 UTC a week ago, as if the station had been in production since;
+        // later shifts start one reload gap after the last stored run. Either way the shift must end by now.
+        var start = lastEnded is { } last
+            ? last + TimeSpan.FromSeconds(_options.ReloadSeconds)
+            : new DateTimeOffset((now - HistoryWindow).UtcDateTime.Date.AddHours(6), TimeSpan.Zero);
+        if (start + length > now)
+        {
+            var perUnit = length.TotalSeconds / Math.Max(1, _options.Units);
+            var fit = (int)Math.Floor((now - start).TotalSeconds / perUnit) - _options.Slots;
+            var advice = fit > 0 ? FormattableString.Invariant($"test at most {fit} units, or use another results folder") : "use another results folder, or run it later";
+            var after = lastEnded is { } end ? FormattableString.Invariant($"the runs in {_options.ResultsDirectory} end at {end.UtcDateTime:yyyy-MM-dd HH:mm} UTC and ") : string.Empty;
+            Unplaced = FormattableString.Invariant(
+                $"{after}a shift of {_options.Units} units takes {length.TotalHours:F1} h, so starting {start.UtcDateTime:yyyy-MM-dd HH:mm} UTC it would end in the future; {advice}");
+            return Summary(0, [], TimeSpan.Zero, wallStart, ResultsDatabase.PathIn(_options.ResultsDirectory));
+        }
+
+        StartedUtc = start;
+        var outcome = await SimulateAsync(start, firstCounter, _options.ResultsDirectory, _options.Mode, runEnded, _options.Notice, _loggers, cancellationToken).ConfigureAwait(false);
+        return Summary(outcome.Units, outcome.Runs, outcome.LastEnded - start, wallStart, outcome.DatabasePath);
+    }
+
+    /// <summary>Year and week in the demo serials (YYWW).</summary>
+    private const int YearWeek = 2612;
+
+    /// <summary>How far back an empty folder's first shift starts: room for about a week of demo shifts before now.</summary>
+    private static readonly TimeSpan HistoryWindow = TimeSpan.FromDays(7);
+
+    private ShiftSummary Summary(int units, List<RunRecord> runs, TimeSpan simulated, long wallStart, string path)
+    {
+        var pass = runs.Count(r => r.Verdict == Verdict.Pass);
+        return new ShiftSummary
+        {
+            Units = runs.Count,
+            Pass = pass,
+            Fail = runs.Count(r => r.Verdict == Verdict.Fail),
+            Error = runs.Count(r => r.Verdict == Verdict.Error),
+            FirstPassYield = runs.Count == 0 ? 0 : (double)pass / runs.Count,
+            SimulatedSeconds = units == 0 ? 0 : simulated.TotalSeconds,
+            WallSeconds = TimeProvider.System.GetElapsedTime(wallStart).TotalSeconds,
+            ResultsPath = path,
+        };
+    }
+
+    private async Task<(int Units, List<RunRecord> Runs, DateTimeOffset LastEnded, string DatabasePath)> SimulateAsync(
+        DateTimeOffset startUtc, int firstCounter, string directory, string mode, Action<RunRecord> runEnded, Action<string>? notice, ILoggerFactory loggers, CancellationToken cancellationToken)
+    {
+        var fixture = _options.Fixture;
+        var clock = new VirtualTimeProvider(startUtc);
+        if (string.Equals(directory, _options.ResultsDirectory, StringComparison.Ordinal))
+        {
+            _options.ClockStarted?.Invoke(clock);
+        }
+
+        var station = SimulatedStation.Create(fixture, _options.Sequence.Product, _options.Seed, clock, firstCounter, YearWeek);
+        using var serialRig = _options.Serial ? new SimulatedSerialRig(station.Rig, loggers) : null;
         var slots = fixture.Slots.Select(s => s.Slot).Order().Take(_options.Slots).ToList();
         var runs = new List<RunRecord>();
-        await using var store = SqliteResultStore.Open(_options.ResultsDirectory);
+        await using var store = SqliteResultStore.Open(directory);
         var sink = new StoreSink(store, run =>
         {
             runs.Add(run);
             runEnded(run);
         });
-        var coordinator = new BatchCoordinator(
-            serialRig?.Instruments ?? rig.Instruments,
-            fixture,
-            ReferenceConversion.ToCelsius(sensor),
-            clock,
-            sink,
-            new AutoConfirmOperator(),
-            observer: null,
-            _loggers.CreateLogger<BatchCoordinator>(),
-            partFitting: new SimulatedPartFitting(rig));
+        var coordinator = station.Coordinator(
+            sink, new CoordinatorParts { Logger = loggers.CreateLogger<BatchCoordinator>() }, serialRig?.Instruments);
 
-        Recovered = await StartupRecovery.RunAsync(coordinator, store, _loggers.CreateLogger<SimulatedShift>(), cancellationToken).ConfigureAwait(false);
-        if (Recovered.Count > 0 && _options.Notice is { } notice)
+        var recovered = await StartupRecovery.RunAsync(coordinator, store, loggers.CreateLogger<SimulatedShift>(), cancellationToken).ConfigureAwait(false);
+        if (string.Equals(directory, _options.ResultsDirectory, StringComparison.Ordinal))
         {
-            notice(StartupRecovery.Message(Recovered.Count));
-            foreach (var run in Recovered)
+            Recovered = recovered;
+            if (recovered.Count > 0)
             {
-                notice($"  interrupted: {run.Serial} slot {run.Slot}, batch {run.BatchId}, {run.Readings.Count} readings kept");
+                notice?.Invoke(StartupRecovery.Message(recovered.Count));
+                foreach (var run in recovered)
+                {
+                    notice?.Invoke($"  interrupted: {run.Serial} slot {run.Slot}, batch {run.BatchId}, {run.Readings.Count} readings kept");
+                }
             }
         }
 
         Refusal = await ProductionGate.RefusalAsync(
-            _options.Mode, store, _options.Sequence.Id, _options.Sequence.Revision, _options.SequenceSha256, _options.SequenceFile, cancellationToken).ConfigureAwait(false);
+            mode, store, _options.Sequence.Id, _options.Sequence.Revision, _options.SequenceSha256, _options.SequenceFile, cancellationToken).ConfigureAwait(false);
         if (Refusal is not null)
         {
-            return new ShiftSummary
-            {
-                Units = 0,
-                Pass = 0,
-                Fail = 0,
-                Error = 0,
-                FirstPassYield = 0,
-                SimulatedSeconds = 0,
-                WallSeconds = TimeProvider.System.GetElapsedTime(wallStart).TotalSeconds,
-                ResultsPath = store.DatabasePath,
-            };
+            return (0, runs, startUtc, store.DatabasePath);
         }
 
         var remaining = _options.Units;
@@ -104,14 +176,7 @@ public sealed class SimulatedShift
             while (remaining > 0)
             {
                 cancellationToken.ThrowIfCancellationRequested();
-                var loads = new List<SlotLoad>();
-                foreach (var slot in slots.Take(Math.Min(remaining, slots.Count)))
-                {
-                    var unit = factory.NextUnit();
-                    rig.Load(slot, unit);
-                    loads.Add(new SlotLoad(slot, unit.Serial));
-                }
-
+                var loads = station.LoadUnits(slots.Take(Math.Min(remaining, slots.Count))).Select(l => l.Load).ToList();
                 remaining -= loads.Count;
                 var request = new BatchRequest
                 {
@@ -121,12 +186,12 @@ public sealed class SimulatedShift
                     Loads = loads,
                     Operator = _options.Operator,
                     Lot = _options.Lot,
-                    Mode = _options.Mode,
+                    Mode = mode,
                 };
                 await coordinator.RunAsync(request, cancellationToken).ConfigureAwait(false);
                 foreach (var load in loads)
                 {
-                    rig.Unload(load.Slot);
+                    station.Rig.Unload(load.Slot);
                 }
 
                 if (remaining > 0)
@@ -140,17 +205,6 @@ public sealed class SimulatedShift
             await coordinator.StandbyAsync("end of shift").ConfigureAwait(false);
         }
 
-        var pass = runs.Count(r => r.Verdict == Verdict.Pass);
-        return new ShiftSummary
-        {
-            Units = runs.Count,
-            Pass = pass,
-            Fail = runs.Count(r => r.Verdict == Verdict.Fail),
-            Error = runs.Count(r => r.Verdict == Verdict.Error),
-            FirstPassYield = runs.Count == 0 ? 0 : (double)pass / runs.Count,
-            SimulatedSeconds = (clock.GetUtcNow() - start).TotalSeconds,
-            WallSeconds = TimeProvider.System.GetElapsedTime(wallStart).TotalSeconds,
-            ResultsPath = store.DatabasePath,
-        };
+        return (runs.Count, runs, runs.Count == 0 ? startUtc : runs.Max(r => r.EndedUtc), store.DatabasePath);
     }
 }

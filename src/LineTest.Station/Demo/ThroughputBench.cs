@@ -7,7 +7,6 @@ using LineTest.Rig.Simulation;
 using LineTest.Runtime.Batches;
 using LineTest.Station.Composition;
 using Microsoft.Extensions.Logging;
-using Microsoft.Extensions.Logging.Abstractions;
 
 namespace LineTest.Station.Demo;
 
@@ -129,8 +128,7 @@ public static class ThroughputBench
     /// <summary>One simulated rig and coordinator with defect-free units, batches run back to back (no standby between).</summary>
     private sealed class BenchRig
     {
-        private readonly SimulatedRig _rig;
-        private readonly SimulatedUnitFactory _factory;
+        private readonly SimulatedStation _station;
         private readonly BatchCoordinator _coordinator;
         private readonly SequenceDefinition _sequence;
         private readonly string _sha256;
@@ -140,34 +138,22 @@ public static class ThroughputBench
             var simulation = fixture.Simulation ?? new SimulationDefinition();
             simulation = withDefects ? simulation : simulation with { DefectRate = 0 };
             var perfect = fixture with { Simulation = simulation };
-            var sensor = ReferenceConversion.SensorOf(perfect);
             var clock = new VirtualTimeProvider(new DateTimeOffset(2026, 1, 1, 6, 0, 0, TimeSpan.Zero));
-            _rig = new SimulatedRig(perfect, seed, clock, ReferenceConversion.FromCelsius(sensor));
-            var design = SimulatedUnitDesign.ForProduct(sequence.Product)
-                ?? throw new ArgumentException($"The simulator builds no '{sequence.Product}' units.", nameof(sequence));
-            _factory = new SimulatedUnitFactory(seed, simulation, design);
-            _coordinator = new BatchCoordinator(_rig.Instruments, perfect, ReferenceConversion.ToCelsius(sensor), clock, new DiscardSink(),
-                new AutoConfirmOperator(), null, NullLogger.Instance, timing, new SimulatedPartFitting(_rig));
+            _station = SimulatedStation.Create(perfect, sequence.Product, seed, clock);
+            _coordinator = _station.Coordinator(new DiscardSink(), new CoordinatorParts { Timing = timing });
             _sequence = sequence;
             _sha256 = sha256;
         }
 
         public async Task<BatchOutcome> RunAsync(IReadOnlyList<int> slots, BatchSchedule schedule, CancellationToken ct)
         {
-            var loads = new List<SlotLoad>();
-            foreach (var slot in slots)
-            {
-                var unit = _factory.NextUnit();
-                _rig.Load(slot, unit);
-                loads.Add(new SlotLoad(slot, unit.Serial));
-            }
-
+            var loads = _station.LoadUnits(slots).Select(l => l.Load).ToList();
             var outcome = await _coordinator.RunAsync(
                 new BatchRequest { Sequence = _sequence, SequenceSha256 = _sha256, Station = "bench", Loads = loads, Schedule = schedule }, ct)
                 .ConfigureAwait(false);
             foreach (var slot in slots)
             {
-                _rig.Unload(slot);
+                _station.Rig.Unload(slot);
             }
 
             return outcome;

@@ -48,6 +48,22 @@ public sealed record RunFilter
     /// </summary>
     public IReadOnlyCollection<string>? ReadingNames { get; init; }
 
+    /// <summary>
+    /// The filter's conditions applied to one run in C#, for inputs that are not a database (a readings CSV). Exactly
+    /// the conditions <c>FilterSql</c> writes as SQL, with the same comparisons: ordinal text, <see cref="FromUtc"/>
+    /// inclusive, <see cref="ToUtc"/> exclusive. A condition on a value the run does not have (null) does not match.
+    /// Seq bounds and reading names are not conditions on a run's fields and are ignored here.
+    /// </summary>
+    public bool Matches(DateTimeOffset? endedUtc, string? station, int? slot, string? lot, string? sequenceId, int? revision, string? serial) =>
+        (FromUtc is not { } from || (endedUtc is { } a && a >= from))
+        && (ToUtc is not { } to || (endedUtc is { } b && b < to))
+        && (Station is null || string.Equals(station, Station, StringComparison.Ordinal))
+        && (Slot is not { } s || slot == s)
+        && (Lot is null || string.Equals(lot, Lot, StringComparison.Ordinal))
+        && (SequenceId is null || string.Equals(sequenceId, SequenceId, StringComparison.Ordinal))
+        && (SequenceRevision is not { } r || revision == r)
+        && (Serial is null || string.Equals(serial, Serial, StringComparison.Ordinal));
+
     /// <summary>True when any condition on the runs is set (reading names aside).</summary>
     internal bool HasRunCondition =>
         FromUtc is not null || ToUtc is not null || Station is not null || Slot is not null || Lot is not null

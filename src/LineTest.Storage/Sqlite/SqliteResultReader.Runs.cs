@@ -36,10 +36,30 @@ public sealed partial class SqliteResultReader
                 ct.ThrowIfCancellationRequested();
             }
 
-            yield return new RunSummary(
-                raw.sqlite3_column_int64(scan, 0),
+            yield return ReadSummary(scan, pool);
+        }
+    }
+
+    private RunSummary ReadSummary(sqlite3_stmt scan, Utf8StringPool pool)
+    {
+        var seq = raw.sqlite3_column_int64(scan, 0);
+        try
+        {
+            var serial = Encoding.UTF8.GetString(raw.sqlite3_column_blob(scan, 2));
+            if (string.IsNullOrWhiteSpace(serial))
+            {
+                throw Damaged(seq, "the run has no serial");
+            }
+
+            if (raw.sqlite3_column_type(scan, 6) != raw.SQLITE_INTEGER || raw.sqlite3_column_type(scan, 9) != raw.SQLITE_INTEGER)
+            {
+                throw Damaged(seq, "the slot or the sequence revision is not a whole number");
+            }
+
+            return new RunSummary(
+                seq,
                 ParseGuid(scan, 1),
-                Encoding.UTF8.GetString(raw.sqlite3_column_blob(scan, 2)),
+                serial,
                 ParseVerdict(pool.Get(raw.sqlite3_column_blob(scan, 3))),
                 ParseUtc(raw.sqlite3_column_blob(scan, 4)),
                 pool.Get(raw.sqlite3_column_blob(scan, 5)),
@@ -49,6 +69,84 @@ public sealed partial class SqliteResultReader
                 raw.sqlite3_column_int(scan, 9),
                 PooledOrNull(pool, scan, 10),
                 PooledOrNull(pool, scan, 11));
+        }
+        catch (Exception ex) when (ex is FormatException or InvalidDataException or OverflowException or ArgumentException)
+        {
+            // A stored run that does not parse (a non-date ended_utc, verdict 'maybe', an id that is no GUID).
+            throw Damaged(seq, ex.Message);
+        }
+    }
+
+    /// <summary>
+    /// The product of each given run (a primary-key look-up per run), keyed by the run's sequence id: reports name the
+    /// product each figure covers without reading the product column of every run.
+    /// </summary>
+    /// <exception cref="ResultStoreException">The database cannot be opened or read.</exception>
+    public async Task<IReadOnlyDictionary<string, string>> ReadProductsAsync(IEnumerable<long> runSeqs, CancellationToken ct = default)
+    {
+        ArgumentNullException.ThrowIfNull(runSeqs);
+        var products = new Dictionary<string, string>(StringComparer.Ordinal);
+        await using var connection = await OpenAsync(ct).ConfigureAwait(false);
+        await using var command = connection.CreateCommand();
+        command.CommandText = "SELECT sequence_id, product FROM runs WHERE seq = $seq;";
+        var parameter = command.Parameters.Add("$seq", SqliteType.Integer);
+        foreach (var seq in runSeqs)
+        {
+            parameter.Value = seq;
+            await using var reader = await ExecuteAsync(command, ct).ConfigureAwait(false);
+            if (Read(reader) && reader.GetValue(0) is string sequence && reader.GetValue(1) is string product && product.Length > 0)
+            {
+                products[sequence] = product;
+            }
+        }
+
+        return products;
+    }
+
+    /// <summary>The latest end time of any stored run (from the end-time index), or null when none is stored.</summary>
+    /// <exception cref="ResultStoreException">The database cannot be opened or read, or the stored time is damaged.</exception>
+    public async Task<DateTimeOffset?> ReadLastEndedAsync(CancellationToken ct = default)
+    {
+        await using var connection = await OpenAsync(ct).ConfigureAwait(false);
+        await using var command = connection.CreateCommand();
+        command.CommandText = "SELECT seq, ended_utc FROM runs ORDER BY ended_utc DESC LIMIT 1;";
+        await using var reader = await ExecuteAsync(command, ct).ConfigureAwait(false);
+        if (!Read(reader))
+        {
+            return null;
+        }
+
+        return Checked(reader.GetInt64(0), () => UtcText.Parse(reader.GetString(1)));
+    }
+
+    /// <summary>The highest stored serial that starts with <paramref name="prefix"/> (ordinal order), or null (serial index).</summary>
+    /// <exception cref="ResultStoreException">The database cannot be opened or read.</exception>
+    public async Task<string?> ReadHighestSerialAsync(string prefix, CancellationToken ct = default)
+    {
+        ArgumentException.ThrowIfNullOrEmpty(prefix);
+        await using var connection = await OpenAsync(ct).ConfigureAwait(false);
+        await using var command = connection.CreateCommand();
+        command.CommandText = "SELECT max(serial) FROM runs WHERE serial >= $low AND serial < $high;";
+        command.Parameters.AddWithValue("$low", prefix);
+        command.Parameters.AddWithValue("$high", prefix + "\uffff");
+        await using var reader = await ExecuteAsync(command, ct).ConfigureAwait(false);
+        return Read(reader) && reader.GetValue(0) is string serial ? serial : null;
+    }
+
+    /// <summary>The operator of each run matching <paramref name="filter"/>, in <c>seq</c> order (null where none was stored).</summary>
+    /// <exception cref="ResultStoreException">The database cannot be opened or read.</exception>
+    public async IAsyncEnumerable<(long Seq, string? Operator)> ReadOperatorsAsync(RunFilter filter, [EnumeratorCancellation] CancellationToken ct = default)
+    {
+        ArgumentNullException.ThrowIfNull(filter);
+        await using var connection = await OpenAsync(ct).ConfigureAwait(false);
+        await using var command = connection.CreateCommand();
+        var sql = new StringBuilder("SELECT r.seq, r.operator FROM runs r");
+        FilterSql.AppendWhere(sql, command, filter, includeReadingNames: false);
+        command.CommandText = sql.Append(" ORDER BY r.seq;").ToString();
+        await using var reader = await ExecuteAsync(command, ct).ConfigureAwait(false);
+        while (Read(reader))
+        {
+            yield return (reader.GetInt64(0), reader.GetValue(1) as string);
         }
     }
 
@@ -115,7 +213,15 @@ public sealed partial class SqliteResultReader
             return new DateTimeOffset(new DateTime(year, month, day, hour, minute, second, DateTimeKind.Utc).AddTicks(fraction));
         }
 
-        return UtcText.Parse(Encoding.UTF8.GetString(utf8));
+        var text = Encoding.UTF8.GetString(utf8);
+        try
+        {
+            return UtcText.Parse(text);
+        }
+        catch (FormatException)
+        {
+            throw new FormatException($"ended_utc '{(text.Length > 40 ? text[..40] + "…" : text)}' is not a stored date and time ({UtcText.Format})");
+        }
     }
 
     private static bool Digits(ReadOnlySpan<byte> utf8, int start, int count, out int value)

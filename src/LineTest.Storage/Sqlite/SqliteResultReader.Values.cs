@@ -61,15 +61,56 @@ public sealed partial class SqliteResultReader
                 continue;
             }
 
-            yield return new ReadingValue(
-                readingRunSeq,
-                names.Get(raw.sqlite3_column_blob(scan, 1)),
-                NullableDouble(scan, 2),
-                units.Get(raw.sqlite3_column_blob(scan, 3)),
-                NullableDouble(scan, 4),
-                NullableDouble(scan, 5));
+            yield return ReadValue(scan, readingRunSeq, names, units);
         }
     }
+
+    /// <summary>A damaged row: the database is not usable for a report as it is; says which run and why.</summary>
+    internal ResultStoreException Damaged(long seq, string reason) => new(
+        ResultStoreFailure.Incompatible,
+        $"The results database '{DatabasePath}' holds a damaged run (seq {seq}): {reason}. Restore it from a backup or report on a filtered range.");
+
+    private ReadingValue ReadValue(sqlite3_stmt scan, long seq, Utf8StringPool names, Utf8StringPool units)
+    {
+        var name = names.Get(raw.sqlite3_column_blob(scan, 1));
+        if (string.IsNullOrWhiteSpace(name))
+        {
+            throw Damaged(seq, "a reading has an empty name");
+        }
+
+        var value = Number(scan, 2, seq, name, "value");
+        var low = Number(scan, 4, seq, name, "low limit");
+        var high = Number(scan, 5, seq, name, "high limit");
+        if (low is { } l && high is { } h && !(l < h))
+        {
+            throw Damaged(seq, FormattableString.Invariant($"reading '{name}' has a low limit {l} that is not below its high limit {h}"));
+        }
+
+        return new ReadingValue(seq, name, value, units.Get(raw.sqlite3_column_blob(scan, 3)), low, high);
+    }
+
+    /// <summary>A numeric column: null, or a finite number; text, a blob or an infinity is damage, never 0.</summary>
+    private double? Number(sqlite3_stmt statement, int column, long seq, string name, string what)
+    {
+        var type = raw.sqlite3_column_type(statement, column);
+        if (type == raw.SQLITE_NULL)
+        {
+            return null;
+        }
+
+        if (type is raw.SQLITE_FLOAT or raw.SQLITE_INTEGER)
+        {
+            var number = raw.sqlite3_column_double(statement, column);
+            return double.IsFinite(number)
+                ? number
+                : throw Damaged(seq, FormattableString.Invariant($"reading '{name}' has a {what} of {number}, which is not a finite number"));
+        }
+
+        var text = type == raw.SQLITE_TEXT ? raw.sqlite3_column_text(statement, column).utf8_to_string() : "(binary data)";
+        throw Damaged(seq, $"reading '{name}' has a {what} of '{Shorten(text)}', which is not a number");
+    }
+
+    private static string Shorten(string text) => text.Length <= 40 ? text : text[..40] + "…";
 
     /// <summary>
     /// The lowest and highest <c>seq</c> of the runs that match <paramref name="filter"/> now (null when none do). Runs

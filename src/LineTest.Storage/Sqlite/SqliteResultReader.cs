@@ -45,7 +45,7 @@ public sealed partial class SqliteResultReader
         while (Read(reader))
         {
             ct.ThrowIfCancellationRequested();
-            yield return new RunSummary(
+            yield return Checked(reader.GetInt64(0), () => new RunSummary(
                 reader.GetInt64(0),
                 ParseGuid(reader, 1),
                 reader.GetString(2),
@@ -57,7 +57,20 @@ public sealed partial class SqliteResultReader
                 reader.GetString(8),
                 reader.GetInt32(9),
                 NullableString(reader, 10),
-                NullableString(reader, 11));
+                NullableString(reader, 11)));
+        }
+    }
+
+    /// <summary>Reads one row of run <paramref name="seq"/>; a value that does not parse is reported as damage to that run.</summary>
+    private T Checked<T>(long seq, Func<T> read)
+    {
+        try
+        {
+            return read();
+        }
+        catch (Exception ex) when (ex is FormatException or InvalidDataException or OverflowException or InvalidCastException or ArgumentException)
+        {
+            throw Damaged(seq, ex.Message);
         }
     }
 
@@ -98,11 +111,11 @@ public sealed partial class SqliteResultReader
             ct.ThrowIfCancellationRequested();
             if (joined.RunChanged)
             {
-                seq = runs.GetInt64(0);
-                runId = ParseGuid(runs, 1);
-                serial = runs.GetString(2);
-                runVerdict = ParseVerdict(runs, 3);
-                ended = ParseUtc(runs, 4);
+                seq = Checked(0, () => runs.GetInt64(0));
+                runId = Checked(seq, () => ParseGuid(runs, 1));
+                serial = Checked(seq, () => runs.GetString(2));
+                runVerdict = Checked(seq, () => ParseVerdict(runs, 3));
+                ended = Checked(seq, () => ParseUtc(runs, 4));
                 station = runs.GetString(5);
                 slot = runs.GetInt32(6);
                 lot = NullableString(runs, 7);
@@ -110,7 +123,7 @@ public sealed partial class SqliteResultReader
                 revision = runs.GetInt32(9);
             }
 
-            yield return new ReadingRow(
+            yield return Checked(seq, () => new ReadingRow(
                 seq,
                 runId,
                 serial,
@@ -132,7 +145,7 @@ public sealed partial class SqliteResultReader
                 NullableString(reader, 9),
                 NullableDouble(reader, 10),
                 NullableDouble(reader, 11),
-                NullableDouble(reader, 12));
+                NullableDouble(reader, 12)));
         }
     }
 

@@ -9,7 +9,7 @@ namespace LineTest.Storage.Sqlite;
 internal static class SqliteSchema
 {
     /// <summary>The schema version this code writes and reads.</summary>
-    public const int CurrentVersion = 3;
+    public const int CurrentVersion = 4;
 
     /// <summary>'LTR1' in ASCII: identifies a LineTest results file (SQLite file format, header offset 68).</summary>
     public const int ApplicationId = 0x4C545231;
@@ -143,6 +143,14 @@ internal static class SqliteSchema
         {
             Execute(connection, transaction, AddV3);
             Execute(connection, transaction, "PRAGMA user_version = 3;");
+            version = 3;
+        }
+
+        // Version 4: the factory outbox (SqliteOutboxSchema), additive.
+        if (version == 3)
+        {
+            Execute(connection, transaction, SqliteOutboxSchema.AddV4);
+            Execute(connection, transaction, "PRAGMA user_version = 4;");
         }
 
         transaction.Commit();

@@ -205,7 +205,7 @@ internal static class WebPageEndpoints
             var (query, problems) = filters.ToQuery(products);
             if (query is null)
             {
-                var main = filters.Form(section, products) + string.Concat(problems.Select(PageFrame.Notice));
+                var main = filters.Form(section, products) + string.Concat(problems.Select(PageFrame.Notice)) + filters.SequenceChoices(context.Request.Path, context.Request.Query, products);
                 return Results.Content(PageFrame.Page(title, section, main, Footer(source, time)), "text/html; charset=utf-8", Encoding.UTF8, StatusCodes.Status400BadRequest);
             }
 

@@ -84,6 +84,37 @@ internal sealed record PageFilters
         return (new ReportQuery { Station = Station, Lot = Lot, SequenceId = sequence, FromUtc = from, ToUtc = to }, problems);
     }
 
+    /// <summary>
+    /// When the product was tested by several sequences and none is chosen, a link per sequence to the same view with
+    /// that sequence; otherwise empty.
+    /// </summary>
+    /// <param name="action">The view's path.</param>
+    /// <param name="query">The view's query, kept in each link (its sequence replaced).</param>
+    /// <param name="products">Products and their sequences.</param>
+    public string SequenceChoices(string action, IQueryCollection query, IReadOnlyList<ProductSequence> products)
+    {
+        if (Product is null || Sequence is not null)
+        {
+            return string.Empty;
+        }
+
+        var sequences = products.Where(p => p.Product == Product).ToList();
+        if (sequences.Select(p => p.SequenceId).Distinct().Count() < 2)
+        {
+            return string.Empty;
+        }
+
+        var html = new StringBuilder("<ul class=\"choices\">");
+        foreach (var p in sequences)
+        {
+            var pairs = query.Where(kv => kv.Key != "sequence").Select(kv => (kv.Key, (string?)kv.Value.ToString())).Append(("sequence", p.SequenceId)).ToArray();
+            html.Append("<li><a href=\"").Append(action).Append(Html.Query(pairs)).Append("\">").Append(Html.E(p.SequenceId)).Append("</a> (")
+                .Append(p.Runs.ToString(CultureInfo.InvariantCulture)).Append(" runs)</li>");
+        }
+
+        return html.Append("</ul>").ToString();
+    }
+
     /// <summary>The filter form (GET) with the product choices.</summary>
     public string Form(string action, IReadOnlyList<ProductSequence> products, string? extraName = null, string? extraValue = null)
     {

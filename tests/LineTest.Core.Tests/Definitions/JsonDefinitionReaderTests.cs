@@ -61,21 +61,12 @@ public sealed class JsonDefinitionReaderTests
     {
         var text = TestFiles.Edit(TestFiles.SequenceBase, "\"trim\": {", "\"trim\": 5, \"unused\": {");
 
-        var problem = Assert.Single(JsonDefinitionReader.Parse<SequenceDefinition>("s.json", TestFiles.Utf8(text)).Problems);
+        var problems = JsonDefinitionReader.Parse<SequenceDefinition>("s.json", TestFiles.Utf8(text)).Problems;
 
-        Assert.Equal("$.trim", problem.JsonPath);
-        Assert.StartsWith("expected ", problem.Reason, StringComparison.Ordinal);
-        Assert.DoesNotContain("LineTest.", problem.Reason, StringComparison.Ordinal);
-    }
-
-    [Fact]
-    public void ReadFile_MissingFile_HasNoHash()
-    {
-        var parsed = JsonDefinitionReader.ReadFile<SequenceDefinition>(Path.Combine(AppContext.BaseDirectory, "absent.json"));
-
-        Assert.Null(parsed.Sha256);
-        Assert.Null(parsed.Value);
-        Assert.Equal("file not found", Assert.Single(parsed.Problems).Reason);
+        // Both shape problems of the edit, not only the first: the wrong type and the key that does not belong.
+        Assert.Equal(["$.trim", "$.unused"], problems.Select(p => p.JsonPath));
+        Assert.Equal("expected an object, not a number", problems[0].Reason);
+        Assert.DoesNotContain("LineTest.", problems[0].Reason, StringComparison.Ordinal);
     }
 
     [Fact]

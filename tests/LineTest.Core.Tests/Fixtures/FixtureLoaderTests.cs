@@ -1,3 +1,4 @@
+using LineTest.TestSupport;
 using LineTest.Core.Fixtures;
 using LineTest.Core.Tests.TestData;
 
@@ -19,7 +20,7 @@ public sealed class FixtureLoaderTests
         ["standby above the safe range"] = new("\"standbyC\": 23,", "\"standbyC\": 125.5,", "standbyC", "$.source.standbyC",
             "standby 125.5 °C is outside the safe range -30 … 125 °C"),
         ["duplicate slot"] = new("{ \"slot\": 2,", "{ \"slot\": 1,", "\"outputChannel\": 102", "$.slots[1].slot", "slot 1 is defined twice"),
-        ["slot number zero"] = new("{ \"slot\": 1,", "{ \"slot\": 0,", "\"outputChannel\": 101", "$.slots[0].slot", "slot numbers start at 1"),
+        ["slot number zero"] = new("{ \"slot\": 1,", "{ \"slot\": 0,", "\"outputChannel\": 101", "$.slots[0].slot", "must be a whole number 1 … 64, not 0"),
         ["output channel wired twice"] = new("\"outputChannel\": 102", "\"outputChannel\": 101", "\"slot\": 2", "$.slots[1].outputChannel",
             "meter channel 101 is already wired to the output of slot 1"),
         ["supply channel on another slot's output"] = new("\"supplyChannel\": 113", "\"supplyChannel\": 102", "\"slot\": 3", "$.slots[2].supplyChannel",
@@ -27,17 +28,17 @@ public sealed class FixtureLoaderTests
         ["output and supply on one channel"] = new("\"supplyChannel\": 114", "\"supplyChannel\": 104", "\"slot\": 4", "$.slots[3].supplyChannel",
             "meter channel 104 is already wired to the output of slot 4"),
         ["zero heating rate"] = new("\"rampUpCPerMinute\": 15,", "\"rampUpCPerMinute\": 0,", "rampUpCPerMinute", "$.source.rampUpCPerMinute",
-            "the heating rate must be positive"),
+            "must be a number above 0 and at most 1000 °C/min, not 0"),
         ["negative cooling rate"] = new("\"rampDownCPerMinute\": 10,", "\"rampDownCPerMinute\": -10,", "rampDownCPerMinute", "$.source.rampDownCPerMinute",
-            "the cooling rate must be positive"),
+            "must be a number above 0 and at most 1000 °C/min, not -10"),
         ["unknown source kind"] = new("\"kind\": \"dry-block\"", "\"kind\": \"dryblock\"", "\"dryblock\"", "$.source.kind", "unknown source kind 'dryblock'"),
         ["unknown rig"] = new("\"rig\": \"simulator\"", "\"rig\": \"sim\"", "\"rig\"", "$.rig", "unknown rig 'sim' (known: simulator, serial)"),
         ["zero shunt"] = new("\"supplyChannel\": 112, \"supplyShuntOhms\": 10", "\"supplyChannel\": 112, \"supplyShuntOhms\": 0", "\"slot\": 2", "$.slots[1].supplyShuntOhms",
-            "the shunt resistance must be positive"),
-        ["zero meter range"] = new("\"rangeVolts\": 10,", "\"rangeVolts\": 0,", "rangeVolts", "$.meter.rangeVolts", "the meter range must be positive"),
-        ["defect rate above one"] = new("\"defectRate\": 0.04", "\"defectRate\": 4", "defectRate", "$.simulation.defectRate", "must be between 0 and 1"),
-        ["more slot offsets than slots"] = new("[ 0.0, 0.01, -0.01, 0.02 ]", "[ 0.0, 0.01, -0.01, 0.02, 0.03 ]", "slotOffsetsC", "$.simulation.slotOffsetsC", "more offsets than slots"),
-        ["misspelt key"] = new("\"standbyC\": 23,", "\"standbyTempC\": 23,", "standbyTempC", "$.source.standbyTempC", "unknown property 'standbyTempC'"),
+            "must be a number above 0 and at most 1000000000 Ω, not 0"),
+        ["zero meter range"] = new("\"rangeVolts\": 10,", "\"rangeVolts\": 0,", "rangeVolts", "$.meter.rangeVolts", "must be a number above 0 and at most 1000 V, not 0"),
+        ["defect rate above one"] = new("\"defectRate\": 0.04", "\"defectRate\": 4", "defectRate", "$.simulation.defectRate", "must be a number 0 … 1, not 4"),
+        ["more slot offsets than slots"] = new("[ 0.0, 0.01, -0.01, 0.02 ]", "[ 0.0, 0.01, -0.01, 0.02, 0.03 ]", "slotOffsetsC", "$.simulation.slotOffsetsC", "more offsets (5) than slots (4)"),
+        ["misspelt key"] = new("\"standbyC\": 23,", "\"standbyTempC\": 23,", "standbyTempC", "$.source.standbyTempC", "unknown property 'standbyTempC'", ProblemCount: 2),
         ["string where a whole number is"] = new("\"outputChannel\": 103", "\"outputChannel\": \"103\"", "\"slot\": 3", "$.slots[2].outputChannel", "expected a whole number"),
         ["missing required source property"] = new("    \"standbyC\": 23,\n", string.Empty, "\"source\": {", "$.source", "missing required property 'standbyC'"),
     };
@@ -47,7 +48,7 @@ public sealed class FixtureLoaderTests
     [Fact]
     public void LoadFile_ShippedFixture_LoadsWithoutProblems()
     {
-        var result = FixtureLoader.LoadFile(TestFiles.ShippedFixturePath);
+        var result = DefinitionFile.Fixture(TestFiles.ShippedFixturePath);
 
         Assert.Empty(result.Problems);
         Assert.True(result.IsSuccess);
@@ -161,17 +162,6 @@ public sealed class FixtureLoaderTests
     }
 
     [Fact]
-    public void LoadFile_MissingFile_ReportsFileNotFoundWithoutLine()
-    {
-        var path = Path.Combine(AppContext.BaseDirectory, "no-such-fixture.json");
-
-        var problem = Assert.Single(FixtureLoader.LoadFile(path).Problems);
-
-        Assert.Null(problem.Line);
-        Assert.Equal("file not found", problem.Reason);
-    }
-
-    [Fact]
     public void Load_SerialScanner_LoadsWithItsPort()
     {
         var text = WithScanner("{ \"kind\": \"serial\", \"port\": { \"name\": \"/dev/ttyACM0\", \"baud\": 9600, \"timeoutMs\": 300 } }");
@@ -193,8 +183,8 @@ public sealed class FixtureLoaderTests
         { "{ \"kind\": \"keyboard\", \"port\": { \"name\": \"/dev/ttyACM0\" } }", "$.scanner.port", "a keyboard scanner has no port" },
         { "{ \"kind\": \"usb\" }", "$.scanner.kind", "unknown scanner kind 'usb' (known: keyboard, serial)" },
         { "{ \"kind\": \"serial\", \"port\": { \"name\": \" \" } }", "$.scanner.port.name", "the port needs a name" },
-        { "{ \"kind\": \"serial\", \"port\": { \"name\": \"/dev/ttyACM0\", \"baud\": 0 } }", "$.scanner.port.baud", "the baud rate must be positive" },
-        { "{ \"kind\": \"serial\", \"port\": { \"name\": \"/dev/ttyACM0\", \"timeoutMs\": 0 } }", "$.scanner.port.timeoutMs", "the timeout must be at least 1 ms" },
+        { "{ \"kind\": \"serial\", \"port\": { \"name\": \"/dev/ttyACM0\", \"baud\": 0 } }", "$.scanner.port.baud", "must be a whole number 50 … 4000000 Bd, not 0" },
+        { "{ \"kind\": \"serial\", \"port\": { \"name\": \"/dev/ttyACM0\", \"timeoutMs\": 0 } }", "$.scanner.port.timeoutMs", "must be a whole number 1 … 60000 ms, not 0" },
         { "{ \"port\": { \"name\": \"/dev/ttyACM0\" } }", "$.scanner", "missing required property 'kind'" },
     };
 

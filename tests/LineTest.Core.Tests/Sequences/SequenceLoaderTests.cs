@@ -1,3 +1,4 @@
+using LineTest.TestSupport;
 using System.Security.Cryptography;
 using System.Text;
 using LineTest.Core.Definitions;
@@ -31,7 +32,7 @@ public sealed class SequenceLoaderTests
         ["fraction where a whole number is"] = new("\"revision\": 1,", "\"revision\": 1.5,", "\"revision\"", "$.revision", "expected a whole number"),
         ["null where a string is"] = new("\"id\": \"ctp40a-dac\",", "\"id\": null,", "\"id\"", "$.id", "a value is required here, not null"),
         ["missing required property"] = new("    \"bandC\": 0.05,\n", string.Empty, "\"stability\": {", "$.stability", "missing required property 'bandC'"),
-        ["misspelt key"] = new("\"bandC\": 0.05,", "\"bandc\": 0.05,", "\"bandc\"", "$.stability.bandc", "unknown property 'bandc'"),
+        ["misspelt key"] = new("\"bandC\": 0.05,", "\"bandc\": 0.05,", "\"bandc\"", "$.stability.bandc", "unknown property 'bandc'", ProblemCount: 2),
         ["misspelt key in a step"] = new("\"name\": \"cal-low\", \"setpoint\": \"cal-low\", \"samples\": 10,", "\"name\": \"cal-low\", \"setpoint\": \"cal-low\", \"sample\": 10,",
             "\"sample\"", "$.steps[3].sample", "unknown property 'sample'"),
         ["unknown step kind"] = new("{ \"kind\": \"identify\" }", "{ \"kind\": \"identfy\" }", "identfy", "$.steps[0]",
@@ -71,9 +72,9 @@ public sealed class SequenceLoaderTests
             $"    {{ \"kind\": \"verify\", \"name\": \"early\", \"setpoint\": \"cal-low\", {VerifyLimits} }},\n    {{ \"kind\": \"settle\", \"setpoint\": \"cal-high\" }},\n",
             "\"early\"", "$.steps[4]", "a verify step must come after the trim step"),
         ["duplicate step name"] = new("\"name\": \"cal-high\", \"setpoint\": \"cal-high\"", "\"name\": \"cal-low\", \"setpoint\": \"cal-high\"", "\"name\": \"cal-low\", \"setpoint\": \"cal-high\"",
-            "$.steps[5].name", "step name 'cal-low' is already used by step 4"),
+            "$.steps[5].name", "step name 'cal-low' is already used at $.steps[3].name"),
         ["no samples"] = new("\"name\": \"verify.error\", \"setpoint\": \"verify\", \"samples\": 10", "\"name\": \"verify.error\", \"setpoint\": \"verify\", \"samples\": 0", "verify.error",
-            "$.steps[8].samples", "samples must be 1 or more, not 0"),
+            "$.steps[8].samples", "must be a whole number 1 … 1000, not 0"),
 
         // Header, stability, soak and trim settings.
         ["invalid serial regex"] = new("[0-9]{4}", "[0-9{4}", "serialPattern", "$.serialPattern", "not a valid regular expression"),
@@ -81,11 +82,11 @@ public sealed class SequenceLoaderTests
             "the timeout must be longer than the stability window"),
         ["stability window shorter than two sample intervals"] = new("\"windowSeconds\": 60,", "\"windowSeconds\": 8,", "\"windowSeconds\": 8", "$.stability.windowSeconds",
             "the window must hold at least three readings"),
-        ["stability band zero"] = new("\"bandC\": 0.05,", "\"bandC\": 0,", "\"bandC\"", "$.stability.bandC", "must be a positive number, not 0"),
-        ["stability band overflowing"] = new("\"bandC\": 0.05,", "\"bandC\": 1e999,", "\"bandC\"", "$.stability.bandC", "must be a positive number within range"),
+        ["stability band zero"] = new("\"bandC\": 0.05,", "\"bandC\": 0,", "\"bandC\"", "$.stability.bandC", "must be a number above 0 and at most 100 °C, not 0"),
+        ["stability band overflowing"] = new("\"bandC\": 0.05,", "\"bandC\": 1e999,", "\"bandC\"", "$.stability.bandC", "the number is too large to be used"),
         ["negative offset from setpoint"] = new("\"bandC\": 0.05,", "\"bandC\": 0.05, \"maxOffsetFromSetpointC\": -1,", "\"bandC\"", "$.stability.maxOffsetFromSetpointC",
-            "must be a positive number, not -1"),
-        ["negative minimum soak"] = new("\"minimumSeconds\": 30,", "\"minimumSeconds\": -1,", "minimumSeconds", "$.soak.minimumSeconds", "the minimum soak cannot be negative"),
+            "must be a number above 0 and at most 100 °C, not -1"),
+        ["negative minimum soak"] = new("\"minimumSeconds\": 30,", "\"minimumSeconds\": -1,", "minimumSeconds", "$.soak.minimumSeconds", "must be a number 0 … 28800 s, not -1"),
 
         // Regression: the soak's drift window only starts after the minimum soak, so a timeout shorter than both
         // together can never be met and used to pass the check.
@@ -95,7 +96,7 @@ public sealed class SequenceLoaderTests
             "nominal code 5000 is outside 0 … 4095"),
         ["DAC min not below max"] = new("\"min\": 0, \"max\": 4095, \"nominal\": 2048, \"step\": 0.0005", "\"min\": 4095, \"max\": 4095, \"nominal\": 4095, \"step\": 0.0005", "\"OFFSET\"",
             "$.trim.dac.offset.min", "min (4095) must be below max (4095)"),
-        ["DAC target slope zero"] = new("\"slopeVoltsPerC\": 0.01", "\"slopeVoltsPerC\": 0", "slopeVoltsPerC", "$.trim.dac.target.slopeVoltsPerC", "the target slope must be a non-zero number"),
+        ["DAC target slope zero"] = new("\"slopeVoltsPerC\": 0.01", "\"slopeVoltsPerC\": 0", "slopeVoltsPerC", "$.trim.dac.target.slopeVoltsPerC", "must be a finite number other than 0"),
         ["unknown trim method"] = new("\"method\": \"dac\"", "\"method\": \"dacs\"", "\"method\"", "$.trim.method", "unknown trim method 'dacs' (known: dac, resistor, firmware)"),
     };
 
@@ -111,7 +112,7 @@ public sealed class SequenceLoaderTests
         ["resistor gain range reversed"] = ("ctp40r-resistor.json", new("\"minOhms\": 2000, \"maxOhms\": 100000", "\"minOhms\": 2000, \"maxOhms\": 1000",
             "\"R7\"", "$.trim.resistor.gain.maxOhms", "must be at least minOhms")),
         ["resistor tolerance negative"] = ("ctp40r-resistor.json", new("\"tolerancePercent\": 0.1", "\"tolerancePercent\": -1", "tolerancePercent",
-            "$.trim.resistor.tolerancePercent", "must be at least 0 and below 100")),
+            "$.trim.resistor.tolerancePercent", "must be a number 0 … 50 %, not -1")),
         ["resistor object misspelt"] = ("ctp40r-resistor.json", new("\"resistor\": {", "\"resistors\": {", "\"resistors\"", "$.trim.resistors",
             "unknown property 'resistors'")),
         ["resistor object with a dac method"] = ("ctp40r-resistor.json", new("\"method\": \"resistor\"", "\"method\": \"dac\"", "\"trim\": {", "$.trim",
@@ -141,10 +142,10 @@ public sealed class SequenceLoaderTests
     [MemberData(nameof(ShippedSequenceFiles))]
     public void LoadFile_EveryShippedSequenceAgainstShippedFixture_LoadsWithoutProblems(string file)
     {
-        var fixture = FixtureLoader.LoadFile(TestFiles.ShippedFixturePath);
+        var fixture = DefinitionFile.Fixture(TestFiles.ShippedFixturePath);
         Assert.True(fixture.IsSuccess, string.Join(Environment.NewLine, fixture.Problems));
 
-        var result = SequenceLoader.LoadFile(ShippedSequence(file), fixture.Value);
+        var result = DefinitionFile.Sequence(ShippedSequence(file), fixture.Value);
 
         Assert.Empty(result.Problems);
         Assert.Equal(Path.GetFileNameWithoutExtension(file), result.Value!.Id);
@@ -154,7 +155,7 @@ public sealed class SequenceLoaderTests
     [Fact]
     public void LoadFile_ShippedResistorSequence_ReadsTheResistorSpec()
     {
-        var result = SequenceLoader.LoadFile(ShippedSequence("ctp40r-resistor.json"));
+        var result = DefinitionFile.Sequence(ShippedSequence("ctp40r-resistor.json"));
 
         Assert.True(result.IsSuccess, string.Join(Environment.NewLine, result.Problems));
         var trim = result.Value.Trim!;
@@ -170,7 +171,7 @@ public sealed class SequenceLoaderTests
     [Fact]
     public void LoadFile_ShippedFirmwareSequence_ReadsRegistersAndLinkOutputs()
     {
-        var result = SequenceLoader.LoadFile(ShippedSequence("ctp40d-firmware.json"));
+        var result = DefinitionFile.Sequence(ShippedSequence("ctp40d-firmware.json"));
 
         Assert.True(result.IsSuccess, string.Join(Environment.NewLine, result.Problems));
         var firmware = result.Value.Trim!.Firmware!;
@@ -203,7 +204,7 @@ public sealed class SequenceLoaderTests
     {
         get
         {
-            var fixture = FixtureLoader.LoadFile(TestFiles.FixtureBasePath);
+            var fixture = DefinitionFile.Fixture(TestFiles.FixtureBasePath);
             Assert.True(fixture.IsSuccess, string.Join(Environment.NewLine, fixture.Problems));
             return fixture.Value;
         }
@@ -212,7 +213,7 @@ public sealed class SequenceLoaderTests
     [Fact]
     public void LoadFile_ShippedDemoSequence_LoadsWithoutProblems()
     {
-        var result = SequenceLoader.LoadFile(TestFiles.ShippedSequencePath);
+        var result = DefinitionFile.Sequence(TestFiles.ShippedSequencePath);
 
         Assert.Empty(result.Problems);
         Assert.True(result.IsSuccess);
@@ -223,10 +224,10 @@ public sealed class SequenceLoaderTests
     [Fact]
     public void LoadFile_ShippedDemoSequenceAgainstShippedFixture_LoadsWithoutProblems()
     {
-        var fixture = FixtureLoader.LoadFile(TestFiles.ShippedFixturePath);
+        var fixture = DefinitionFile.Fixture(TestFiles.ShippedFixturePath);
         Assert.True(fixture.IsSuccess, string.Join(Environment.NewLine, fixture.Problems));
 
-        var result = SequenceLoader.LoadFile(TestFiles.ShippedSequencePath, fixture.Value);
+        var result = DefinitionFile.Sequence(TestFiles.ShippedSequencePath, fixture.Value);
 
         Assert.Empty(result.Problems);
         Assert.True(result.IsSuccess);
@@ -235,7 +236,7 @@ public sealed class SequenceLoaderTests
     [Fact]
     public void LoadFile_ShippedDemoSequence_ReadsStepsAsTheirKinds()
     {
-        var result = SequenceLoader.LoadFile(TestFiles.ShippedSequencePath);
+        var result = DefinitionFile.Sequence(TestFiles.ShippedSequencePath);
 
         Assert.True(result.IsSuccess);
         Assert.Equal(
@@ -388,37 +389,9 @@ public sealed class SequenceLoaderTests
     }
 
     [Fact]
-    public void LoadFile_MissingFile_ReportsFileNotFoundWithoutLine()
+    public void Load_ByteOrderMark_IsAccepted()
     {
-        var path = Path.Combine(AppContext.BaseDirectory, "no-such-sequence.json");
-
-        var result = SequenceLoader.LoadFile(path);
-
-        var problem = Assert.Single(result.Problems);
-        Assert.Equal(path, problem.File);
-        Assert.Null(problem.Line);
-        Assert.Equal("$", problem.JsonPath);
-        Assert.Equal("file not found", problem.Reason);
-        Assert.Null(result.Sha256);
-        Assert.Equal($"{path}: $: file not found", problem.ToString());
-    }
-
-    [Fact]
-    public void LoadFile_MissingDirectory_ReportsFileNotFound()
-    {
-        var path = Path.Combine(AppContext.BaseDirectory, "no-such-folder", "sequence.json");
-
-        Assert.Equal("file not found", Assert.Single(SequenceLoader.LoadFile(path).Problems).Reason);
-    }
-
-    [Fact]
-    public void Load_ByteOrderMarkCommentsAndTrailingCommas_AreAccepted()
-    {
-        var text = TestFiles.SequenceBase;
-        text = TestFiles.Edit(text, "  \"stability\": {", "  // Tuned for the four-well block.\n  \"stability\": {");
-        text = TestFiles.Edit(text, "\"timeoutSeconds\": 1800", "\"timeoutSeconds\": 1800, /* trailing comma next */");
-        text = TestFiles.Edit(text, "{ \"name\": \"verify\", \"celsius\": 5 }", "{ \"name\": \"verify\", \"celsius\": 5, },");
-        var bytes = Encoding.UTF8.GetPreamble().Concat(TestFiles.Utf8(text)).ToArray();
+        var bytes = Encoding.UTF8.GetPreamble().Concat(TestFiles.Utf8(TestFiles.SequenceBase)).ToArray();
 
         var result = SequenceLoader.Load(File, bytes, Fixture);
 
@@ -482,7 +455,7 @@ public sealed class SequenceLoaderTests
     [Fact]
     public void LoadFile_SameContentAsLoad_GivesTheSameResult()
     {
-        var fromFile = SequenceLoader.LoadFile(TestFiles.SequenceBasePath);
+        var fromFile = DefinitionFile.Sequence(TestFiles.SequenceBasePath);
         var fromBytes = SequenceLoader.Load(TestFiles.SequenceBasePath, System.IO.File.ReadAllBytes(TestFiles.SequenceBasePath));
 
         Assert.True(fromFile.IsSuccess);

@@ -40,4 +40,26 @@ public sealed class DescriptiveTests
     {
         Assert.Throws<ArgumentException>(() => Descriptive.StandardDeviation([1.0]));
     }
+
+    [Fact]
+    public void StandardDeviation_ReadingOf1e160_IsFiniteAndExact()
+    {
+        // Regression: a reading of 1e160 made every report format crash (its square overflows to infinity).
+        // 1e160·{1, 2, 3}: mean 2e160, sample σ 1e160 [derived].
+        double[] values = [1e160, 2e160, 3e160];
+        Assert.Equal(2e160, Descriptive.Mean(values), 1e146);
+        Assert.Equal(1e160, Descriptive.StandardDeviation(values), 1e146);
+        Assert.Equal(1e160, Descriptive.AverageMovingRange(values), 1e146);
+    }
+
+    [Fact]
+    public void MeanAndMovingRange_ValuesNearDoubleMax_DoNotOverflow()
+    {
+        // Moving ranges of 1.6e308 each: their sum overflows, their mean does not.
+        double[] values = [8e307, -8e307, 8e307];
+        Assert.Equal(8e307 / 3, Descriptive.Mean(values), 1e294);
+        Assert.Equal(1.6e308, Descriptive.AverageMovingRange(values), 1e295);
+        Assert.Equal(1.7e308, Descriptive.Mean([1.7e308, 1.7e308]), 1e295);
+        Assert.True(double.IsFinite(Descriptive.StandardDeviation([1e300, -1e300, 5e299])));
+    }
 }

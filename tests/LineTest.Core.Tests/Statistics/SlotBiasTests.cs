@@ -104,4 +104,17 @@ public sealed class SlotBiasTests
             return a.Value.PValue is >= 0 and <= 1 && Math.Abs(fa - fb) <= 1e-6 * Math.Max(1, fa);
         });
     }
+
+    [Fact]
+    public void Analyze_ValuesOf1e160_GiveTheSameFAsScaledValues()
+    {
+        // F is scale-invariant, so values ×1e160 must give the F of the small values (regression: 1e160 crashed reports).
+        int[] slots = [1, 1, 1, 2, 2, 2, 3, 3, 3];
+        double[] small = [4, 5, 6, 6, 7, 8, 8, 9, 10];
+        var a = SlotBias.Analyze(slots, small).Value!;
+        var b = SlotBias.Analyze(slots, small.Select(v => v * 1e160).ToArray()).Value!;
+        Assert.Equal(a.FStatistic, b.FStatistic, 1e-9 * a.FStatistic);
+        Assert.Equal(a.PValue, b.PValue, 1e-12);
+        Assert.Equal(a.GrandMean * 1e160, b.GrandMean, 1e-9 * b.GrandMean);
+    }
 }

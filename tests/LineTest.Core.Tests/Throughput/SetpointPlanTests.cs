@@ -1,3 +1,4 @@
+using LineTest.TestSupport;
 using LineTest.Core.Fixtures;
 using LineTest.Core.Sequences;
 using LineTest.Core.Tests.TestData;
@@ -137,7 +138,7 @@ public sealed class SetpointPlanTests
 
     private static FixtureDefinition LoadFixture()
     {
-        var result = FixtureLoader.LoadFile(TestFiles.ShippedFixturePath);
+        var result = DefinitionFile.Fixture(TestFiles.ShippedFixturePath);
         Assert.True(result.IsSuccess, string.Join(Environment.NewLine, result.Problems));
         return result.Value!;
     }
@@ -147,7 +148,7 @@ public sealed class SetpointPlanTests
         // The resistor sequence: its calibration blocks are settle + measure only, so a free order may swap them.
         // (The DAC sequence also sweeps the diode in those blocks, and a temperature-coefficient sweep needs the
         // other sweep before it, so its blocks are not independent and keep file order.)
-        var result = SequenceLoader.LoadFile(Path.Combine(Path.GetDirectoryName(TestFiles.ShippedSequencePath)!, "ctp40r-resistor.json"), LoadFixture());
+        var result = DefinitionFile.Sequence(Path.Combine(Path.GetDirectoryName(TestFiles.ShippedSequencePath)!, "ctp40r-resistor.json"), LoadFixture());
         Assert.True(result.IsSuccess, string.Join(Environment.NewLine, result.Problems));
         Assert.Equal(SetpointOrders.Free, result.Value!.SetpointOrder);
         return result.Value;

@@ -34,8 +34,9 @@ public sealed class DacTrimSpecTests
         var problems = spec.Check();
 
         Assert.Equal(
-            ["gain: min (10) is above max (0)", "offset.register: must name the register written over the unit link",
-             "target.slopeVoltsPerC: must be a finite number other than 0"],
+            [new SpecProblem("gain.min", "min (10) must be below max (0)"),
+             new SpecProblem("offset.register", "' ' is not a register name the unit link can carry (an upper-case letter, then A–Z, 0–9 or _), e.g. GAIN"),
+             new SpecProblem("target.slopeVoltsPerC", "must be a finite number other than 0")],
             problems);
     }
 }

@@ -42,16 +42,16 @@ public sealed class FirmwareCoefficientSpecTests
     [Fact]
     public void Check_BothFractionalBitsAndScale_IsAProblem()
     {
-        var problems = new FirmwareCoefficientSpec { Register = "C0", Bits = 16, FractionalBits = 8, Scale = 0.01 }.Check("coefficients[0]");
+        var problems = new FirmwareCoefficientSpec { Register = "C0", Bits = 16, FractionalBits = 8, Scale = 0.01 }.Check();
 
-        Assert.Equal(["coefficients[0]: give exactly one of fractionalBits and scale"], problems);
+        Assert.Equal([new SpecProblem(string.Empty, "give exactly one of fractionalBits and scale")], problems);
     }
 
     [Fact]
     public void Check_TooWide_IsAProblem()
     {
-        var problems = new FirmwareCoefficientSpec { Register = "C0", Bits = 64, FractionalBits = 8 }.Check("c");
+        var problems = new FirmwareCoefficientSpec { Register = "C0", Bits = 64, FractionalBits = 8 }.Check();
 
-        Assert.Contains("c.bits: 64 is outside 2…53", problems);
+        Assert.Contains(new SpecProblem("bits", "64 is outside 2…53"), problems);
     }
 }

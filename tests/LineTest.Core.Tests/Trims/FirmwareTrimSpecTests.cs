@@ -47,7 +47,7 @@ public sealed class FirmwareTrimSpecTests
 
         var problems = spec.Check();
 
-        Assert.Contains("order: 3 is not 1 (line) or 2 (quadratic)", problems);
-        Assert.Contains("coefficients: register 'C0' is used more than once", problems);
+        Assert.Contains(new SpecProblem("order", "3 is not 1 (line) or 2 (quadratic)"), problems);
+        Assert.Contains(new SpecProblem("coefficients[1].register", "register 'C0' is used more than once"), problems);
     }
 }

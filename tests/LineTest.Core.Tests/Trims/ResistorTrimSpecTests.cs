@@ -45,10 +45,10 @@ public sealed class ResistorTrimSpecTests
 
         var problems = spec.Check();
 
-        Assert.Contains(problems, p => p.StartsWith("tolerancePercent:", StringComparison.Ordinal));
-        Assert.Contains(problems, p => p.StartsWith("gain.position:", StringComparison.Ordinal));
-        Assert.Contains(problems, p => p.StartsWith("gain.maxOhms:", StringComparison.Ordinal));
-        Assert.Contains(problems, p => p.StartsWith("gain.feedbackOhms:", StringComparison.Ordinal));
-        Assert.Contains(problems, p => p.StartsWith("offset.referenceVolts:", StringComparison.Ordinal));
+        Assert.Contains(problems, p => p.Path == "tolerancePercent");
+        Assert.Contains(problems, p => p.Path == "gain.position");
+        Assert.Contains(problems, p => p.Path == "gain.maxOhms");
+        Assert.Contains(problems, p => p.Path == "gain.feedbackOhms");
+        Assert.Contains(problems, p => p.Path == "offset.referenceVolts");
     }
 }

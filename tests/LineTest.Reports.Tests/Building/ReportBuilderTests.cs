@@ -1,3 +1,4 @@
+using LineTest.Core.Statistics;
 using LineTest.Reports.Building;
 using LineTest.Reports.Loading;
 using LineTest.Reports.Tests.Support;
@@ -63,15 +64,18 @@ public sealed class ReportBuilderTests
         var sigmaOverall = SmallLine.Offset.StandardDeviation();
         Assert.Equal(Math.Min(10 - mean, mean) / (3 * sigmaOverall), c.Ppk!.Value, 10);
 
-        // Bissell (1990) 95 % bounds: Ĉpk ± 1.959964·√(1/(9n) + Ĉpk²/(2(n − 1))) [published formula].
+        // Bissell (1990) 95 % bounds: Ĉpk ± 1.959964·√(1/(9n) + Ĉpk²/(2ν)) [published formula], with ν the effective
+        // degrees of freedom of the moving-range σ (not n − 1) [derived: Capability.MovingRangeDegreesOfFreedom].
+        var nu = Capability.MovingRangeDegreesOfFreedom(6);
+        Assert.Equal(nu, c.WithinDegreesOfFreedom!.Value, 12);
         var cpk = c.Cpk.Value;
-        var half = Normal.InvCDF(0, 1, 0.975) * Math.Sqrt((1.0 / 54) + (cpk * cpk / 10));
+        var half = Normal.InvCDF(0, 1, 0.975) * Math.Sqrt((1.0 / 54) + (cpk * cpk / (2 * nu)));
         Assert.Equal(cpk - half, c.CpkInterval!.Value.Lower, 9);
         Assert.Equal(cpk + half, c.CpkInterval!.Value.Upper, 9);
 
-        // Chi-square bounds on Cp with MathNet's quantiles: Ĉp·√(χ²(α/2, n−1)/(n−1)) … [published formula].
-        Assert.Equal(c.Cp.Value * Math.Sqrt(ChiSquared.InvCDF(5, 0.025) / 5), c.CpInterval!.Value.Lower, 6);
-        Assert.Equal(c.Cp.Value * Math.Sqrt(ChiSquared.InvCDF(5, 0.975) / 5), c.CpInterval!.Value.Upper, 6);
+        // Chi-square bounds on Cp with MathNet's quantiles: Ĉp·√(χ²(α/2, ν)/ν) … [published formula, ν derived].
+        Assert.Equal(c.Cp.Value * Math.Sqrt(ChiSquared.InvCDF(nu, 0.025) / nu), c.CpInterval!.Value.Lower, 6);
+        Assert.Equal(c.Cp.Value * Math.Sqrt(ChiSquared.InvCDF(nu, 0.975) / nu), c.CpInterval!.Value.Upper, 6);
 
         // No value lies outside 0…10: observed ppm is 0, not undefined; expected ppm from the normal tails.
         Assert.Equal(0.0, c.ObservedPpmTotal);

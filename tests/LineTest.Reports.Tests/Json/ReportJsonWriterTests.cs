@@ -27,7 +27,7 @@ public sealed class ReportJsonWriterTests
 
         // The contract of docs/report-json.md: changing a key breaks consumers' scripts.
         Assert.Equal(
-            ["title", "generatedUtc", "sources", "filters", "yield", "pareto", "errors", "readings", "slots", "groups", "dailyYield"],
+            ["title", "generatedUtc", "sources", "filters", "yield", "pareto", "errors", "readings", "slots", "groups", "dailyYield", "skippedRows", "signalLegend"],
             Keys(root));
         Assert.Equal(
             ["runs", "units", "firstPassYield", "finalYield", "retestRate", "errorRate", "passRuns", "failRuns", "errorRuns"],
@@ -36,11 +36,11 @@ public sealed class ReportJsonWriterTests
             [
                 "name", "unit", "low", "high", "limitsChanged", "n", "missing", "mean", "stdevOverall", "stdevWithin",
                 "cp", "cpLower95", "cpUpper95", "cpk", "cpkLower95", "cpkUpper95", "pp", "ppk", "ppmObserved", "ppmExpected",
-                "adStatistic", "normalityP", "controlLimits", "signals", "notes",
+                "adStatistic", "normalityP", "sequence", "covers", "nonNormal", "withinDf", "percentile", "controlLimits", "signals", "notes",
             ],
             Keys(root.GetProperty("readings")[0]));
         Assert.Equal(["name", "failures", "fraction", "cumulativeFraction"], Keys(root.GetProperty("pareto")[0]));
-        Assert.Equal(["name", "unit", "f", "p", "dfBetween", "dfWithin", "grandMean", "offsets", "note"], Keys(root.GetProperty("slots")[0]));
+        Assert.Equal(["name", "sequence", "unit", "f", "p", "dfBetween", "dfWithin", "grandMean", "offsets", "note"], Keys(root.GetProperty("slots")[0]));
         Assert.Equal(["slot", "n", "mean", "offset"], Keys(root.GetProperty("slots")[0].GetProperty("offsets")[0]));
     }
 

@@ -1,3 +1,4 @@
+using LineTest.TestSupport;
 using LineTest.Core.Fixtures;
 using LineTest.Rig.Serial.Pty;
 using LineTest.Rig.Serial.Rigs;
@@ -61,7 +62,7 @@ public sealed class RigProbeTests
     [LinuxFact]
     public async Task RunAsync_PortsThatDoNotExist_EveryInstrumentUnusableSayingSo()
     {
-        var fixture = FixtureLoader.LoadFile(LineTest.TestSupport.RepoFiles.Path("fixtures/rig-dryblock-4.json"));
+        var fixture = DefinitionFile.Fixture(LineTest.TestSupport.RepoFiles.Path("fixtures/rig-dryblock-4.json"));
         Assert.True(fixture.IsSuccess, string.Join("\n", fixture.Problems));
         var missing = "/dev/linetest-no-such-port-";
         var f = fixture.Value!;

@@ -10,7 +10,7 @@ public sealed class SerialRigTests
     [Fact]
     public void Problems_CommittedRealFixture_None()
     {
-        var fixture = FixtureLoader.LoadFile(RepoFiles.Path("fixtures/rig-dryblock-4.json"));
+        var fixture = DefinitionFile.Fixture(RepoFiles.Path("fixtures/rig-dryblock-4.json"));
 
         Assert.True(fixture.IsSuccess, string.Join("\n", fixture.Problems));
         Assert.Empty(SerialRig.Problems(fixture.Value!));
@@ -19,7 +19,7 @@ public sealed class SerialRigTests
     [Fact]
     public void Open_SimulatorFixture_ArgumentExceptionListingEveryMissingPort()
     {
-        var fixture = FixtureLoader.LoadFile(RepoFiles.Path("fixtures/sim-dryblock-4.json")).Value!;
+        var fixture = DefinitionFile.Fixture(RepoFiles.Path("fixtures/sim-dryblock-4.json")).Value!;
 
         var ex = Assert.Throws<ArgumentException>(() => SerialRig.Open(fixture, NullLoggerFactory.Instance));
 
@@ -31,7 +31,7 @@ public sealed class SerialRigTests
     [Fact]
     public void Open_RealFixture_DriversNamedByTheirPortsWithNothingOpened()
     {
-        var fixture = FixtureLoader.LoadFile(RepoFiles.Path("fixtures/rig-dryblock-4.json")).Value!;
+        var fixture = DefinitionFile.Fixture(RepoFiles.Path("fixtures/rig-dryblock-4.json")).Value!;
 
         using var rig = SerialRig.Open(fixture, NullLoggerFactory.Instance);
 

@@ -38,7 +38,7 @@ public sealed class GarbageInstrumentsTests
 
     private static Rig.Instruments.RigInstruments SimulatedInstruments()
     {
-        var fixture = FixtureLoader.LoadFile(RepoFiles.Path("fixtures/sim-dryblock-4.json")).Value!;
+        var fixture = FixtureLoader.Load("sim-dryblock-4.json", File.ReadAllBytes(RepoFiles.Path("fixtures/sim-dryblock-4.json"))).Value!;
         var clock = new VirtualTimeProvider(new DateTimeOffset(2026, 12, 2, 6, 0, 0, TimeSpan.Zero));
         return new SimulatedRig(fixture, 7, clock, c => 100 * (1 + 0.00385 * c)).Instruments;
     }

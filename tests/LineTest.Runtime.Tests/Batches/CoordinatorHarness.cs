@@ -22,10 +22,10 @@ internal sealed class CoordinatorHarness
     public CoordinatorHarness(
         int seed = 11, Func<SequenceDefinition, SequenceDefinition>? editSequence = null, IRunSink? sink = null, string sequenceFile = DacSequence)
     {
-        var fixture = FixtureLoader.LoadFile(RepoFiles.Path("fixtures/sim-dryblock-4.json"));
+        var fixture = DefinitionFile.Fixture(RepoFiles.Path("fixtures/sim-dryblock-4.json"));
         Assert.True(fixture.IsSuccess, string.Join("\n", fixture.Problems));
         Fixture = fixture.Value!;
-        var sequence = SequenceLoader.LoadFile(RepoFiles.Path(sequenceFile), Fixture);
+        var sequence = DefinitionFile.Sequence(RepoFiles.Path(sequenceFile), Fixture);
         Assert.True(sequence.IsSuccess, string.Join("\n", sequence.Problems));
         // The committed sequences mark their setpoint order free; the harness pins file order so that tests name the
         // setpoint a unit is at without working out the travel plan (a test that wants free order sets it back).

@@ -16,7 +16,7 @@ public sealed class DemoCommandTests
         Assert.True(exit == 0, error);
         using var json = JsonDocument.Parse(output);
         var keys = json.RootElement.EnumerateObject().Select(p => p.Name).ToArray();
-        Assert.Equal(["units", "pass", "fail", "error", "firstPassYield", "simulatedSeconds", "wallSeconds", "resultsPath"], keys);
+        Assert.Equal(["units", "pass", "fail", "error", "firstPassYield", "simulatedSeconds", "wallSeconds", "resultsPath", "head"], keys);
         Assert.Equal(6, json.RootElement.GetProperty("units").GetInt32());
         var root = json.RootElement;
         Assert.Equal(6, root.GetProperty("pass").GetInt32() + root.GetProperty("fail").GetInt32() + root.GetProperty("error").GetInt32());

@@ -69,7 +69,7 @@ public sealed class ReportCommandTests
 
     [Theory]
     [InlineData("--from", "yesterday")]
-    [InlineData("--by", "operator")]
+    [InlineData("--by", "colour")]
     public async Task Invoke_BadOption_ExitsTwo(string option, string value)
     {
         var (code, _, stderr) = await RunAsync("report", "--readings", WriteCsv(), option, value);

@@ -6,7 +6,7 @@ namespace LineTest.Station.Tests.Screen;
 
 public sealed class StepWordsTests
 {
-    private static readonly StepWords Words = new(Core.Sequences.SequenceLoader.LoadFile(RepoFiles.Path("sequences/ctp40a-dac.json")).Value!);
+    private static readonly StepWords Words = new(Station.Composition.DefinitionFiles.ReadSequence(RepoFiles.Path("sequences/ctp40a-dac.json"), fixture: null).Value!);
 
     [Theory]
     [InlineData(UnitState.Verifying, "verify.error", null, "checking at 5 °C")]

@@ -17,6 +17,19 @@ public sealed class ReleaseCheckTests
     }
 
     [Fact]
+    public void Refusal_RevokedFile_IsRefusedNamingWhoRevokedItAndWhy()
+    {
+        var list = new[] { new Release("ctp40a-dac", 1, Released, "engineer", When, "a.json") };
+        var revoked = new[] { new Revocation(Released, "quality lead", When.AddDays(1), "cold limit wrong") };
+
+        var refusal = ReleaseCheck.Refusal(list, revoked, "ctp40a-dac", 1, Released, "a.json");
+
+        Assert.NotNull(refusal);
+        Assert.Contains("was revoked by quality lead", refusal, StringComparison.Ordinal);
+        Assert.Contains("cold limit wrong", refusal, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void Refusal_ChangedFileOfAReleasedRevision_NamesBothHashes()
     {
         var list = new[] { new Release("ctp40a-dac", 1, Released, "engineer", When, "a.json") };

@@ -98,7 +98,7 @@ public sealed class SqliteResultStoreJournalTests
 
         using var check = new SqliteConnection($"Data Source={path};Mode=ReadOnly;Pooling=False");
         check.Open();
-        Assert.Equal(3L, RawDb.Scalar(check, "PRAGMA user_version;"));
+        Assert.Equal((long)SqliteSchema.CurrentVersion, RawDb.Scalar(check, "PRAGMA user_version;"));
         Assert.Equal(1L, RawDb.Scalar(check, "SELECT count(*) FROM runs;"));
         Assert.Equal(1L, RawDb.Scalar(check, "SELECT count(*) FROM runs_in_progress;"));
         Assert.True((await ChainVerifier.VerifyAsync(path)).IsIntact);

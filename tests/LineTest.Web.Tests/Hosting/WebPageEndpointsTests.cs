@@ -96,6 +96,22 @@ public sealed partial class WebPageEndpointsTests : IAsyncLifetime
     }
 
     [Fact]
+    public async Task Yield_ProductOfTwoSequences_OffersEachKeepingTheOtherFilters()
+    {
+        await PageHost.WriteAsync(_host.StationB, [new TestSupport.Builders.RunRecordBuilder().WithSerial("CTP40A-2612-200001").WithStation("ST-02")
+            .WithSequence("ctp40a-dac", 1).StartedAt(PageHost.Now.AddHours(-1)).Build()]);
+
+        var (status, html, _) = await _host.SendAsync("/yield?product=CTP-40A&lot=LOT-2025-031");
+        var (chosen, chosenHtml, _) = await _host.SendAsync("/yield?product=CTP-40A&lot=LOT-2025-031&sequence=ctp40a-dac");
+
+        Assert.Equal(HttpStatusCode.BadRequest, status);
+        Assert.Contains("product &#39;CTP-40A&#39; was tested by sequences ctp40a-dac, ctp40a-eol: choose one", html, StringComparison.Ordinal);
+        Assert.Contains("href=\"/yield?product=CTP-40A&amp;lot=LOT-2025-031&amp;sequence=ctp40a-dac\"", html, StringComparison.Ordinal);
+        Assert.Equal(HttpStatusCode.OK, chosen);
+        Assert.Contains("<th scope=\"row\">Runs</th><td>1</td>", chosenHtml, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public async Task CapabilityReading_SameFiguresAsTheReportBuilder()
     {
         var (status, html, _) = await _host.SendAsync("/capability/reading?product=CTP-40A&reading=verify.error");

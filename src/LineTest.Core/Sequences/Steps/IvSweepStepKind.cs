@@ -25,8 +25,7 @@ public sealed class IvSweepStepKind : StepKind<IvSweepStep>
     {
         ArgumentNullException.ThrowIfNull(sequence);
         ArgumentNullException.ThrowIfNull(problems);
-        problems.AddIf(sequence.NominalBiasAmps is { } seqBias && !(seqBias > 0 && double.IsFinite(seqBias)), "$.nominalBiasAmps",
-            "the nominal bias current must be a positive number of amperes");
+        DefinitionBounds.SensorCurrentAmps.Check(sequence.NominalBiasAmps, "$.nominalBiasAmps", problems);
     }
 
     /// <inheritdoc />
@@ -36,11 +35,9 @@ public sealed class IvSweepStepKind : StepKind<IvSweepStep>
         var problems = context.Problems;
         context.RequireSettled(step.Setpoint);
         CheckCurrents(step, path, problems);
-        problems.AddIf(step.Samples < 1, $"{path}.samples", $"samples must be 1 or more, not {step.Samples}");
-        problems.AddIf(step.ComplianceVolts is { } compliance && !(compliance > 0 && double.IsFinite(compliance)), $"{path}.complianceVolts",
-            "the compliance must be a positive number of volts");
-        problems.AddIf(step.NominalBiasAmps is { } bias && !(bias > 0 && double.IsFinite(bias)), $"{path}.nominalBiasAmps",
-            "the nominal bias current must be a positive number of amperes");
+        context.RequireSamples(step.Samples);
+        DefinitionBounds.ComplianceVolts.Check(step.ComplianceVolts, $"{path}.complianceVolts", problems);
+        DefinitionBounds.SensorCurrentAmps.Check(step.NominalBiasAmps, $"{path}.nominalBiasAmps", problems);
         CheckLimits(context, step.IdealityLimits, "n", StepCheckContext.RatioUnits);
         CheckLimits(context, step.Log10SaturationCurrentLimits, "log10Is", StepCheckContext.RatioUnits);
         CheckLimits(context, step.SeriesResistanceLimits, "rsOhms", StepCheckContext.ResistanceUnits);
@@ -92,9 +89,9 @@ public sealed class IvSweepStepKind : StepKind<IvSweepStep>
             problems.AddIf(list.Count > MaxPoints, $"{path}.currentsAmps", $"at most {MaxPoints} currents per sweep, got {list.Count}");
             for (var k = 0; k < list.Count; k++)
             {
-                if (!(list[k] > 0) || !double.IsFinite(list[k]))
+                if (!DefinitionBounds.SensorCurrentAmps.Check(list[k], $"{path}.currentsAmps[{k}]", problems))
                 {
-                    problems.Add($"{path}.currentsAmps[{k}]", $"the current must be a positive number of amperes, not {F(list[k])}");
+                    continue;
                 }
                 else if (k > 0 && list[k] <= list[k - 1])
                 {
@@ -111,8 +108,10 @@ public sealed class IvSweepStepKind : StepKind<IvSweepStep>
             return;
         }
 
-        problems.AddIf(sweep.FromAmps is not { } from || !(from > 0) || !double.IsFinite(from), $"{path}.fromAmps", "give the first current, a positive number of amperes");
-        problems.AddIf(sweep.ToAmps is not { } to || !(to > 0) || !double.IsFinite(to), $"{path}.toAmps", "give the last current, a positive number of amperes");
+        problems.AddIf(sweep.FromAmps is null, $"{path}.fromAmps", "give the first current, a positive number of amperes");
+        problems.AddIf(sweep.ToAmps is null, $"{path}.toAmps", "give the last current, a positive number of amperes");
+        DefinitionBounds.SensorCurrentAmps.Check(sweep.FromAmps, $"{path}.fromAmps", problems);
+        DefinitionBounds.SensorCurrentAmps.Check(sweep.ToAmps, $"{path}.toAmps", problems);
         if (sweep.FromAmps is { } f && sweep.ToAmps is { } t && f > 0 && t > 0 && t <= f)
         {
             problems.Add($"{path}.toAmps", $"currents must increase: the last current ({F(t)} A) must be above the first ({F(f)} A)");
@@ -138,11 +137,13 @@ public sealed class IvSweepStepKind : StepKind<IvSweepStep>
 
         var unwired = fixture.Slots.Where(s => s.SmuChannel is null).Select(s => s.Slot.ToString(CultureInfo.InvariantCulture)).ToList();
         problems.AddIf(unwired.Count > 0, path, $"slot(s) {string.Join(", ", unwired)} of fixture '{fixture.Id}' have no smuChannel for an I–V sweep");
-        var currents = sweep.SweepCurrents();
-        if (currents.Count > 0 && currents.Max() > smu.MaxCurrentAmps)
+        // The largest current without building the sweep: a range ends at toAmps (a points count far out of bounds must
+        // not allocate before its own problem is reported).
+        var largest = sweep.CurrentsAmps is { Count: > 0 } list ? list.Max() : sweep.ToAmps;
+        if (largest is { } max && max > smu.MaxCurrentAmps)
         {
             problems.Add(sweep.CurrentsAmps is null ? $"{path}.toAmps" : $"{path}.currentsAmps",
-                $"{F(currents.Max())} A is above the {F(smu.MaxCurrentAmps)} A fixture '{fixture.Id}' allows through a sensor");
+                $"{F(max)} A is above the {F(smu.MaxCurrentAmps)} A fixture '{fixture.Id}' allows through a sensor");
         }
     }
 

@@ -105,9 +105,8 @@ public sealed class StepCheckContext
         }
     }
 
-    /// <summary>At least one sample.</summary>
-    public void RequireSamples(int samples) =>
-        Problems.AddIf(samples < 1, $"{Path}.samples", $"samples must be 1 or more, not {samples}");
+    /// <summary>A sample count inside <see cref="DefinitionBounds.Samples"/>.</summary>
+    public void RequireSamples(int samples) => DefinitionBounds.Samples.Check(samples, $"{Path}.samples", Problems);
 
     /// <summary>Checks an <c>output</c> word; returns true when it is known.</summary>
     public bool CheckOutput(string output)
@@ -137,15 +136,14 @@ public sealed class StepCheckContext
         }
 
         Problems.AddIf(limits.Low is null && limits.High is null, path, "give a low limit, a high limit or both");
-        Problems.AddIf(limits.Low is { } lo && !double.IsFinite(lo), $"{path}.low", "the low limit must be a finite number");
-        Problems.AddIf(limits.High is { } hi && !double.IsFinite(hi), $"{path}.high", "the high limit must be a finite number");
-        if (limits.Low is { } low && limits.High is { } high && low > high)
+        var lowOk = DefinitionBounds.LimitValue.Check(limits.Low, $"{path}.low", Problems);
+        var highOk = DefinitionBounds.LimitValue.Check(limits.High, $"{path}.high", Problems);
+        if (lowOk && highOk && limits.Low is { } low && limits.High is { } high && low > high)
         {
             Problems.Add($"{path}.low", $"the low limit ({F(low)}) is above the high limit ({F(high)})");
         }
 
-        Problems.AddIf(limits.GuardBandFactor < 0 || !double.IsFinite(limits.GuardBandFactor), $"{path}.guardBandFactor",
-            "the guard-band factor must be zero or more");
+        DefinitionBounds.GuardBandFactor.Check(limits.GuardBandFactor, $"{path}.guardBandFactor", Problems);
     }
 
     private static string F(double value) => value.ToString("0.###", CultureInfo.InvariantCulture);

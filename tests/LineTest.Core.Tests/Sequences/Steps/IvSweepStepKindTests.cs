@@ -1,3 +1,4 @@
+using LineTest.TestSupport;
 using System.Text;
 using LineTest.Core.Fixtures;
 using LineTest.Core.Sequences;
@@ -13,13 +14,13 @@ public sealed class IvSweepStepKindTests
     {
         { LowSweep, "\"setpoint\": \"cal-low\", \"fromAmps\": 1e-6, \"toAmps\": 1e-3, \"points\": 3, \"complianceVolts\": 2.5,", "$.steps[3].points", "must be 4 … 50, not 3" },
         { LowSweep, "\"setpoint\": \"cal-low\", \"fromAmps\": 1e-3, \"toAmps\": 1e-6, \"points\": 7, \"complianceVolts\": 2.5,", "$.steps[3].toAmps", "currents must increase" },
-        { LowSweep, "\"setpoint\": \"cal-low\", \"fromAmps\": -1e-6, \"toAmps\": 1e-3, \"points\": 7, \"complianceVolts\": 2.5,", "$.steps[3].fromAmps", "positive number of amperes" },
+        { LowSweep, "\"setpoint\": \"cal-low\", \"fromAmps\": -1e-6, \"toAmps\": 1e-3, \"points\": 7, \"complianceVolts\": 2.5,", "$.steps[3].fromAmps", "must be a number above 0 and at most 1 A, not -1E-06" },
         { LowSweep, "\"setpoint\": \"cal-low\", \"currentsAmps\": [1e-6, 1e-5, 1e-5, 1e-3],", "$.steps[3].currentsAmps[2]", "currents must increase" },
         { LowSweep, "\"setpoint\": \"cal-low\", \"currentsAmps\": [1e-6, 1e-5, 1e-3],", "$.steps[3].currentsAmps", "at least 4 currents, got 3" },
-        { LowSweep, "\"setpoint\": \"cal-low\", \"currentsAmps\": [0, 1e-5, 1e-4, 1e-3],", "$.steps[3].currentsAmps[0]", "positive number of amperes" },
+        { LowSweep, "\"setpoint\": \"cal-low\", \"currentsAmps\": [0, 1e-5, 1e-4, 1e-3],", "$.steps[3].currentsAmps[0]", "must be a number above 0 and at most 1 A, not 0" },
         { LowSweep, "\"setpoint\": \"cal-low\", \"currentsAmps\": [1e-6, 1e-5, 1e-4, 1e-3], \"points\": 4,", "$.steps[3]", "not both" },
         { LowSweep, "\"setpoint\": \"cal-low\", \"complianceVolts\": 2.5,", "$.steps[3]", "give the sweep currents" },
-        { LowSweep, "\"setpoint\": \"cal-low\", \"fromAmps\": 1e-6, \"toAmps\": 1e-3, \"points\": 7, \"complianceVolts\": 0,", "$.steps[3].complianceVolts", "positive number of volts" },
+        { LowSweep, "\"setpoint\": \"cal-low\", \"fromAmps\": 1e-6, \"toAmps\": 1e-3, \"points\": 7, \"complianceVolts\": 0,", "$.steps[3].complianceVolts", "must be a number above 0 and at most 100 V, not 0" },
         { LowSweep, "\"setpoint\": \"cal-low\", \"fromAmps\": 1e-6, \"toAmps\": 1e-2, \"points\": 7, \"complianceVolts\": 2.5,", "$.steps[3].toAmps", "above the 0.005 A fixture 'sim-dryblock-4' allows" },
         { "\"log10Is\": { \"low\": -19.5, \"high\": -16.5, \"unit\": \"1\" },\n      \"rsOhms\": { \"low\": 0, \"high\": 60, \"unit\": \"ohm\" }", "\"log10Is\": { \"low\": -19.5, \"high\": -16.5, \"unit\": \"1\" },\n      \"rsOhms\": { \"low\": 0, \"high\": 60, \"unit\": \"mV\" }", "$.steps[3].rsOhms.unit", "use ohm, kohm" },
         { "\"n\": { \"low\": 0.98, \"high\": 1.12, \"unit\": \"1\" },\n      \"log10Is\": { \"low\": -19.5", "\"n\": { \"low\": 0.98, \"high\": 1.12, \"unit\": \"V\" },\n      \"log10Is\": { \"low\": -19.5", "$.steps[3].n.unit", "use 1" },
@@ -70,7 +71,7 @@ public sealed class IvSweepStepKindTests
         Assert.Equal([1e-6, 1e-5, 1e-4, 1e-3], step.SweepCurrents().ToArray(), (a, b) => Math.Abs(a - b) <= 1e-15);
     }
 
-    private static FixtureDefinition Fixture() => FixtureLoader.LoadFile(TestFiles.ShippedFixturePath).Value!;
+    private static FixtureDefinition Fixture() => DefinitionFile.Fixture(TestFiles.ShippedFixturePath).Value!;
 
     private static LineTest.Core.Definitions.LoadResult<SequenceDefinition> Load(string text, FixtureDefinition fixture) =>
         SequenceLoader.Load("edited.json", Encoding.UTF8.GetBytes(text), fixture);

@@ -1,7 +1,8 @@
 using LineTest.Core.Results;
 using LineTest.Rig.Simulation;
+using LineTest.Runtime.Tests.Batches;
 
-namespace LineTest.Runtime.Tests.Batches;
+namespace LineTest.Runtime.Tests.Steps;
 
 public sealed class FirmwareTrimExecutorTests
 {

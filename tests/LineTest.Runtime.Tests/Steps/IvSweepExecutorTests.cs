@@ -1,8 +1,9 @@
 using LineTest.Core.Results;
 using LineTest.Core.Sequences;
 using LineTest.Rig.Simulation;
+using LineTest.Runtime.Tests.Batches;
 
-namespace LineTest.Runtime.Tests.Batches;
+namespace LineTest.Runtime.Tests.Steps;
 
 public sealed class IvSweepExecutorTests
 {

@@ -1,0 +1,116 @@
+using LineTest.Core.Results;
+using LineTest.Factory.Schema;
+using LineTest.Reports.Loading;
+using Npgsql;
+
+namespace LineTest.Factory.Reporting;
+
+/// <summary>
+/// Loads report data from the factory database, in the form <see cref="ResultsLoader"/> gives for station folders, so
+/// the same <c>ReportBuilder</c> and writers make the same report. SQL does the filtering (partition pruning on the
+/// month, indexes on station and lot) and the ordering; runs and readings are streamed in the factory's run order,
+/// (end instant, station, station database, seq), which is the order a folder report puts merged stations in.
+/// </summary>
+public static class FactoryReportLoader
+{
+    private const string RunOrder = "ended_ticks, station, chain_id, station_seq";
+
+    /// <summary>Loads the runs and readings matching <paramref name="query"/>.</summary>
+    /// <exception cref="NpgsqlException">The database cannot be reached or read.</exception>
+    public static async Task<ReportData> LoadAsync(NpgsqlDataSource dataSource, ReportQuery query, CancellationToken ct = default)
+    {
+        ArgumentNullException.ThrowIfNull(dataSource);
+        ArgumentNullException.ThrowIfNull(query);
+        var data = new ReportData();
+        data.AddSource(FactoryConnection.Describe(dataSource));
+
+        // Both scans in one repeatable-read snapshot: stations forwarding meanwhile do not make runs and readings disagree.
+        await using var connection = await dataSource.OpenConnectionAsync(ct).ConfigureAwait(false);
+        await using var transaction = await connection.BeginTransactionAsync(System.Data.IsolationLevel.RepeatableRead, ct).ConfigureAwait(false);
+        var index = await LoadRunsAsync(connection, transaction, query, data.Runs, ct).ConfigureAwait(false);
+        if (index.Count == 0)
+        {
+            return data;
+        }
+
+        await using var command = new NpgsqlCommand(string.Empty, connection, transaction);
+        var where = FactoryFilterSql.Where(query, "g", command, runConditions: false);
+        command.CommandText = $"SELECT g.chain_id, g.station_seq, g.name, g.value, g.unit, g.low, g.high FROM readings g{where} ORDER BY g.{RunOrder.Replace(", ", ", g.", StringComparison.Ordinal)}, g.ordinal;";
+        await using var reader = await command.ExecuteReaderAsync(ct).ConfigureAwait(false);
+        var names = new Dictionary<string, ReadingSeries>(StringComparer.Ordinal);
+        var units = new Dictionary<string, string>(StringComparer.Ordinal);
+        var lastKey = (Guid.Empty, -1L);
+        var run = -1;
+        while (await reader.ReadAsync(ct).ConfigureAwait(false))
+        {
+            var key = (reader.GetGuid(0), reader.GetInt64(1));
+            if (key != lastKey)
+            {
+                lastKey = key;
+                run = index.TryGetValue(key, out var found) ? found : -1;
+            }
+
+            if (run < 0)
+            {
+                // A reading of a run the run conditions (slot, lot, sequence) left out.
+                continue;
+            }
+
+            var name = reader.GetString(2);
+            var unitText = reader.GetString(4);
+            var unit = units.TryGetValue(unitText, out var shared) ? shared : units[unitText] = unitText;
+            if (!names.TryGetValue(name, out var series))
+            {
+                series = data.Series(name, unit);
+                names.Add(name, series);
+            }
+
+            series.Add(run, reader.IsDBNull(3) ? null : reader.GetDouble(3), unit, NullableDouble(reader, 5), NullableDouble(reader, 6));
+        }
+
+        return data;
+    }
+
+    private static async Task<Dictionary<(Guid, long), int>> LoadRunsAsync(
+        NpgsqlConnection connection, NpgsqlTransaction transaction, ReportQuery query, RunTable runs, CancellationToken ct)
+    {
+        await using var command = new NpgsqlCommand(string.Empty, connection, transaction);
+        var where = FactoryFilterSql.Where(query, "r", command, runConditions: true);
+        command.CommandText = $"""
+            SELECT r.chain_id, r.station_seq, r.ended_ticks, r.serial, r.verdict, r.station, r.slot, r.lot, r.sequence_id,
+                   r.sequence_revision, r.first_failing_reading, r.reason
+              FROM runs r{where} ORDER BY r.{RunOrder.Replace(", ", ", r.", StringComparison.Ordinal)};
+            """;
+        await using var reader = await command.ExecuteReaderAsync(ct).ConfigureAwait(false);
+        var index = new Dictionary<(Guid, long), int>();
+        while (await reader.ReadAsync(ct).ConfigureAwait(false))
+        {
+            var at = runs.Add(
+                reader.GetString(3),
+                new DateTimeOffset(reader.GetInt64(2), TimeSpan.Zero),
+                ParseVerdict(reader.GetString(4)),
+                reader.GetString(5),
+                reader.GetInt32(6),
+                NullableString(reader, 7),
+                reader.GetString(8),
+                reader.GetInt32(9),
+                NullableString(reader, 10),
+                NullableString(reader, 11));
+            index.Add((reader.GetGuid(0), reader.GetInt64(1)), at);
+        }
+
+        return index;
+    }
+
+    private static Verdict ParseVerdict(string word) => word switch
+    {
+        "pass" => Verdict.Pass,
+        "fail" => Verdict.Fail,
+        "error" => Verdict.Error,
+        _ => throw new InvalidDataException($"Column verdict holds '{word}', which is not pass, fail or error."),
+    };
+
+    private static string? NullableString(NpgsqlDataReader reader, int ordinal) => reader.IsDBNull(ordinal) ? null : reader.GetString(ordinal);
+
+    private static double? NullableDouble(NpgsqlDataReader reader, int ordinal) => reader.IsDBNull(ordinal) ? null : reader.GetDouble(ordinal);
+}

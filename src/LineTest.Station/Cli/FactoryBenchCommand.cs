@@ -1,0 +1,82 @@
+using System.CommandLine;
+using System.Diagnostics;
+using System.Globalization;
+using LineTest.Factory.Reporting;
+using LineTest.Factory.Schema;
+using LineTest.Reports.Building;
+using LineTest.Reports.Json;
+using LineTest.Reports.Loading;
+using LineTest.Station.Demo;
+using Npgsql;
+
+namespace LineTest.Station.Cli;
+
+/// <summary>
+/// <c>linetest bench-factory --factory CONN --mode forward|report</c>: forwarding throughput from several stations at
+/// once, or a factory report over many runs against the plain SQL aggregate. Needs an empty database it may fill.
+/// </summary>
+public static class FactoryBenchCommand
+{
+    /// <summary>Builds the command.</summary>
+    public static Command Create(CliContext context)
+    {
+        ArgumentNullException.ThrowIfNull(context);
+        var factory = new Option<string>("--factory") { Description = "An empty PostgreSQL database the benchmark may fill (Npgsql connection string)", Required = true };
+        var mode = new Option<string>("--mode") { Description = "forward or report", DefaultValueFactory = _ => "forward" };
+        mode.AcceptOnlyFromAmong("forward", "report");
+        var stations = new Option<int>("--stations") { Description = "forward: stations forwarding at once", DefaultValueFactory = _ => 10 };
+        var runs = new Option<int>("--runs") { Description = "forward: runs per station; report: runs in the database", DefaultValueFactory = _ => 1000 };
+        var readings = new Option<int>("--readings") { Description = "forward: readings per run", DefaultValueFactory = _ => 20 };
+        var command = new Command("bench-factory", "Factory database benchmarks: forwarding throughput, report against the SQL floor") { factory, mode, stations, runs, readings };
+        command.SetAction(async (parse, ct) =>
+        {
+            await using var dataSource = FactoryConnection.Create(parse.GetValue(factory)!);
+            var inv = CultureInfo.InvariantCulture;
+            try
+            {
+                await FactoryMigrations.ApplyAsync(dataSource, ct).ConfigureAwait(false);
+                await using (var count = dataSource.CreateCommand("SELECT count(*) FROM run_ids;"))
+                await using (var count2 = dataSource.CreateCommand("SELECT count(*) FROM runs;"))
+                {
+                    if ((long)(await count.ExecuteScalarAsync(ct).ConfigureAwait(false))! + (long)(await count2.ExecuteScalarAsync(ct).ConfigureAwait(false))! > 0)
+                    {
+                        return context.BadInput($"{FactoryConnection.Describe(dataSource)} already holds runs; the benchmark needs an empty database");
+                    }
+                }
+
+                if (parse.GetValue(mode) == "forward")
+                {
+                    var folder = Path.Combine(Path.GetTempPath(), "linetest-bench-factory-" + Guid.NewGuid().ToString("N")[..8]);
+                    var (forwarded, seconds) = await FactoryBench.ForwardingAsync(
+                        dataSource, folder, parse.GetValue(stations), parse.GetValue(runs), parse.GetValue(readings), ct).ConfigureAwait(false);
+                    Directory.Delete(folder, recursive: true);
+                    context.Output.WriteLine(string.Create(inv, $"forwarded {forwarded} runs ({parse.GetValue(readings)} readings each) from {parse.GetValue(stations)} stations at once in {seconds:F2} s: {forwarded / seconds:F0} runs/s"));
+                    return ExitCodes.Done;
+                }
+
+                var total = parse.GetValue(runs);
+                var fill = await FactoryBench.FillAsync(dataSource, total, ct).ConfigureAwait(false);
+                context.Output.WriteLine(string.Create(inv, $"filled {total} runs x 5 readings in {fill:F1} s"));
+                var floor = await FactoryBench.FloorAsync(dataSource, ct).ConfigureAwait(false);
+                context.Output.WriteLine(string.Create(inv, $"floor (plain SQL aggregate: yield counts, per-reading count/mean/sd/min/max): {floor:F2} s"));
+                await FactoryBench.FloorAsync(dataSource, ct).ConfigureAwait(false);
+                var watch = Stopwatch.StartNew();
+                var data = await FactoryReportLoader.LoadAsync(dataSource, ReportQuery.All, ct).ConfigureAwait(false);
+                var loaded = watch.Elapsed.TotalSeconds;
+                var json = ReportJsonWriter.ToJson(ReportBuilder.Build(data, ReportQuery.All, context.Clock));
+                watch.Stop();
+                using var process = Process.GetCurrentProcess();
+                context.Output.WriteLine(string.Create(
+                    inv,
+                    $"report --factory --json: {watch.Elapsed.TotalSeconds:F2} s (load {loaded:F2} s), {json.Length / 1024} KiB of JSON, peak working set {process.PeakWorkingSet64 / (1024 * 1024)} MB; {watch.Elapsed.TotalSeconds / floor:F1} x the floor"));
+                return ExitCodes.Done;
+            }
+            catch (NpgsqlException ex)
+            {
+                context.Error.WriteLine($"linetest: {FactoryConnection.Describe(dataSource)}: {ex.Message}");
+                return ExitCodes.RuntimeFailure;
+            }
+        });
+        return command;
+    }
+}

@@ -1,0 +1,127 @@
+using LineTest.Core.Results;
+using LineTest.Reports.Building;
+using LineTest.Reports.Loading;
+using LineTest.Station.Composition;
+using LineTest.Station.Demo;
+using LineTest.TestSupport;
+using Microsoft.Extensions.Logging.Abstractions;
+using Microsoft.Extensions.Time.Testing;
+
+namespace LineTest.Station.Tests.Demo;
+
+/// <summary>Two demo shifts into one folder behave like two shifts of one factory.</summary>
+public sealed class SimulatedShiftFolderTests
+{
+    [Fact]
+    public async Task RunAsync_TwoShiftsIntoOneFolder_ContinueSerialsAndTimeSoTheReportPoolsThem()
+    {
+        var fixture = DefinitionFiles.LoadFixture(RepoFiles.Path("fixtures/sim-dryblock-4.json"), TextWriter.Null).Value!;
+        var sequence = DefinitionFiles.LoadSequence(RepoFiles.Path("sequences/ctp40a-dac.json"), fixture, TextWriter.Null);
+        var results = Some.TempDirectory();
+        var clock = new FakeTimeProvider(new DateTimeOffset(2026, 3, 4, 6, 0, 0, TimeSpan.Zero));
+
+        async Task<(ShiftSummary Summary, List<RunRecord> Runs, SimulatedShift Shift)> ShiftAsync(int seed, int units)
+        {
+            var runs = new List<RunRecord>();
+            var shift = new SimulatedShift(
+                new ShiftOptions
+                {
+                    Fixture = fixture,
+                    Sequence = sequence.Value!,
+                    SequenceSha256 = sequence.Sha256!,
+                    Units = units,
+                    Seed = seed,
+                    ResultsDirectory = results,
+                    Clock = clock,
+                },
+                NullLoggerFactory.Instance);
+            var summary = await shift.RunAsync(runs.Add, CancellationToken.None);
+            return (summary, runs, shift);
+        }
+
+        // Back to back, as a person would type them: the first shift starts a week back, so the second fits after it.
+        var first = await ShiftAsync(seed: 3, units: 10);
+        var firstNow = clock.GetUtcNow();
+        clock.Advance(TimeSpan.FromSeconds(5));
+        var second = await ShiftAsync(seed: 4, units: 8);
+
+        // Serials continue; the second shift starts after the first one's last run; nothing ends after "now".
+        Assert.Equal("CTP40A-2612-000001", first.Runs.OrderBy(r => r.Serial, StringComparer.Ordinal).First().Serial);
+        Assert.Equal("CTP40A-2612-000011", second.Runs.OrderBy(r => r.Serial, StringComparer.Ordinal).First().Serial);
+        Assert.True(second.Runs.Min(r => r.StartedUtc) > first.Runs.Max(r => r.EndedUtc));
+        Assert.All(first.Runs, r => Assert.True(r.EndedUtc <= firstNow, $"{r.Serial} ends {r.EndedUtc:O}, after {firstNow:O}"));
+        Assert.All(second.Runs, r => Assert.True(r.EndedUtc <= clock.GetUtcNow()));
+
+        // The report made now sees both shifts: units add up, first-pass yield is the pooled figure.
+        var data = await ResultsLoader.LoadAsync([results], ReportQuery.All);
+        var report = ReportBuilder.Build(data, ReportQuery.All, clock);
+        Assert.Equal(first.Summary.Units + second.Summary.Units, report.Yield.Units);
+        Assert.Equal(report.Yield.Units, report.Yield.Runs);
+        var pooled = (double)(first.Summary.Pass + second.Summary.Pass) / (first.Summary.Units + second.Summary.Units);
+        Assert.Equal(pooled, report.Yield.FirstPassYield!.Value, 12);
+        for (var i = 0; i < data.Runs.Count; i++)
+        {
+            Assert.True(data.Runs.EndedUtc(i) <= report.GeneratedUtc);
+        }
+    }
+
+    [Fact]
+    public async Task RunAsync_ShiftThatCannotEndBeforeNow_IsNotRunAndSaysWhy()
+    {
+        var fixture = DefinitionFiles.LoadFixture(RepoFiles.Path("fixtures/sim-dryblock-4.json"), TextWriter.Null).Value!;
+        var sequence = DefinitionFiles.LoadSequence(RepoFiles.Path("sequences/ctp40a-dac.json"), fixture, TextWriter.Null);
+        var results = Some.TempDirectory();
+        var clock = new FakeTimeProvider(new DateTimeOffset(2026, 3, 4, 6, 0, 0, TimeSpan.Zero));
+        SimulatedShift Shift(int seed, TimeProvider now) => new(
+            new ShiftOptions
+            {
+                Fixture = fixture,
+                Sequence = sequence.Value!,
+                SequenceSha256 = sequence.Sha256!,
+                Units = 4,
+                Seed = seed,
+                ResultsDirectory = results,
+                Clock = now,
+            },
+            NullLoggerFactory.Instance);
+
+        var first = new List<RunRecord>();
+        await Shift(1, clock).RunAsync(first.Add, CancellationToken.None);
+
+        // "Now" ten minutes after the last stored run: a shift of one batch (about half an hour) cannot fit.
+        var stored = new List<RunRecord>();
+        var second = Shift(2, new FakeTimeProvider(first.Max(r => r.EndedUtc) + TimeSpan.FromMinutes(10)));
+        var summary = await second.RunAsync(stored.Add, CancellationToken.None);
+
+        Assert.Empty(stored);
+        Assert.Equal(0, summary.Units);
+        Assert.Contains("in the future", second.Unplaced, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public async Task RunAsync_FirstSerialAndStation_AreStored()
+    {
+        var fixture = DefinitionFiles.LoadFixture(RepoFiles.Path("fixtures/sim-dryblock-4.json"), TextWriter.Null).Value!;
+        var sequence = DefinitionFiles.LoadSequence(RepoFiles.Path("sequences/ctp40a-dac.json"), fixture, TextWriter.Null);
+        var runs = new List<RunRecord>();
+        var shift = new SimulatedShift(
+            new ShiftOptions
+            {
+                Fixture = fixture,
+                Sequence = sequence.Value!,
+                SequenceSha256 = sequence.Sha256!,
+                Units = 2,
+                ResultsDirectory = Some.TempDirectory(),
+                Station = "ST-07",
+                Lot = "LOT-9",
+                FirstSerial = 500,
+                Clock = new FakeTimeProvider(new DateTimeOffset(2026, 3, 4, 6, 0, 0, TimeSpan.Zero)),
+            },
+            NullLoggerFactory.Instance);
+
+        await shift.RunAsync(runs.Add, CancellationToken.None);
+
+        Assert.Equal(["CTP40A-2612-000500", "CTP40A-2612-000501"], runs.Select(r => r.Serial).Order(StringComparer.Ordinal));
+        Assert.All(runs, r => Assert.Equal(("ST-07", "LOT-9"), (r.Station, r.Lot)));
+    }
+}
