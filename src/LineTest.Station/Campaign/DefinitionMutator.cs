@@ -12,7 +12,7 @@ internal sealed class DefinitionMutator(int seed)
     private readonly Random _random = new(seed);
 
     /// <summary>One damaged copy of <paramref name="original"/>.</summary>
-    public byte[] Mutate(byte[] original) => _random.Next(5) switch
+    public byte[] Mutate(byte[] original) => original.Length == 0 ? InsertJunk(original) : _random.Next(5) switch
     {
         0 => FlipBytes(original),
         1 => original[.._random.Next(original.Length)],
