@@ -37,6 +37,7 @@ public static class SequenceChecker
         CheckSoakSensitivity(sequence, problems);
         CheckSteps(sequence, setpoints, problems);
         IvSweepRules.Check(sequence, fixture, problems);
+        AccuracyRules.Check(sequence, problems);
         problems.AddIf(!SetpointOrders.All.Contains(sequence.SetpointOrder, StringComparer.Ordinal), "$.setpointOrder",
             $"'{sequence.SetpointOrder}' is not a setpoint order: use {string.Join(" or ", SetpointOrders.All.Select(o => $"\"{o}\""))}");
         return problems;

@@ -26,7 +26,9 @@ internal sealed class DacTrimExecutor
             .ToList();
         var name = step.DisplayName;
         var now = _coordinator.Now;
-        var result = DacTrim.Compute(spec, points, unit.Registers[spec.Gain.Register], unit.Registers[spec.Offset.Register], checkpoints);
+        var curve = TrimInputs.Curve(sequence, points, unit);
+        var result = DacTrim.Compute(spec, points, unit.Registers[spec.Gain.Register], unit.Registers[spec.Offset.Register], checkpoints,
+            TrimAccuracy.Line(sequence, curve, points));
         if (!result.TryGetValue(out var trim))
         {
             unit.Add(new Reading($"{name}.computed", null, "1", null, null, Verdict.Fail)
@@ -48,6 +50,8 @@ internal sealed class DacTrimExecutor
         {
             unit.Add(UnlimitedReading.Create($"{name}.predicted.{predicted.Name}", predicted.ErrorC, "degC") with { Step = name, At = now });
         }
+
+        TrimInputs.AddBudget(sequence, step, unit, trim, curve, _coordinator.Fixture, now);
 
         if (!trim.InRange)
         {

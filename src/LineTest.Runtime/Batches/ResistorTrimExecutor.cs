@@ -1,3 +1,4 @@
+using LineTest.Core.Calibration;
 using LineTest.Core.Results;
 using LineTest.Core.Sequences;
 using LineTest.Core.Trims;
@@ -30,7 +31,9 @@ internal sealed class ResistorTrimExecutor
         var spec = sequence.Trim?.Resistor ?? throw new InvalidOperationException("Checked sequences with method 'resistor' have a resistor trim.");
         var name = step.DisplayName;
         var now = _coordinator.Now;
-        var result = ResistorTrim.Compute(spec, TrimInputs.Points(step, unit), TrimInputs.ExtraCheckpoints(sequence, step));
+        var points = TrimInputs.Points(step, unit);
+        var curve = TrimInputs.Curve(sequence, points, unit);
+        var result = ResistorTrim.Compute(spec, points, TrimInputs.ExtraCheckpoints(sequence, step), TrimAccuracy.Line(sequence, curve, points));
         if (!result.TryGetValue(out var trim))
         {
             unit.Add(new Reading($"{name}.computed", null, "1", null, null, Verdict.Fail)
@@ -54,6 +57,8 @@ internal sealed class ResistorTrimExecutor
                 unit.Add(UnlimitedReading.Create($"{name}.predicted.{predicted.Name}.worstCase", worst, "degC") with { Step = name, At = now });
             }
         }
+
+        TrimInputs.AddBudget(sequence, step, unit, trim, curve, _coordinator.Fixture, now);
 
         if (!trim.InRange)
         {
