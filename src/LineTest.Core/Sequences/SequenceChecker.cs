@@ -3,6 +3,7 @@ using System.Globalization;
 using System.Text.RegularExpressions;
 using LineTest.Core.Definitions;
 using LineTest.Core.Fixtures;
+using LineTest.Core.Sequences.Steps;
 using LineTest.Core.Trims;
 
 namespace LineTest.Core.Sequences;
@@ -13,13 +14,6 @@ namespace LineTest.Core.Sequences;
 /// </summary>
 public static class SequenceChecker
 {
-    private static readonly string[] CurrentUnits = ["A", "mA", "uA"];
-    private static readonly string[] VoltageUnits = ["V", "mV", "uV"];
-    private static readonly string[] TemperatureDifferenceUnits = ["degC", "K"];
-    private static readonly string[] CountUnits = ["count"];
-    private static readonly string[] RatioUnits = ["1"];
-    private static readonly string[] ResistanceUnits = ["ohm", "kohm"];
-    private static readonly string[] SlopeUnits = ["mV/degC"];
 
     /// <summary>Checks <paramref name="sequence"/>; with a fixture, also that every setpoint is inside its safe range.</summary>
     public static ProblemList Check(SequenceDefinition sequence, FixtureDefinition? fixture)
@@ -35,8 +29,8 @@ public static class SequenceChecker
         var setpoints = CheckSetpoints(sequence.Setpoints, fixture, problems);
         CheckTrim(sequence.Trim, problems);
         CheckSoakSensitivity(sequence, problems);
-        CheckSteps(sequence, setpoints, problems);
-        IvSweepRules.Check(sequence, fixture, problems);
+        CheckSteps(sequence, fixture, setpoints, problems);
+        IvSweepStepKind.CheckSequence(sequence, problems);
         AccuracyRules.Check(sequence, problems);
         problems.AddIf(!SetpointOrders.All.Contains(sequence.SetpointOrder, StringComparer.Ordinal), "$.setpointOrder",
             $"'{sequence.SetpointOrder}' is not a setpoint order: use {string.Join(" or ", SetpointOrders.All.Select(o => $"\"{o}\""))}");
@@ -227,18 +221,6 @@ public static class SequenceChecker
             "the raw sensitivity must be a non-zero number");
     }
 
-    /// <summary>Checks an <c>output</c> word; returns true when it is known.</summary>
-    private static bool CheckOutput(string output, string path, ProblemList problems)
-    {
-        if (UnitOutputs.All.Contains(output, StringComparer.Ordinal))
-        {
-            return true;
-        }
-
-        problems.Add($"{path}.output", $"unknown output '{output}' (known: {string.Join(", ", UnitOutputs.All)})");
-        return false;
-    }
-
     private static void CheckDac(DacTrimSpec dac, ProblemList problems)
     {
         CheckDacChannel(dac.Gain, "$.trim.dac.gain", problems);
@@ -256,14 +238,11 @@ public static class SequenceChecker
         problems.AddIf(string.IsNullOrWhiteSpace(channel.Register), $"{path}.register", "the register name must not be empty");
     }
 
-    private static void CheckSteps(SequenceDefinition sequence, HashSet<string> setpoints, ProblemList problems)
+    private static void CheckSteps(SequenceDefinition sequence, FixtureDefinition? fixture, HashSet<string> setpoints, ProblemList problems)
     {
         problems.AddIf(sequence.Steps.Count == 0, "$.steps", "at least one step is needed");
-        string? settledAt = null;
-        var measured = new HashSet<string>(StringComparer.Ordinal);
+        var context = new StepCheckContext(sequence, fixture, setpoints, problems);
         var readingNames = new Dictionary<string, int>(StringComparer.Ordinal);
-        var trimmed = false;
-        var firmware = sequence.Trim?.Method == TrimMethods.Firmware;
         for (var i = 0; i < sequence.Steps.Count; i++)
         {
             var step = sequence.Steps[i];
@@ -284,151 +263,17 @@ public static class SequenceChecker
                 }
             }
 
-            switch (step)
+            // Each kind checks itself (Sequences/Steps); the context carries what the steps before it did.
+            context.Path = path;
+            if (StepKinds.Find(step) is { } kind)
             {
-                case SettleStep settle:
-                    // Remember even an unknown setpoint: the steps after it are then judged against what the engineer
-                    // meant to settle at, so one misspelt name gives one problem, not one per following step.
-                    RequireSetpoint(settle.Setpoint, setpoints, $"{path}.setpoint", problems);
-                    settledAt = settle.Setpoint;
-                    break;
-                case MeasureStep measure:
-                    RequireSettled(measure.Setpoint, settledAt, setpoints, path, problems);
-                    Samples(measure.Samples, path, problems);
-                    var measureOutputKnown = CheckOutput(measure.Output, path, problems);
-                    problems.AddIf(measureOutputKnown && firmware && measure.Output != UnitOutputs.Link, $"{path}.output",
-                        "a firmware trim is computed from the unit's raw counts: read them with \"output\": \"link\"");
-                    if (measure.OutputLimits is { } outputLimits)
-                    {
-                        CheckLimits(outputLimits, $"{path}.outputLimits", measure.Output == UnitOutputs.Link ? CountUnits : VoltageUnits, problems);
-                    }
-
-                    measured.Add(measure.Setpoint);
-                    break;
-                case VerifyStep verify:
-                    RequireSettled(verify.Setpoint, settledAt, setpoints, path, problems);
-                    Samples(verify.Samples, path, problems);
-                    var verifyOutputKnown = CheckOutput(verify.Output, path, problems);
-                    problems.AddIf(verifyOutputKnown && firmware && verify.Output != UnitOutputs.Link, $"{path}.output",
-                        "a firmware-trimmed unit reports its temperature itself: verify it with \"output\": \"link\"");
-                    CheckLimits(verify.Limits, $"{path}.limits", TemperatureDifferenceUnits, problems);
-                    problems.AddIf(sequence.Trim is not null && !trimmed, path,
-                        "a verify step must come after the trim step (it confirms the trim)");
-                    break;
-                case SupplyCurrentStep supply:
-                    Samples(supply.Samples, path, problems);
-                    CheckLimits(supply.Limits, $"{path}.limits", CurrentUnits, problems);
-                    break;
-                case TrimStep trim:
-                    trimmed = true;
-                    CheckTrimStep(sequence, trim, path, setpoints, measured, problems);
-                    break;
-                case PromptStep prompt:
-                    problems.AddIf(string.IsNullOrWhiteSpace(prompt.Text), $"{path}.text", "the prompt text must not be empty");
-                    break;
-                case IvSweepStep sweep:
-                    RequireSettled(sweep.Setpoint, settledAt, setpoints, path, problems);
-                    break;
-                case IdentifyStep:
-                    break;
-                default:
-                    problems.Add($"{path}.kind", $"step kind '{step.Kind}' is not supported by this checker");
-                    break;
+                kind.Check(step, context);
+            }
+            else
+            {
+                problems.Add($"{path}.kind", $"step kind '{step.Kind}' is not supported by this checker");
             }
         }
-    }
-
-    private static void CheckTrimStep(
-        SequenceDefinition sequence, TrimStep trim, string path, HashSet<string> setpoints, HashSet<string> measured, ProblemList problems)
-    {
-        problems.AddIf(sequence.Trim is null, path, "a trim step needs the sequence's 'trim' object (method and parameters)");
-        problems.AddIf(trim.Points.Count < 2, $"{path}.points", "a trim needs calibration points from two setpoints or more");
-        var distinct = new HashSet<string>(StringComparer.Ordinal);
-        for (var p = 0; p < trim.Points.Count; p++)
-        {
-            var point = trim.Points[p];
-            var pointPath = $"{path}.points[{p}]";
-            if (RequireSetpoint(point, setpoints, pointPath, problems))
-            {
-                problems.AddIf(!measured.Contains(point), pointPath,
-                    $"setpoint '{point}' has no measure step before this trim step");
-                problems.AddIf(!distinct.Add(point), pointPath, $"setpoint '{point}' is listed twice");
-            }
-        }
-
-        for (var p = 0; p < trim.PredictAt.Count; p++)
-        {
-            RequireSetpoint(trim.PredictAt[p], setpoints, $"{path}.predictAt[{p}]", problems);
-        }
-    }
-
-    private static bool RequireSetpoint(string name, HashSet<string> setpoints, string path, ProblemList problems)
-    {
-        if (setpoints.Contains(name))
-        {
-            return true;
-        }
-
-        var known = setpoints.Count == 0 ? "none defined" : string.Join(", ", setpoints.Order(StringComparer.Ordinal));
-        problems.Add(path, $"setpoint '{name}' does not exist (known: {known})");
-        return false;
-    }
-
-    private static void RequireSettled(string setpoint, string? settledAt, HashSet<string> setpoints, string path, ProblemList problems)
-    {
-        var settledAtKnown = settledAt is null || setpoints.Contains(settledAt);
-        if (RequireSetpoint(setpoint, setpoints, $"{path}.setpoint", problems) && settledAtKnown && settledAt != setpoint)
-        {
-            problems.Add($"{path}.setpoint",
-                settledAt is null
-                    ? $"no settle step brings the source to '{setpoint}' before this step"
-                    : $"the source is settled at '{settledAt}' here, not at '{setpoint}'");
-        }
-    }
-
-    private static void Samples(int samples, string path, ProblemList problems) =>
-        problems.AddIf(samples < 1, $"{path}.samples", $"samples must be 1 or more, not {samples}");
-
-    /// <summary>Limits of an I–V sweep reading, by their JSON key: which units fit.</summary>
-    internal static void CheckSweepLimits(LimitSpec? limits, string path, string key, ProblemList problems)
-    {
-        if (limits is null)
-        {
-            return;
-        }
-
-        var units = key switch
-        {
-            "n" or "log10Is" => RatioUnits,
-            "rsOhms" => ResistanceUnits,
-            "tempco" => SlopeUnits,
-            _ => VoltageUnits,
-        };
-        CheckLimits(limits, $"{path}.{key}", units, problems);
-    }
-
-    private static void CheckLimits(LimitSpec limits, string path, string[] allowedUnits, ProblemList problems)
-    {
-        if (!UnitsOfMeasure.IsKnown(limits.Unit))
-        {
-            problems.Add($"{path}.unit",
-                $"unknown unit of measure '{limits.Unit}' (known: {string.Join(", ", UnitsOfMeasure.Symbols)})");
-        }
-        else if (!allowedUnits.Contains(limits.Unit, StringComparer.Ordinal))
-        {
-            problems.Add($"{path}.unit", $"unit '{limits.Unit}' does not fit this reading (use {string.Join(", ", allowedUnits)})");
-        }
-
-        problems.AddIf(limits.Low is null && limits.High is null, path, "give a low limit, a high limit or both");
-        problems.AddIf(limits.Low is { } lo && !double.IsFinite(lo), $"{path}.low", "the low limit must be a finite number");
-        problems.AddIf(limits.High is { } hi && !double.IsFinite(hi), $"{path}.high", "the high limit must be a finite number");
-        if (limits.Low is { } low && limits.High is { } high && low > high)
-        {
-            problems.Add($"{path}.low", $"the low limit ({F(low)}) is above the high limit ({F(high)})");
-        }
-
-        problems.AddIf(limits.GuardBandFactor < 0 || !double.IsFinite(limits.GuardBandFactor), $"{path}.guardBandFactor",
-            "the guard-band factor must be zero or more");
     }
 
     private static void Positive(double value, string path, ProblemList problems) =>

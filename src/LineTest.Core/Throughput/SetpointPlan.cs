@@ -1,13 +1,14 @@
 using LineTest.Core.Fixtures;
 using LineTest.Core.Sequences;
+using LineTest.Core.Sequences.Steps;
 
 namespace LineTest.Core.Throughput;
 
 /// <summary>
 /// Chooses the order in which a sequence's independent settle blocks are visited. A block is a settle step followed
 /// only by measure or verify steps at its setpoint; a run of such blocks with nothing else between them is a group,
-/// and blocks within a group do not depend on each other (a trim, prompt, identify or supply-current step ends the
-/// group). For a sequence whose <c>setpointOrder</c> is <c>free</c>, each group is visited in the order with the
+/// and blocks within a group do not depend on each other (a step whose kind is a <see cref="PlannerRole.Barrier"/>, such
+/// as a trim, prompt, identify, supply-current or iv-sweep step, ends the group). For a sequence whose <c>setpointOrder</c> is <c>free</c>, each group is visited in the order with the
 /// least predicted source travel (<see cref="ThermalBound.TravelSeconds"/>) from where the block is, through the
 /// group, to the setpoint that follows it; ties keep the file order. A <c>fixed</c> sequence is returned unchanged.
 /// </summary>
@@ -41,7 +42,7 @@ public static class SetpointPlan
             var blocks = GroupAt(steps, i);
             if (blocks.Count == 0)
             {
-                if (steps[i] is SettleStep lone && celsius.TryGetValue(lone.Setpoint, out var c))
+                if (SettlesAt(steps[i]) is { } lone && celsius.TryGetValue(lone, out var c))
                 {
                     current = c;
                 }
@@ -52,8 +53,8 @@ public static class SetpointPlan
             }
 
             var consumed = blocks.Sum(b => b.Count);
-            double? nextC = NextSettle(steps, i + consumed) is { } next && celsius.TryGetValue(next.Setpoint, out var n) ? n : null;
-            var targets = blocks.Select(b => celsius.TryGetValue(((SettleStep)b[0]).Setpoint, out var t) ? t : current).ToArray();
+            double? nextC = NextSettle(steps, i + consumed) is { } next && celsius.TryGetValue(next, out var n) ? n : null;
+            var targets = blocks.Select(b => celsius.TryGetValue(SettlesAt(b[0])!, out var t) ? t : current).ToArray();
             var order = BestOrder(source, sequence.Stability.BandC, current, targets, nextC);
             foreach (var index in order)
             {
@@ -80,11 +81,11 @@ public static class SetpointPlan
     {
         var blocks = new List<List<StepDefinition>>();
         var i = start;
-        while (i < steps.Count && steps[i] is SettleStep settle)
+        while (i < steps.Count && SettlesAt(steps[i]) is { } setpoint)
         {
-            var block = new List<StepDefinition> { settle };
+            var block = new List<StepDefinition> { steps[i] };
             var j = i + 1;
-            while (j < steps.Count && ReadsAt(steps[j], settle.Setpoint))
+            while (j < steps.Count && ReadsAt(steps[j], setpoint))
             {
                 block.Add(steps[j]);
                 j++;
@@ -102,20 +103,22 @@ public static class SetpointPlan
         return blocks.Count >= 2 ? blocks : [];
     }
 
-    private static bool ReadsAt(StepDefinition step, string setpoint) => step switch
-    {
-        MeasureStep m => string.Equals(m.Setpoint, setpoint, StringComparison.Ordinal),
-        VerifyStep v => string.Equals(v.Setpoint, setpoint, StringComparison.Ordinal),
-        _ => false,
-    };
+    /// <summary>Whether <paramref name="step"/> reads at <paramref name="setpoint"/> and so moves with that setpoint's block.</summary>
+    private static bool ReadsAt(StepDefinition step, string setpoint) =>
+        StepKinds.Of(step) is { PlannerRole: PlannerRole.ReadsInBlock } kind
+        && string.Equals(kind.SetpointOf(step), setpoint, StringComparison.Ordinal);
 
-    private static SettleStep? NextSettle(IReadOnlyList<StepDefinition> steps, int from)
+    /// <summary>The setpoint <paramref name="step"/> brings the source to when it starts a settle block; otherwise null.</summary>
+    private static string? SettlesAt(StepDefinition step) =>
+        StepKinds.Of(step) is { PlannerRole: PlannerRole.Settle } kind ? kind.SetpointOf(step) : null;
+
+    private static string? NextSettle(IReadOnlyList<StepDefinition> steps, int from)
     {
         for (var i = from; i < steps.Count; i++)
         {
-            if (steps[i] is SettleStep settle)
+            if (SettlesAt(steps[i]) is { } setpoint)
             {
-                return settle;
+                return setpoint;
             }
         }
 

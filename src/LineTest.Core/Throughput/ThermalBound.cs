@@ -1,5 +1,6 @@
 using LineTest.Core.Fixtures;
 using LineTest.Core.Sequences;
+using LineTest.Core.Sequences.Steps;
 
 namespace LineTest.Core.Throughput;
 
@@ -7,7 +8,8 @@ namespace LineTest.Core.Throughput;
 /// The thermal lower bound of a batch: the shortest time in which the sequence's setpoints could be visited and
 /// measured to the stability the sequence asks for, given the fixture's source model (ramp-rate limit, then a
 /// first-order approach with time constant τ), the stability window, the units' soak window and the time the
-/// measurements themselves take. No schedule can beat it; the ratio of it to a simulated batch says how much
+/// steps at each setpoint themselves take (each kind's <see cref="IStepKind.EstimateSeconds"/>: measurements and I–V
+/// sweeps). No schedule can beat it; the ratio of it to a simulated batch says how much
 /// cycle time is left on the table.
 /// </summary>
 public static class ThermalBound
@@ -29,26 +31,25 @@ public static class ThermalBound
         var current = startC;
         SetpointDefinition? settled = null;
         var measureSeconds = 0.0;
+        var model = new StepTimeModel(units, referenceReadSeconds, meterReadSeconds);
         foreach (var step in sequence.Steps)
         {
-            switch (step)
+            var kind = StepKinds.Of(step);
+            if (kind.PlannerRole == PlannerRole.Settle)
             {
-                case SettleStep settle:
-                    if (settled is not null)
-                    {
-                        legs.Add(Leg(sequence, source, settled, current, measureSeconds));
-                        current = settled.Celsius;
-                    }
+                if (settled is not null)
+                {
+                    legs.Add(Leg(sequence, source, settled, current, measureSeconds));
+                    current = settled.Celsius;
+                }
 
-                    settled = sequence.Setpoints.First(s => s.Name == settle.Setpoint);
-                    measureSeconds = 0;
-                    break;
-                case MeasureStep measure:
-                    measureSeconds += measure.Samples * (referenceReadSeconds + units * meterReadSeconds);
-                    break;
-                case VerifyStep verify:
-                    measureSeconds += verify.Samples * (referenceReadSeconds + units * meterReadSeconds);
-                    break;
+                settled = sequence.Setpoints.First(s => s.Name == kind.SetpointOf(step));
+                measureSeconds = 0;
+            }
+            else
+            {
+                // Every other step's own least time (measurements, sweeps) counts at the setpoint it runs at.
+                measureSeconds += kind.EstimateSeconds(step, model);
             }
         }
 

@@ -5,9 +5,9 @@ namespace LineTest.Rig.Fuzzing;
 /// <summary>
 /// Wraps a fixture's instruments so that, at a given rate, any reply is replaced by garbage drawn from random bytes
 /// (see <see cref="GarbageGenerator"/>). Used to show that no reply, however wrong, makes the coordinator crash:
-/// every unit still ends pass, fail or error.
+/// every unit still ends pass, fail or error. Every instrument of the set is wrapped (<see cref="IInstrumentDecorator"/>).
 /// </summary>
-public sealed class GarbageInstruments
+public sealed class GarbageInstruments : IInstrumentDecorator
 {
     private readonly GarbageGenerator _garbage;
 
@@ -21,11 +21,7 @@ public sealed class GarbageInstruments
         ArgumentOutOfRangeException.ThrowIfNegative(rate);
         ArgumentOutOfRangeException.ThrowIfGreaterThan(rate, 1);
         _garbage = new GarbageGenerator(seed, rate);
-        Instruments = new RigInstruments(
-            new GarbageSource(inner.Source, _garbage),
-            new GarbageReference(inner.Reference, _garbage),
-            new GarbageVoltmeter(inner.Meter, _garbage),
-            inner.UnitLinks.ToDictionary(p => p.Key, p => (IUnitLink)new GarbageUnitLink(p.Value, _garbage, $"unit slot {p.Key}")));
+        Instruments = inner.Decorate(this);
     }
 
     /// <summary>The wrapped instruments.</summary>
@@ -33,4 +29,19 @@ public sealed class GarbageInstruments
 
     /// <summary>How many replies have been replaced so far.</summary>
     public int GarbageReplies => _garbage.Count;
+
+    /// <inheritdoc />
+    public ITemperatureSource Decorate(ITemperatureSource source) => new GarbageSource(source, _garbage);
+
+    /// <inheritdoc />
+    public IReferenceReadout Decorate(IReferenceReadout reference) => new GarbageReference(reference, _garbage);
+
+    /// <inheritdoc />
+    public IVoltmeter Decorate(IVoltmeter meter) => new GarbageVoltmeter(meter, _garbage);
+
+    /// <inheritdoc />
+    public IUnitLink Decorate(int slot, IUnitLink link) => new GarbageUnitLink(link, _garbage, $"unit slot {slot}");
+
+    /// <inheritdoc />
+    public ISourceMeter Decorate(ISourceMeter sourceMeter) => new GarbageSourceMeter(sourceMeter, _garbage);
 }

@@ -22,6 +22,9 @@ internal sealed class BatchState
 
     public List<SetpointRecord> SetpointHistory { get; } = [];
 
+    /// <summary>The setpoint commanded ahead of its settle step, and when (see <see cref="BatchPlanner"/>); null once used.</summary>
+    public (string Name, DateTimeOffset At)? PreCommanded { get; set; }
+
     /// <summary>Units still in progress, in slot order (a fresh list each time: callers may end units while iterating).</summary>
     public IReadOnlyList<UnitContext> Active => Units.Where(u => !u.IsFinished).OrderBy(u => u.Slot).ToList();
 }

@@ -95,6 +95,12 @@ public static class CampaignCommand
             var folder = parse.GetValue(results) is { } r
                 ? Path.GetFullPath(r)
                 : Path.Combine(Path.GetTempPath(), $"linetest-campaign-{parse.GetValue(seed)}-{Guid.NewGuid():N}");
+            using var writer = WriterLock.TakeOrRefuse(folder, context.Clock, context.Error);
+            if (writer is null)
+            {
+                return ExitCodes.RuntimeFailure;
+            }
+
             var campaign = new FaultCampaign(new CampaignOptions
             {
                 Fixture = fx,

@@ -74,6 +74,13 @@ public static class DemoCommand
 
             var asJson = parse.GetValue(json);
             var lines = asJson ? context.Error : context.Output;
+            var resultsFolder = Path.GetFullPath(parse.GetValue(results)!);
+            using var writer = WriterLock.TakeOrRefuse(resultsFolder, context.Clock, context.Error);
+            if (writer is null)
+            {
+                return ExitCodes.RuntimeFailure;
+            }
+
             var shift = new SimulatedShift(
                 new ShiftOptions
                 {
@@ -83,7 +90,7 @@ public static class DemoCommand
                     Units = unitCount,
                     Slots = slotCount,
                     Seed = parse.GetValue(seed),
-                    ResultsDirectory = Path.GetFullPath(parse.GetValue(results)!),
+                    ResultsDirectory = resultsFolder,
                     Station = options.Id,
                     Lot = parse.GetValue(lot) ?? options.Lot,
                     Serial = parse.GetValue(serial),
@@ -113,6 +120,7 @@ public static class DemoCommand
                 return context.BadInput($"production mode refuses the sequence: {refusal}");
             }
 
+            summary = summary with { Head = Storage.Proof.HeadFile.Read(resultsFolder).Head?.Current.Anchor };
             if (asJson)
             {
                 context.Output.WriteLine(JsonSerializer.Serialize(summary));
@@ -120,6 +128,7 @@ public static class DemoCommand
             else
             {
                 WriteSummary(context.Output, summary);
+                context.Output.WriteLine(ResultsHeadLine.For(resultsFolder));
             }
 
             return ExitCodes.Done;

@@ -1,4 +1,5 @@
 using System.CommandLine;
+using LineTest.Station.Composition;
 using System.Text;
 using LineTest.Reports.Building;
 using LineTest.Reports.Console;
@@ -138,6 +139,10 @@ public static class ReportCommand
                     ColorSystem = ColorSystemSupport.Detect,
                 });
                 ReportConsoleWriter.Write(report, console);
+                foreach (var folder in csvInput is null ? (folders.Length == 0 ? ["results"] : folders) : [])
+                {
+                    context.Output.WriteLine($"{Path.GetFullPath(folder)}: {ResultsHeadLine.For(folder)}");
+                }
             }
 
             return ExitCodes.Done;

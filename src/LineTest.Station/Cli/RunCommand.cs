@@ -1,4 +1,5 @@
 using System.CommandLine;
+using LineTest.Station.Composition;
 using LineTest.Station.Hosting;
 using Microsoft.Extensions.Configuration;
 using Microsoft.Extensions.DependencyInjection;
@@ -26,6 +27,13 @@ public static class RunCommand
                 }
 
                 return ExitCodes.BadInput;
+            }
+
+            // One writer per results folder: refused at once, before the rig is opened or recovery looks at the journal.
+            using var writer = WriterLock.TakeOrRefuse(ContentRoot.Resolve(context.Root, context.Options.Results), context.Clock, context.Error);
+            if (writer is null)
+            {
+                return ExitCodes.RuntimeFailure;
             }
 
             var builder = Host.CreateApplicationBuilder(new HostApplicationBuilderSettings

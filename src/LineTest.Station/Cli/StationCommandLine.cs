@@ -19,11 +19,13 @@ public static class StationCommandLine
             SchemaCommand.Create(context),
             DryRunCommand.Create(context),
             VerifyCommand.Create(context),
+            BackupCommand.Create(context),
             ReportCommand.Create(context),
             ExportCommand.Create(context),
             ReleaseCommand.Create(context),
             CampaignCommand.Create(context),
             BenchCommand.Create(context),
+            ServeCommand.Create(context),
         };
         return root;
     }

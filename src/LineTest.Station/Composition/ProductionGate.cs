@@ -5,7 +5,7 @@ namespace LineTest.Station.Composition;
 
 /// <summary>
 /// The production-mode rule: only a sequence file whose SHA-256 is on the release list (the <c>releases</c> table
-/// of results.db) may test units. Engineering mode runs any checked file and marks every run <c>engineering</c>.
+/// of results.db) and not revoked (<c>release_revocations</c>) may test units. Engineering mode runs any checked file and marks every run <c>engineering</c>.
 /// </summary>
 public static class ProductionGate
 {
@@ -26,6 +26,7 @@ public static class ProductionGate
         }
 
         var releases = await store.ReadReleasesAsync(ct).ConfigureAwait(false);
-        return ReleaseCheck.Refusal(releases, sequenceId, revision, sha256, file);
+        var revocations = await store.ReadRevocationsAsync(ct).ConfigureAwait(false);
+        return ReleaseCheck.Refusal(releases, revocations, sequenceId, revision, sha256, file);
     }
 }

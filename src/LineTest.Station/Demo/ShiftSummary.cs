@@ -36,4 +36,8 @@ public sealed record ShiftSummary
     /// <summary>The results database the runs were appended to.</summary>
     [JsonPropertyName("resultsPath")]
     public required string ResultsPath { get; init; }
+
+    /// <summary>The results folder's head after the shift (<c>SEQ:HASH</c>, see <c>linetest verify --expect-head</c>), or null.</summary>
+    [JsonPropertyName("head")]
+    public string? Head { get; init; }
 }

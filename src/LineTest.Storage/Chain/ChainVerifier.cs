@@ -55,40 +55,75 @@ public static class ChainVerifier
         var expectedPrevious = RecordHash.Genesis;
         StoredRun? previous = null;
         long checkedRuns = 0;
+        var found = new Found();
         var current = StoredRun.ReadNext(runs);
         while (current is not null)
         {
             ct.ThrowIfCancellationRequested();
             var next = StoredRun.ReadNext(runs);
 
-            var problem = CheckPosition(previous, current, next, expectedPrevious, readingCursor)
-                ?? CheckContent(current, readingCursor);
-            if (problem is not null)
+            // Readings left behind by deleted runs: report them and move past, then check where this run stands.
+            var position = CheckPosition(previous, current, next, expectedPrevious, readingCursor);
+            while (position is not null && position.RunId is null && readingCursor.HasRow && readingCursor.RunSeq < current.Seq)
             {
-                // An inserted run found one step late was accepted already; do not count it as intact.
-                var intact = problem.Kind == ChainProblemKind.RunInserted && previous is not null && problem.Seq == previous.Seq
-                    ? checkedRuns - 1
-                    : checkedRuns;
-                var head = intact == checkedRuns ? expectedPrevious : previous!.Previous;
-                return new ChainReport(intact, head, problem);
+                found.Add(position, checkedRuns, expectedPrevious, previous);
+                SkipReadings(readingCursor, readingCursor.RunSeq);
+                position = CheckPosition(previous, current, next, expectedPrevious, readingCursor);
             }
 
-            expectedPrevious = current.Record;
-            previous = current;
-            checkedRuns++;
+            var inserted = false;
+            if (position is not null)
+            {
+                found.Add(position, checkedRuns, expectedPrevious, previous);
+                inserted = position.Kind == ChainProblemKind.RunInserted && position.Seq == current.Seq;
+            }
+
+            if (CheckContent(current, readingCursor) is { } content)
+            {
+                found.Add(content, checkedRuns, expectedPrevious, previous);
+                SkipReadings(readingCursor, current.Seq);
+            }
+
+            if (!inserted)
+            {
+                // Carry on from this run, so every later problem is found too, not only the first.
+                expectedPrevious = current.Record;
+                previous = current;
+            }
+
+            if (found.Count == 0)
+            {
+                checkedRuns++;
+            }
+
             current = next;
         }
 
-        if (readingCursor.HasRow)
+        while (readingCursor.HasRow)
         {
-            return new ChainReport(checkedRuns, expectedPrevious, new ChainProblem(
-                ChainProblemKind.RunMissing,
-                readingCursor.RunSeq,
-                null,
-                $"Readings are stored for a run with seq {readingCursor.RunSeq}, but that run is not in the runs table: it was deleted."));
+            found.Add(
+                new ChainProblem(
+                    ChainProblemKind.RunMissing,
+                    readingCursor.RunSeq,
+                    null,
+                    $"Readings are stored for a run with seq {readingCursor.RunSeq}, but that run is not in the runs table: it was deleted."),
+                checkedRuns,
+                expectedPrevious,
+                previous);
+            SkipReadings(readingCursor, readingCursor.RunSeq);
         }
 
-        return new ChainReport(checkedRuns, expectedPrevious, null);
+        return found.Count == 0
+            ? new ChainReport(checkedRuns, expectedPrevious, null)
+            : new ChainReport(found.IntactRuns, found.IntactHead, found.List[0]) { Problems = found.List, ProblemCount = found.Count };
+    }
+
+    private static void SkipReadings(ReadingCursor readings, long seq)
+    {
+        while (readings.HasRow && readings.RunSeq == seq)
+        {
+            readings.Advance();
+        }
     }
 
     private static ChainProblem? CheckPosition(StoredRun? previous, StoredRun current, StoredRun? next, string expectedPrevious, ReadingCursor readings)
@@ -217,6 +252,35 @@ public static class ChainVerifier
         IFormattable f => f.ToString(null, CultureInfo.InvariantCulture),
         _ => $"'{value}'",
     };
+
+    /// <summary>The problems found so far (the first <see cref="ChainReport.ProblemListLimit"/> kept) and the intact prefix.</summary>
+    private sealed class Found
+    {
+        public List<ChainProblem> List { get; } = [];
+
+        public long Count { get; private set; }
+
+        public long IntactRuns { get; private set; }
+
+        public string IntactHead { get; private set; } = RecordHash.Genesis;
+
+        public void Add(ChainProblem problem, long checkedRuns, string expectedPrevious, StoredRun? previous)
+        {
+            if (Count == 0)
+            {
+                // An inserted run found one step late was accepted already; do not count it as intact.
+                var late = problem.Kind == ChainProblemKind.RunInserted && previous is not null && problem.Seq == previous.Seq;
+                IntactRuns = late ? checkedRuns - 1 : checkedRuns;
+                IntactHead = late ? previous!.Previous : expectedPrevious;
+            }
+
+            Count++;
+            if (List.Count < ChainReport.ProblemListLimit)
+            {
+                List.Add(problem);
+            }
+        }
+    }
 
     /// <summary>One row of the runs table as read for checking.</summary>
     private sealed class StoredRun

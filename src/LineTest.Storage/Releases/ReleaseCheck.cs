@@ -13,10 +13,29 @@ public static class ReleaseCheck
     /// <param name="sha256">SHA-256 of the file.</param>
     /// <param name="file">The file's path, for the message.</param>
     /// <returns>Null when the hash is released for this id and revision; otherwise why the file is refused.</returns>
-    public static string? Refusal(IReadOnlyList<Release> releases, string sequenceId, int revision, string sha256, string file)
+    public static string? Refusal(IReadOnlyList<Release> releases, string sequenceId, int revision, string sha256, string file) =>
+        Refusal(releases, [], sequenceId, revision, sha256, file);
+
+    /// <summary>Checks a sequence file against the release list and its revocations: a revoked file is refused.</summary>
+    /// <param name="releases">The release list.</param>
+    /// <param name="revocations">The revocations.</param>
+    /// <param name="sequenceId">Id inside the file.</param>
+    /// <param name="revision">Revision inside the file.</param>
+    /// <param name="sha256">SHA-256 of the file.</param>
+    /// <param name="file">The file's path, for the message.</param>
+    /// <returns>Null when the hash is released (and not revoked) for this id and revision; otherwise why the file is refused.</returns>
+    public static string? Refusal(
+        IReadOnlyList<Release> releases, IReadOnlyList<Revocation> revocations, string sequenceId, int revision, string sha256, string file)
     {
         ArgumentNullException.ThrowIfNull(releases);
+        ArgumentNullException.ThrowIfNull(revocations);
         ArgumentNullException.ThrowIfNull(sha256);
+        if (revocations.FirstOrDefault(r => string.Equals(r.Sha256, sha256, StringComparison.OrdinalIgnoreCase)) is { } revoked)
+        {
+            return $"sequence file {file} ({sequenceId} r{revision}, file {sha256}) was revoked by {revoked.RevokedBy} at "
+                + $"{Sqlite.UtcText.ToText(revoked.RevokedUtc)} ({revoked.Reason}); production does not run it (release a new revision)";
+        }
+
         var same = releases.Where(r => r.SequenceId == sequenceId && r.SequenceRevision == revision).ToList();
         if (same.Any(r => string.Equals(r.Sha256, sha256, StringComparison.OrdinalIgnoreCase)))
         {

@@ -36,34 +36,11 @@ public sealed partial class SqliteResultStore
         try
         {
             ObjectDisposedException.ThrowIf(_disposed, this);
-            using var transaction = _connection.BeginTransaction(deferred: false);
-            using var command = _connection.CreateCommand();
-            command.Transaction = transaction;
-            command.CommandText = """
-                INSERT INTO runs_in_progress (id, serial, slot, batch_id, started_utc, updated_utc, record_json)
-                VALUES ($id, $serial, $slot, $batch, $started, $updated, $json)
-                ON CONFLICT (id) DO UPDATE SET updated_utc = excluded.updated_utc, record_json = excluded.record_json;
-                """;
-            var id = command.Parameters.Add("$id", SqliteType.Text);
-            var serial = command.Parameters.Add("$serial", SqliteType.Text);
-            var slot = command.Parameters.Add("$slot", SqliteType.Integer);
-            var batch = command.Parameters.Add("$batch", SqliteType.Text);
-            var started = command.Parameters.Add("$started", SqliteType.Text);
-            var updated = command.Parameters.Add("$updated", SqliteType.Text);
-            var json = command.Parameters.Add("$json", SqliteType.Text);
-            foreach (var run in inProgress)
+            InWrite(transaction =>
             {
-                id.Value = run.Id.ToString("D");
-                serial.Value = run.Serial;
-                slot.Value = (long)run.Slot;
-                batch.Value = (object?)run.BatchId ?? DBNull.Value;
-                started.Value = UtcText.ToText(run.StartedUtc);
-                updated.Value = UtcText.ToText(run.EndedUtc);
-                json.Value = RunJson.Serialize(run);
-                command.ExecuteNonQuery();
-            }
-
-            transaction.Commit();
+                WriteJournal(transaction, inProgress);
+                return 0;
+            });
         }
         catch (Exception ex) when (ex is SqliteException or IOException or UnauthorizedAccessException)
         {
@@ -94,24 +71,36 @@ public sealed partial class SqliteResultStore
         }
     }
 
-    /// <summary>
-    /// Stores every journal entry as a finished run with verdict <c>error</c>, reason <see cref="InterruptedReason"/>,
-    /// the readings it had and its last journal time as its end, each in the transaction that removes the entry
-    /// (a crash during recovery leaves the rest for the next start). Returns the runs stored.
-    /// </summary>
-    /// <exception cref="ResultStoreException">A run could not be stored; those stored before it stay stored.</exception>
-    public async Task<IReadOnlyList<RunRecord>> RecoverInterruptedAsync(CancellationToken ct)
+    private void WriteJournal(SqliteTransaction transaction, IReadOnlyList<RunRecord> inProgress)
     {
-        var entries = await ReadJournalAsync(ct).ConfigureAwait(false);
-        var recovered = new List<RunRecord>(entries.Count);
-        foreach (var entry in entries)
-        {
-            var run = entry with { Verdict = Verdict.Error, Reason = InterruptedReason };
-            await AppendAsync(run, ct).ConfigureAwait(false);
-            recovered.Add(run);
-        }
+        using var command = _connection.CreateCommand();
+        command.Transaction = transaction;
 
-        return recovered;
+        // A run already stored never comes back into the journal: its entry would be stored a second time at the next start.
+        command.CommandText = """
+            INSERT INTO runs_in_progress (id, serial, slot, batch_id, started_utc, updated_utc, record_json)
+            SELECT $id, $serial, $slot, $batch, $started, $updated, $json
+            WHERE NOT EXISTS (SELECT 1 FROM runs WHERE id = $id)
+            ON CONFLICT (id) DO UPDATE SET updated_utc = excluded.updated_utc, record_json = excluded.record_json;
+            """;
+        var id = command.Parameters.Add("$id", SqliteType.Text);
+        var serial = command.Parameters.Add("$serial", SqliteType.Text);
+        var slot = command.Parameters.Add("$slot", SqliteType.Integer);
+        var batch = command.Parameters.Add("$batch", SqliteType.Text);
+        var started = command.Parameters.Add("$started", SqliteType.Text);
+        var updated = command.Parameters.Add("$updated", SqliteType.Text);
+        var json = command.Parameters.Add("$json", SqliteType.Text);
+        foreach (var run in inProgress)
+        {
+            id.Value = run.Id.ToString("D");
+            serial.Value = run.Serial;
+            slot.Value = (long)run.Slot;
+            batch.Value = (object?)run.BatchId ?? DBNull.Value;
+            started.Value = UtcText.ToText(run.StartedUtc);
+            updated.Value = UtcText.ToText(run.EndedUtc);
+            json.Value = RunJson.Serialize(run);
+            command.ExecuteNonQuery();
+        }
     }
 
     private List<RunRecord> ReadJournal(SqliteTransaction? transaction)

@@ -1,6 +1,8 @@
 using LineTest.Core.Results;
 using LineTest.Storage.Chain;
 using LineTest.Storage.Json;
+using LineTest.Storage.Locking;
+using LineTest.Storage.Proof;
 using LineTest.Storage.Store;
 using Microsoft.Data.Sqlite;
 
@@ -14,8 +16,10 @@ namespace LineTest.Storage.Sqlite;
 /// </summary>
 /// <remarks>
 /// One writer: all appends go through one connection, serialised by <see cref="_writeLock"/>. Other processes
-/// may read at any time (WAL). A second store on the same file also works: the chain's previous hash is read
-/// inside each write transaction (<c>BEGIN IMMEDIATE</c>), so two writers can never fork the chain.
+/// may read at any time (WAL), but only the process holding the folder's writer lock (<see cref="ResultsFolderLock"/>)
+/// may open a store on it. A second store in the same process also works: the chain's previous hash is read inside each
+/// write transaction (<c>BEGIN IMMEDIATE</c>), so two writers can never fork the chain. Every write replaces
+/// <c>results.head</c> before it commits (see <see cref="HeadFile"/>).
 /// </remarks>
 public sealed partial class SqliteResultStore : IResultStore
 {
@@ -25,15 +29,20 @@ public sealed partial class SqliteResultStore : IResultStore
     private readonly SqliteCommand _lastHash;
     private readonly SqliteCommand _insertRun;
     private readonly SqliteCommand _insertReading;
+    private readonly ResultsFolderLock _folderLock;
     private bool _disposed;
 
     /// <summary>How long a write waits for another program's lock by default.</summary>
     public static readonly TimeSpan DefaultLockTimeout = TimeSpan.FromSeconds(10);
 
-    private SqliteResultStore(string databasePath, SqliteConnection connection)
+    private SqliteResultStore(string databasePath, SqliteConnection connection, ResultsFolderLock folderLock, HeadRead opened)
     {
         DatabasePath = databasePath;
         _connection = connection;
+        _folderLock = folderLock;
+        _folder = Path.GetDirectoryName(databasePath)!;
+        OpenedHead = opened;
+        _head = opened.Head;
 
         _lastHash = connection.CreateCommand();
         _lastHash.CommandText = "SELECT record_sha256 FROM runs ORDER BY seq DESC LIMIT 1;";
@@ -55,8 +64,9 @@ public sealed partial class SqliteResultStore : IResultStore
     /// </summary>
     /// <param name="resultsDirectory">The results folder.</param>
     /// <param name="lockTimeout">How long a write waits for another program's lock before failing (default 10 s, at least 1 s).</param>
-    /// <exception cref="ResultStoreException">The folder or file cannot be used; the message says why.</exception>
-    public static SqliteResultStore Open(string resultsDirectory, TimeSpan? lockTimeout = null)
+    /// <param name="clock">When the folder's writer lock is taken (default: the system clock).</param>
+    /// <exception cref="ResultStoreException">The folder or file cannot be used, or another process writes to it; the message says why.</exception>
+    public static SqliteResultStore Open(string resultsDirectory, TimeSpan? lockTimeout = null, TimeProvider? clock = null)
     {
         var timeout = lockTimeout ?? DefaultLockTimeout;
         ArgumentOutOfRangeException.ThrowIfLessThan(timeout, TimeSpan.FromSeconds(1), nameof(lockTimeout));
@@ -82,6 +92,30 @@ public sealed partial class SqliteResultStore : IResultStore
             throw SqliteFailures.ReadOnly(what, path);
         }
 
+        var attempt = ResultsFolderLock.TryAcquire(directory, clock ?? TimeProvider.System);
+        if (attempt.Lock is not { } folderLock)
+        {
+            throw new ResultStoreException(ResultStoreFailure.InUse, attempt.Refusal!);
+        }
+
+        SqliteResultStore? opened = null;
+        try
+        {
+            opened = OpenLocked(path, timeout, folderLock);
+            return opened;
+        }
+        finally
+        {
+            if (opened is null)
+            {
+                folderLock.Dispose();
+            }
+        }
+    }
+
+    private static SqliteResultStore OpenLocked(string path, TimeSpan timeout, ResultsFolderLock folderLock)
+    {
+        const string what = "The results database cannot be opened";
         var connection = new SqliteConnection(ResultsDatabase.ConnectionString(path, SqliteOpenMode.ReadWriteCreate, timeout));
         try
         {
@@ -109,7 +143,7 @@ public sealed partial class SqliteResultStore : IResultStore
                     ResultStoreFailure.Incompatible, $"{what}: '{path}' cannot be used because {problem}. Move it aside or choose another results folder.");
             }
 
-            return new SqliteResultStore(path, connection);
+            return new SqliteResultStore(path, connection, folderLock, HeadFile.Read(Path.GetDirectoryName(path)!));
         }
         catch (Exception ex) when (ex is SqliteException or IOException or UnauthorizedAccessException or ResultStoreException)
         {
@@ -157,6 +191,7 @@ public sealed partial class SqliteResultStore : IResultStore
             _insertRun.Dispose();
             _insertReading.Dispose();
             _connection.Dispose();
+            _folderLock.Dispose();
         }
         finally
         {
@@ -164,9 +199,14 @@ public sealed partial class SqliteResultStore : IResultStore
         }
     }
 
-    private void Write(RunRecord run, string json)
+    private void Write(RunRecord run, string json) => InWrite(transaction =>
     {
-        using var transaction = _connection.BeginTransaction(deferred: false);
+        Insert(transaction, run, json);
+        return 1;
+    });
+
+    private void Insert(SqliteTransaction transaction, RunRecord run, string json)
+    {
         _lastHash.Transaction = transaction;
         var previous = _lastHash.ExecuteScalar() as string ?? RecordHash.Genesis;
         var record = RecordHash.Compute(json, previous);
@@ -183,6 +223,7 @@ public sealed partial class SqliteResultStore : IResultStore
         parameters[values.Length + 1].Value = record;
         parameters[values.Length + 2].Value = json;
         var seq = (long)_insertRun.ExecuteScalar()!;
+        Fault("insert-run");
 
         _insertReading.Transaction = transaction;
         var readingParameters = _insertReading.Parameters;
@@ -199,10 +240,12 @@ public sealed partial class SqliteResultStore : IResultStore
             _insertReading.ExecuteNonQuery();
         }
 
+        Fault("insert-readings");
+
         // The run leaves the journal of runs in progress in the same transaction that stores it: after a crash it
         // is either finished (in runs) or in progress (in the journal), never both and never neither.
         EndJournalEntry(transaction, values[0]!);
-        transaction.Commit();
+        Fault("delete-journal");
     }
 
     private static void CheckRequired(RunRecord run)

@@ -9,7 +9,7 @@ namespace LineTest.Storage.Sqlite;
 internal static class SqliteSchema
 {
     /// <summary>The schema version this code writes and reads.</summary>
-    public const int CurrentVersion = 2;
+    public const int CurrentVersion = 3;
 
     /// <summary>'LTR1' in ASCII: identifies a LineTest results file (SQLite file format, header offset 68).</summary>
     public const int ApplicationId = 0x4C545231;
@@ -97,6 +97,19 @@ internal static class SqliteSchema
         CREATE INDEX ix_releases_sha256 ON releases (sha256);
         """;
 
+    // Version 3 adds the revocations of the release list (a revoked file no longer runs in production). Releases,
+    // revocations and the journal are proven by results.head (see Proof/HeadFile), not by columns of their own.
+    private const string AddV3 = """
+        CREATE TABLE release_revocations (
+            seq                   INTEGER PRIMARY KEY AUTOINCREMENT,
+            sha256                TEXT    NOT NULL,
+            revoked_by            TEXT    NOT NULL,
+            revoked_utc           TEXT    NOT NULL,
+            reason                TEXT    NOT NULL
+        );
+        CREATE INDEX ix_release_revocations_sha256 ON release_revocations (sha256);
+        """;
+
     /// <summary>
     /// Creates the schema in an empty database or checks an existing one. Never drops or rewrites data.
     /// Returns a plain reason when the file cannot be used, or null.
@@ -123,6 +136,13 @@ internal static class SqliteSchema
         {
             Execute(connection, transaction, AddV2);
             Execute(connection, transaction, "PRAGMA user_version = 2;");
+            version = 2;
+        }
+
+        if (version == 2)
+        {
+            Execute(connection, transaction, AddV3);
+            Execute(connection, transaction, "PRAGMA user_version = 3;");
         }
 
         transaction.Commit();

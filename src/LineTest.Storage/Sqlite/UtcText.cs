@@ -37,6 +37,24 @@ public static class UtcText
         return DateTimeOffset.ParseExact(text, Format, CultureInfo.InvariantCulture, DateTimeStyles.AssumeUniversal | DateTimeStyles.AdjustToUniversal);
     }
 
+    /// <summary>Parses stored text back to an instant; null when it is missing or not in <see cref="Format"/>.</summary>
+    public static DateTimeOffset? TryParse(string? text)
+    {
+        if (text is null)
+        {
+            return null;
+        }
+
+        try
+        {
+            return Parse(text);
+        }
+        catch (FormatException)
+        {
+            return null;
+        }
+    }
+
     private static bool TryDigits(string text, int start, int count, out int value)
     {
         value = 0;

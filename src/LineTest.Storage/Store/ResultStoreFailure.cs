@@ -26,4 +26,7 @@ public enum ResultStoreFailure
 
     /// <summary>The disk reported an input/output error.</summary>
     DiskError,
+
+    /// <summary>Another LineTest process holds the results folder's writer lock.</summary>
+    InUse,
 }

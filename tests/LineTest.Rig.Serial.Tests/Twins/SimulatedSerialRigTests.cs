@@ -1,6 +1,7 @@
 using LineTest.Core.Results;
 using LineTest.Rig.Serial.Source;
 using LineTest.Rig.Simulation;
+using LineTest.TestSupport;
 
 namespace LineTest.Rig.Serial.Tests.Twins;
 
@@ -128,4 +129,15 @@ public sealed class SimulatedSerialRigTests
 
     private static string Trim(RunRecord run)
         => run.Trim is null ? "-" : string.Join(",", run.Trim.Values.OrderBy(p => p.Key).Select(p => $"{p.Key}={p.Value}"));
+
+    [LinuxFact]
+    public void Instruments_EveryInstrumentOfTheSimulatedRig_PassedOnOverSerial()
+    {
+        // A wrapper of the instrument set must pass every instrument on (the garbage wrapper once dropped the
+        // source-measure unit); the serial twins are such a wrapper.
+        using var h = new SerialHarness();
+
+        Assert.Empty(InstrumentSetChecks.Missing(h.Rig.Instruments));
+        Assert.Empty(InstrumentSetChecks.Dropped(h.Rig.Instruments, h.Serial.Instruments));
+    }
 }

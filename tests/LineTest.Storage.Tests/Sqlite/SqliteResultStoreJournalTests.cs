@@ -71,7 +71,7 @@ public sealed class SqliteResultStoreJournalTests
     }
 
     [Fact]
-    public async Task Open_SchemaVersionOneFile_MigratesToTwoKeepingItsRuns()
+    public async Task Open_SchemaVersionOneFile_MigratesToCurrentKeepingItsRuns()
     {
         var directory = Some.TempDirectory();
         var run = new RunRecordBuilder().Build();
@@ -86,7 +86,7 @@ public sealed class SqliteResultStoreJournalTests
         {
             connection.Open();
             using var command = connection.CreateCommand();
-            command.CommandText = "DROP TABLE runs_in_progress; DROP TABLE releases; PRAGMA user_version = 1;";
+            command.CommandText = "DROP TABLE runs_in_progress; DROP TABLE releases; DROP TABLE release_revocations; PRAGMA user_version = 1;";
             command.ExecuteNonQuery();
         }
 
@@ -98,7 +98,7 @@ public sealed class SqliteResultStoreJournalTests
 
         using var check = new SqliteConnection($"Data Source={path};Mode=ReadOnly;Pooling=False");
         check.Open();
-        Assert.Equal(2L, RawDb.Scalar(check, "PRAGMA user_version;"));
+        Assert.Equal(3L, RawDb.Scalar(check, "PRAGMA user_version;"));
         Assert.Equal(1L, RawDb.Scalar(check, "SELECT count(*) FROM runs;"));
         Assert.Equal(1L, RawDb.Scalar(check, "SELECT count(*) FROM runs_in_progress;"));
         Assert.True((await ChainVerifier.VerifyAsync(path)).IsIntact);

@@ -186,7 +186,7 @@ public sealed class SqliteResultStoreTests
         await using var connection = RawDb.Open(directory);
 
         Assert.Equal("wal", RawDb.Scalar(connection, "PRAGMA journal_mode;"));
-        Assert.Equal(2L, RawDb.Scalar(connection, "PRAGMA user_version;"));
+        Assert.Equal(3L, RawDb.Scalar(connection, "PRAGMA user_version;"));
         Assert.Equal(0x4C545231L, RawDb.Scalar(connection, "PRAGMA application_id;"));
         Assert.Equal(ResultsDatabase.PathIn(directory), store.DatabasePath);
     }

@@ -1,0 +1,52 @@
+using LineTest.Core.Decisions;
+using LineTest.Core.Sequences;
+using LineTest.Runtime.Instruments;
+using LineTest.Runtime.Judging;
+
+namespace LineTest.Runtime.Steps;
+
+/// <summary>
+/// Runs a <see cref="VerifyStep"/> for the whole batch: sample rounds of the reference and every unit's indicated
+/// temperature (its output volts through the trim's target transfer, or the °C it reports over its link), and judges
+/// the mean error (indicated − reference) against the limits with its uncertainty
+/// (<see cref="StationBudgets.IndicatedError"/>).
+/// </summary>
+internal sealed class VerifyExecutor : StepExecutor<VerifyStep>
+{
+    protected override async Task RunAsync(StepContext context, VerifyStep step, CancellationToken ct)
+    {
+        var instruments = context.Instruments;
+        var units = context.Batch.Active;
+        foreach (var unit in units)
+        {
+            unit.Machine.BeginVerify();
+            context.Notify(unit);
+        }
+
+        var overLink = step.Output == UnitOutputs.Link;
+        var (references, outputs) = await SampleRounds.TakeAsync(context, units, overLink ? UnitRead.Temperature : UnitRead.MeterVolts, step.Samples, ct)
+            .ConfigureAwait(false);
+        var target = context.Sequence.Trim?.AnalogTarget;
+        var slope = target?.SlopeVoltsPerC ?? context.Sequence.Soak.OutputVoltsPerC ?? 0.01;
+        var offset = target?.OffsetVolts ?? 0;
+        var referenceBudget = instruments.ReferenceBudget(references);
+        var now = instruments.Now;
+        foreach (var (unit, values) in outputs)
+        {
+            // Over the link the unit reports °C itself; from the meter its volts go through the target transfer.
+            var errors = new double[values.Length];
+            for (var i = 0; i < values.Length; i++)
+            {
+                errors[i] = (overLink ? values[i] : (values[i] - offset) / slope) - references[i];
+            }
+
+            var meanError = errors.Average();
+            var meanVolts = values.Average();
+            var u = StationBudgets.IndicatedError(instruments.Fixture.Meter, errors, meanVolts, slope, overLink, referenceBudget).Expand();
+            unit.Add(UnlimitedReading.Create($"{step.DisplayName}.reference", references.Average(), "degC", referenceBudget.Expand()) with
+            { Step = step.DisplayName, Setpoint = step.Setpoint, Samples = step.Samples, At = now });
+            unit.Add(ReadingFactory.Create(step.DisplayName, meanError, step.Limits, u, step.Samples, now) with
+            { Step = step.DisplayName, Setpoint = step.Setpoint });
+        }
+    }
+}

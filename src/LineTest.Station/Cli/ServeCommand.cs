@@ -1,0 +1,102 @@
+using System.CommandLine;
+using LineTest.Web.Access;
+using LineTest.Web.Data;
+using LineTest.Web.Hosting;
+using Microsoft.Extensions.Configuration;
+
+namespace LineTest.Station.Cli;
+
+/// <summary>
+/// <c>linetest serve</c>: the live read-only page for quality engineers and supervisors (line now, yield, capability,
+/// unit history) over one or more results folders. Listens on 127.0.0.1 unless told otherwise; any other address
+/// needs a credential in <c>Station:Web</c>, or the command refuses to start (exit 2).
+/// </summary>
+public static class ServeCommand
+{
+    /// <summary>Builds the command.</summary>
+    public static Command Create(CliContext context)
+    {
+        ArgumentNullException.ThrowIfNull(context);
+        var results = new Option<string[]>("--results") { Description = "Results folder with results.db, one tile per folder (repeatable; default Station:Results)" };
+        var listen = new Option<string?>("--listen") { Description = "ADDR:PORT to listen on (default Station:Web:Listen, else 127.0.0.1:5080); other than loopback needs a credential" };
+        var hashToken = new Option<bool>("--hash-token") { Description = "Read an access token from standard input and print the Station:Web:TokenSha256 value for it" };
+        var hashPassword = new Option<bool>("--hash-password") { Description = "Read a password from standard input and print the Station:Web:PasswordHash value for it" };
+        var command = new Command("serve", "Live read-only page: line now, yield, capability and unit history")
+        {
+            results, listen, hashToken, hashPassword,
+        };
+        command.SetAction(async (parse, ct) =>
+        {
+            if (parse.GetValue(hashToken) || parse.GetValue(hashPassword))
+            {
+                var secret = Console.In.ReadLine();
+                if (string.IsNullOrEmpty(secret))
+                {
+                    return context.BadInput("give the secret on standard input (one line)");
+                }
+
+                context.Output.WriteLine(parse.GetValue(hashToken) ? SecretHash.Sha256Hex(secret) : SecretHash.HashPassword(secret));
+                return ExitCodes.Done;
+            }
+
+            var options = new WebPageOptions();
+            context.Configuration.GetSection(WebPageOptions.Section).Bind(options);
+            var listenText = parse.GetValue(listen) ?? options.Listen;
+            string? listenError = null;
+            var address = listenText is null ? ListenAddress.Default : ListenAddress.Parse(listenText, out listenError);
+            if (address is null)
+            {
+                return context.BadInput((parse.GetValue(listen) is null ? "Station:Web:Listen " : "--listen ") + listenError);
+            }
+
+            var problems = options.Validate(address);
+            if (problems.Count > 0)
+            {
+                context.Error.WriteLine("linetest: serve cannot start:");
+                foreach (var problem in problems)
+                {
+                    context.Error.WriteLine($"  {problem}");
+                }
+
+                return ExitCodes.BadInput;
+            }
+
+            var given = parse.GetValue(results) ?? [];
+            var folders = (given.Length == 0 ? [Path.Combine(context.Root, context.Options.Results)] : given).Select(Path.GetFullPath).ToList();
+            foreach (var folder in folders.Where(f => !Directory.Exists(f)))
+            {
+                return context.BadInput($"the results folder '{folder}' does not exist");
+            }
+
+            var setup = new WebPageSetup(address, options, new SqliteFolderSource(folders)) { Time = context.Clock, Loggers = context.Loggers };
+            await using var app = WebPageApp.Create(setup);
+            try
+            {
+                await app.StartAsync(ct).ConfigureAwait(false);
+            }
+            catch (IOException ex)
+            {
+                context.Error.WriteLine($"linetest: serve cannot listen on {address}: {ex.Message}");
+                return ExitCodes.RuntimeFailure;
+            }
+
+            foreach (var url in WebPageApp.Addresses(app))
+            {
+                context.Output.WriteLine($"Live page on {url} (read-only), reading {setup.Source.Description}. Ctrl+C stops it.");
+            }
+
+            try
+            {
+                await Task.Delay(Timeout.Infinite, ct).ConfigureAwait(false);
+            }
+            catch (OperationCanceledException)
+            {
+                // Ctrl+C.
+            }
+
+            await app.StopAsync(CancellationToken.None).ConfigureAwait(false);
+            return ExitCodes.Done;
+        });
+        return command;
+    }
+}

@@ -1,0 +1,12 @@
+using LineTest.Reports.Loading;
+using LineTest.Storage.Sqlite;
+
+namespace LineTest.Web.Data;
+
+/// <summary>One station's recent runs for a tile of the line page.</summary>
+/// <param name="Name">Station id (from its runs) or, before the first run, the folder's name.</param>
+/// <param name="Where">Where the runs are read from (a results folder).</param>
+/// <param name="Runs">The recent runs; empty when there are none or they could not be read.</param>
+/// <param name="Live">Last seq and runs in progress; null when the station has stored nothing yet or could not be read.</param>
+/// <param name="Problem">Why the station could not be read, or null.</param>
+public sealed record StationRuns(string Name, string Where, RunTable Runs, LiveState? Live, string? Problem);
