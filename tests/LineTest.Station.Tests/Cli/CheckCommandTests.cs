@@ -26,7 +26,7 @@ public sealed class CheckCommandTests
 
         Assert.Equal(2, exit);
         Assert.Contains($"{path}:25: $.setpoints[1].celsius: 140 °C is outside the safe range", error, StringComparison.Ordinal);
-        Assert.Contains($"{path}:38: $.steps[1].limits.unit: unknown unit of measure 'mAmp'", error, StringComparison.Ordinal);
+        Assert.Contains($"{path}:48: $.steps[1].limits.unit: unknown unit of measure 'mAmp'", error, StringComparison.Ordinal);
     }
 
     [Fact]

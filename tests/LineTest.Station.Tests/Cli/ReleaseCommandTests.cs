@@ -42,7 +42,7 @@ public sealed class ReleaseCommandTests
         var (exit, _, error) = await CliRunner.RunAsync("demo", "--units", "2", "--results", results, "--production", "--sequence", changed);
 
         Assert.Equal(2, exit);
-        Assert.Contains($"differs from the released ctp40a-dac r1: released {Sha256Of(released)}, file {Sha256Of(changed)}", error, StringComparison.Ordinal);
+        Assert.Contains($"differs from the released ctp40a-dac r2: released {Sha256Of(released)}, file {Sha256Of(changed)}", error, StringComparison.Ordinal);
         using var connection = new SqliteConnection($"Data Source={Path.Combine(results, "results.db")};Mode=ReadOnly;Pooling=False");
         connection.Open();
         using var command = connection.CreateCommand();
