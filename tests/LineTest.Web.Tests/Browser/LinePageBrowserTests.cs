@@ -5,6 +5,7 @@ using LineTest.TestSupport;
 using LineTest.Web.Access;
 using LineTest.Web.Data;
 using LineTest.Web.Hosting;
+using LineTest.Web.Tests.Support;
 using Microsoft.Extensions.Logging.Abstractions;
 using OpenQA.Selenium;
 using OpenQA.Selenium.Chrome;
@@ -29,11 +30,18 @@ public sealed class LinePageBrowserTests(ITestOutputHelper output)
         var shots = Path.Combine(Path.GetTempPath(), "linetest-browser-shots");
         Directory.CreateDirectory(shots);
 
-        // One 24-hour shift that starts this hour: the simulator's clock runs ahead of the wall clock, and its runs
-        // must land in the shift the tile shows.
-        var now = TimeProvider.System.GetUtcNow();
-        var options = new WebPageOptions { ShiftStartsUtc = [now.ToString("HH:00", CultureInfo.InvariantCulture)], RefreshSeconds = 0.25 };
-        var setup = new WebPageSetup(ListenAddress.Parse("127.0.0.1:0", out _)!, options, new SqliteFolderSource([results])) { Loggers = NullLoggerFactory.Instance };
+        // A demo lays its shift out in the past (an empty folder's first shift starts at 06:00 UTC a week back, so that
+        // no run is stored in the future): the page's clock is moved to that day's afternoon, with one 24-hour shift
+        // from 06:00, so the demo's runs land in the shift the tile shows while the page's timers run in real time.
+        var wallNow = TimeProvider.System.GetUtcNow();
+        var demoStart = new DateTimeOffset((wallNow - TimeSpan.FromDays(7)).UtcDateTime.Date.AddHours(6), TimeSpan.Zero);
+        var pageClock = new ShiftedClock(demoStart + TimeSpan.FromHours(10) - wallNow);
+        var options = new WebPageOptions { ShiftStartsUtc = ["06:00"], RefreshSeconds = 0.25 };
+        var setup = new WebPageSetup(ListenAddress.Parse("127.0.0.1:0", out _)!, options, new SqliteFolderSource([results]))
+        {
+            Loggers = NullLoggerFactory.Instance,
+            Time = pageClock,
+        };
         await using var app = WebPageApp.Create(setup);
         await app.StartAsync();
         var url = WebPageApp.Addresses(app).Single();
