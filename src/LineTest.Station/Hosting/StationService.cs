@@ -141,6 +141,14 @@ public sealed partial class StationService : BackgroundService
             ExpectedStepSeconds(sequence, fixture),
             rig.Clock) { Words = new StepWords(sequence) };
         var interactive = ReferenceEquals(_context.Input, Console.In) && !Console.IsInputRedirected && !Console.IsOutputRedirected;
+        if (interactive)
+        {
+            // The live screen owns the terminal from the start: events of start-up and recovery (source to standby,
+            // interrupted runs) go to the log file, warnings to the screen, so no log line sits above the screen.
+            _context.Logging.ConsoleOpen = false;
+            _context.Logging.ScreenMessage = text => model.Notice(text);
+        }
+
         using var input = interactive ? OperatorInput.FromConsoleKeys() : OperatorInput.FromLines(_context.Input);
         var talk = new StationTalk(model, interactive ? null : _context.Output);
         using var serialScanner = fixture.Scanner is { Kind: "serial", Port: { } scannerPort }
