@@ -1,5 +1,6 @@
 using LineTest.Core.Definitions;
 using LineTest.Core.Sequences;
+using LineTest.Core.Tests.TestData;
 
 namespace LineTest.Core.Tests.Sequences;
 
@@ -77,6 +78,49 @@ public sealed class SettleRulesTests
         SettleRules.Check(Sequence with { Settle = new SettleSettings { Mode = SettleModes.Predictive, MaxExtrapolationUncertaintyC = u } }, problems);
 
         Assert.Equal([path], problems.Items.Select(p => p.Path));
+    }
+
+    // Edits of the base test sequence: what to find, what to put there, the text on the line the problem must name,
+    // the JSON path and the reason.
+    public static TheoryData<string, string, string, string, string> BadFiles => new()
+    {
+        { "{ \"name\": \"cal-high\", \"celsius\": 40 }", "{ \"name\": \"cal-high\", \"celsius\": 40, \"settle\": { \"mode\": \"predictve\" } }",
+            "predictve", "$.setpoints[1].settle.mode", "'predictve' is not a settle mode: use \"window\" or \"predictive\"" },
+        { "\"revision\": 1,", "\"revision\": 1, \"settle\": { \"mode\": \"predictive\" },", "\"revision\"",
+            "$.settle.maxExtrapolationUncertaintyC", "predictive mode needs the largest extrapolation uncertainty it may accept" },
+        { "\"revision\": 1,", "\"revision\": 1, \"settle\": { \"mode\": \"predictive\", \"maxExtrapolationUncertaintyC\": 0.2 },", "\"revision\"",
+            "$.settle.maxExtrapolationUncertaintyC", "0.2 °C is not smaller than the stability band (0.05 °C)" },
+        { "\"revision\": 1,", "\"revision\": 1, \"settle\": { \"mode\": \"window\", \"maxExtrapolationUncertainty\": 0.01 },", "\"revision\"",
+            "$.settle.maxExtrapolationUncertainty", "unknown property 'maxExtrapolationUncertainty'" },
+    };
+
+    [Theory]
+    [MemberData(nameof(BadFiles))]
+    public void Load_BadSettleSettings_ReportsLinePathAndReason(string find, string replace, string lineMarker, string path, string reason)
+    {
+        var text = TestFiles.Edit(TestFiles.SequenceBase, find, replace);
+
+        var result = SequenceLoader.Load("bad.json", TestFiles.Utf8(text));
+
+        Assert.False(result.IsSuccess);
+        var problem = Assert.Single(result.Problems);
+        Assert.Equal(path, problem.JsonPath);
+        Assert.Equal(TestFiles.LineOf(text, lineMarker), problem.Line);
+        Assert.Contains(reason, problem.Reason, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Load_SettleKeysAsTheIssueSpellsThem_AreReadPerSequenceAndPerSetpoint()
+    {
+        var text = TestFiles.Edit(TestFiles.SequenceBase, "\"revision\": 1,", "\"revision\": 1, \"settle\": { \"mode\": \"predictive\", \"maxExtrapolationUncertaintyC\": 0.01 },");
+        text = TestFiles.Edit(text, "{ \"name\": \"verify\", \"celsius\": 5 }", "{ \"name\": \"verify\", \"celsius\": 5, \"settle\": { \"mode\": \"window\" } }");
+
+        var result = SequenceLoader.Load("good.json", TestFiles.Utf8(text));
+
+        Assert.True(result.IsSuccess, string.Join("; ", result.Problems.Select(p => $"{p.JsonPath}: {p.Reason}")));
+        Assert.Equal(SettleModes.Predictive, SettleSettings.For(result.Value!, "cal-low").Mode);
+        Assert.Equal(0.01, SettleSettings.For(result.Value!, "cal-low").MaxExtrapolationUncertaintyC);
+        Assert.Equal(SettleModes.Window, SettleSettings.For(result.Value!, "verify").Mode);
     }
 
     [Fact]
