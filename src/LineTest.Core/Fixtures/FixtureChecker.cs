@@ -184,6 +184,8 @@ public static class FixtureChecker
     private static void CheckPorts(FixtureDefinition fixture, ProblemList problems)
     {
         CheckPort(fixture.Source.Port, "$.source.port", problems);
+        problems.AddIf(fixture.Source.WellUniformityC is { } uniformity && !(uniformity >= 0 && double.IsFinite(uniformity)), "$.source.wellUniformityC",
+            "the well uniformity must be zero or a positive number of degC");
         CheckPort(fixture.Reference.Port, "$.reference.port", problems);
         CheckPort(fixture.Meter.Port, "$.meter.port", problems);
         CheckPort(fixture.SourceMeter?.Port, "$.sourceMeter.port", problems);

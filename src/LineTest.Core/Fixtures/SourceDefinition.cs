@@ -24,6 +24,12 @@ public sealed record SourceDefinition
     /// <summary>Time constant of the first-order approach to the setpoint once the ramp ends, seconds.</summary>
     public required double SettlingTimeConstantSeconds { get; init; }
 
+    /// <summary>
+    /// Largest difference between any slot's well and the reference well at a setpoint, °C (half-width of a rectangular
+    /// distribution, from the source's calibration), or null when not stated. Enters the error budget over the rated range.
+    /// </summary>
+    public double? WellUniformityC { get; init; }
+
     /// <summary>Serial connection for a real source (ignored by the simulator).</summary>
     public PortDefinition? Port { get; init; }
 }

@@ -52,6 +52,12 @@ public sealed record SequenceDefinition
     public TrimDefinition? Trim { get; init; }
 
     /// <summary>
+    /// The product's rated temperature range, over which each trimmed unit's error is predicted (and judged where limits
+    /// are given); null when the sequence states none.
+    /// </summary>
+    public RatedRangeDefinition? RatedRange { get; init; }
+
+    /// <summary>
     /// The sensor's nominal bias current in the product, amperes: where I–V sweeps report the forward voltage and its
     /// temperature coefficient (a step's own <c>nominalBiasAmps</c> overrides it).
     /// </summary>

@@ -7,13 +7,16 @@ namespace LineTest.Core.Sequences;
 /// </summary>
 public sealed record SettleSettings
 {
-    /// <summary><c>window</c> (the default) or <c>predictive</c>, see <see cref="SettleModes"/>.</summary>
+    /// <summary>
+    /// <c>window</c> (the default) or <c>predictive</c>, see <see cref="SettleModes"/>. The station's settle wait does not
+    /// act on <c>predictive</c> yet: it is checked and stored, and the station still settles as in window mode.
+    /// </summary>
     public string Mode { get; init; } = SettleModes.Window;
 
     /// <summary>
     /// Predictive mode: the largest standard uncertainty of the extrapolated final value, °C, at which the reading may
-    /// be taken. Required in predictive mode and smaller than the stability band. The extrapolation's uncertainty
-    /// enters the reading's uncertainty budget as its own component, so the guard band widens with it.
+    /// be taken. Required in predictive mode and smaller than the stability band. Meant to enter the reading's
+    /// uncertainty budget as its own component (widening the guard band) once the station acts on predictive mode.
     /// </summary>
     public double? MaxExtrapolationUncertaintyC { get; init; }
 

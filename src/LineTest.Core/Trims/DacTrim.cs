@@ -31,6 +31,10 @@ public static class DacTrim
     /// <param name="gainCodeAtCalibration">g0, the gain code in the unit while it was measured.</param>
     /// <param name="offsetCodeAtCalibration">o0, the offset code in the unit while it was measured.</param>
     /// <param name="checkpoints">Extra temperatures (e.g. the verify setpoint) to predict the error at.</param>
+    /// <param name="line">
+    /// The line of the unit's output the trim maps onto the target, and its modelled output at the checkpoints; null for
+    /// the least-squares line through the points (the <c>through-points</c> fit).
+    /// </param>
     /// <returns>
     /// A result (which may be out of range, with reasons), or a failure when no trim can be computed:
     /// bad spec, too few or degenerate points, or a fitted slope of the wrong sign.
@@ -40,7 +44,8 @@ public static class DacTrim
         IReadOnlyList<CalibrationPoint> points,
         long gainCodeAtCalibration,
         long offsetCodeAtCalibration,
-        IReadOnlyList<TrimCheckpoint>? checkpoints = null)
+        IReadOnlyList<TrimCheckpoint>? checkpoints = null,
+        TrimLine? line = null)
     {
         ArgumentNullException.ThrowIfNull(spec);
         ArgumentNullException.ThrowIfNull(points);
@@ -58,8 +63,8 @@ public static class DacTrim
             return CalculationResult<DacTrimResult>.Failure(fitResult.Reason!);
         }
 
-        var a = fit.Intercept;
-        var b = fit.Slope;
+        var a = line?.Intercept ?? fit.Intercept;
+        var b = line?.Slope ?? fit.Slope;
         var s = spec.Target.SlopeVoltsPerC;
         var v0 = spec.Target.OffsetVolts;
 
@@ -124,7 +129,7 @@ public static class DacTrim
 
         foreach (var checkpoint in checkpoints)
         {
-            var trimmed = (ratio * (fit.Evaluate(checkpoint.TemperatureC) - offsetAtCalibration)) + offsetVolts;
+            var trimmed = (ratio * ((line?.OutputAt(checkpoint.TemperatureC) ?? fit.Evaluate(checkpoint.TemperatureC)) - offsetAtCalibration)) + offsetVolts;
             errors.Add(new PredictedError(checkpoint.Name, checkpoint.TemperatureC, ErrorC(trimmed, checkpoint.TemperatureC)));
         }
 

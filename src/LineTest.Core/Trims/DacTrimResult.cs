@@ -56,6 +56,10 @@ public sealed record DacTrimResult : ITrimResult
     ];
 
     /// <inheritdoc />
+    public double IndicatedC(double outputAtCalibration) =>
+        Spec.Target.IndicatedC((GainRatio * (outputAtCalibration - DacTrim.OffsetVolts(Spec.Offset, OffsetCodeAtCalibration))) + OffsetVolts);
+
+    /// <inheritdoc/>
     public TrimRecord ToRecord()
     {
         var inputs = new Dictionary<string, double>(StringComparer.Ordinal)

@@ -21,10 +21,16 @@ public static class FirmwareTrim
     /// <param name="spec">The firmware trim parameters from the sequence.</param>
     /// <param name="points">Calibration points; <see cref="CalibrationPoint.Output"/> is the raw reading in counts.</param>
     /// <param name="checkpoints">Extra temperatures (e.g. the verify setpoint) to predict the error at.</param>
+    /// <param name="fitPoints">
+    /// The points the coefficients are fitted to, when not the calibration points themselves: samples over the rated
+    /// range of a sensor curve through the calibration points (<see cref="SensorCurve.Samples"/>), so that the
+    /// polynomial follows the diode's curvature. The predicted errors at the calibration points still use the measured raw readings.
+    /// </param>
     public static CalculationResult<FirmwareTrimResult> Compute(
         FirmwareTrimSpec spec,
         IReadOnlyList<CalibrationPoint> points,
-        IReadOnlyList<TrimCheckpoint>? checkpoints = null)
+        IReadOnlyList<TrimCheckpoint>? checkpoints = null,
+        IReadOnlyList<CalibrationPoint>? fitPoints = null)
     {
         ArgumentNullException.ThrowIfNull(spec);
         ArgumentNullException.ThrowIfNull(points);
@@ -36,7 +42,7 @@ public static class FirmwareTrim
             return CalculationResult<FirmwareTrimResult>.Failure("firmware trim spec: " + string.Join("; ", specProblems));
         }
 
-        var fitResult = CalibrationFit.TemperatureVersusOutput(points, (FitOrder)spec.Order);
+        var fitResult = CalibrationFit.TemperatureVersusOutput(fitPoints ?? points, (FitOrder)spec.Order);
         if (!fitResult.TryGetValue(out var fit))
         {
             return CalculationResult<FirmwareTrimResult>.Failure(fitResult.Reason!);
@@ -74,8 +80,8 @@ public static class FirmwareTrim
             });
         }
 
-        var rawMin = points.Min(p => p.Output);
-        var rawMax = points.Max(p => p.Output);
+        var rawMin = (fitPoints ?? points).Min(p => p.Output);
+        var rawMax = (fitPoints ?? points).Max(p => p.Output);
         foreach (var checkpoint in checkpoints)
         {
             if (RawFor(fit, checkpoint.TemperatureC, (rawMin + rawMax) / 2) is { } raw)

@@ -21,6 +21,12 @@ public interface ITrimResult
     /// <summary>The predicted remaining error at each calibration setpoint and each extra checkpoint.</summary>
     IReadOnlyList<PredictedError> PredictedErrors { get; }
 
+    /// <summary>
+    /// The temperature the trimmed unit indicates, °C, where its output at calibration (before the trim: volts or raw
+    /// counts) was <paramref name="outputAtCalibration"/>; with the rounded codes, chosen parts or quantised coefficients.
+    /// </summary>
+    double IndicatedC(double outputAtCalibration);
+
     /// <summary>The record stored with the run.</summary>
     TrimRecord ToRecord();
 }

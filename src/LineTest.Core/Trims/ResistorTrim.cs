@@ -24,10 +24,15 @@ public static class ResistorTrim
     /// <param name="spec">The resistor trim parameters from the sequence.</param>
     /// <param name="points">Calibration points, output in volts, measured with the spec's fitted parts.</param>
     /// <param name="checkpoints">Extra temperatures (e.g. the verify setpoint) to predict the error at.</param>
+    /// <param name="line">
+    /// The line of the unit's output the trim maps onto the target, and its modelled output at the checkpoints; null for
+    /// the least-squares line through the points (the <c>through-points</c> fit).
+    /// </param>
     public static CalculationResult<ResistorTrimResult> Compute(
         ResistorTrimSpec spec,
         IReadOnlyList<CalibrationPoint> points,
-        IReadOnlyList<TrimCheckpoint>? checkpoints = null)
+        IReadOnlyList<TrimCheckpoint>? checkpoints = null,
+        TrimLine? line = null)
     {
         ArgumentNullException.ThrowIfNull(spec);
         ArgumentNullException.ThrowIfNull(points);
@@ -50,8 +55,8 @@ public static class ResistorTrim
             return CalculationResult<ResistorTrimResult>.Failure(fitResult.Reason!);
         }
 
-        var a = fit.Intercept;
-        var b = fit.Slope;
+        var a = line?.Intercept ?? fit.Intercept;
+        var b = line?.Slope ?? fit.Slope;
         var s = spec.Target.SlopeVoltsPerC;
         var v0 = spec.Target.OffsetVolts;
         if (!(b * s > 0.0) || Math.Abs(b) <= 1e-9 * Math.Abs(s))
@@ -110,7 +115,7 @@ public static class ResistorTrim
 
         foreach (var checkpoint in checkpoints)
         {
-            errors.Add(Predict(checkpoint.Name, checkpoint.TemperatureC, fit.Evaluate(checkpoint.TemperatureC), atCalibration: false));
+            errors.Add(Predict(checkpoint.Name, checkpoint.TemperatureC, line?.OutputAt(checkpoint.TemperatureC) ?? fit.Evaluate(checkpoint.TemperatureC), atCalibration: false));
         }
 
         return CalculationResult<ResistorTrimResult>.Success(new ResistorTrimResult

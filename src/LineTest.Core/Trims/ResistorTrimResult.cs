@@ -45,6 +45,11 @@ public sealed record ResistorTrimResult : ITrimResult
     /// <summary>What the operator must fit, one line per position; empty when the trim is not in range.</summary>
     public IReadOnlyList<string> Instructions => InRange ? [Gain.Instruction, Offset.Instruction] : [];
 
+    /// <inheritdoc />
+    public double IndicatedC(double outputAtCalibration) => Spec.Target.IndicatedC(
+        (Spec.Gain.GainWith(Gain.EffectiveOhms) / GainAtCalibration * (outputAtCalibration - OffsetVoltsAtCalibration))
+        + Spec.Offset.OffsetVoltsWith(Offset.EffectiveOhms));
+
     /// <summary>
     /// The record stored with the run. Values: each position's effective ohms under its name (<c>R7</c>) and,
     /// for a pair, the parts as <c>R7.1</c>, <c>R7.2</c>. Predicted errors: the nominal error under the

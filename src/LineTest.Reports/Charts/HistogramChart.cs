@@ -78,7 +78,18 @@ public static class HistogramChart
         if (below + above > 0)
         {
             var edge = plot.Add.Marker(from, 0, MarkerShape.None);
-            edge.LegendText = $"{below} below {NumberText.Value(from)} and {above} above {NumberText.Value(to)} counted in the end bars";
+            var parts = new List<string>(2);
+            if (below > 0)
+            {
+                parts.Add($"{below} below {NumberText.Value(from)}");
+            }
+
+            if (above > 0)
+            {
+                parts.Add($"{above} above {NumberText.Value(to)}");
+            }
+
+            edge.LegendText = $"{string.Join(" and ", parts)} counted in the end bar{(parts.Count > 1 ? "s" : string.Empty)}";
         }
 
         // The axis spans the bins and the limits, so a capable process shows its distance to the limits.

@@ -3,8 +3,8 @@ namespace LineTest.Rig.Simulation;
 /// <summary>
 /// A silicon junction diode driven at constant forward current, by the Shockley equation with series resistance:
 /// <c>V = n·V_T·ln(I/I_s(T) + 1) + I·R_s</c>, <c>V_T = kT/q</c>, and the usual temperature law of the saturation current
-/// <c>I_s(T) = I_s(T0)·(T/T0)^(3/n)·exp(−(E_g/(n·V_T))·(1 − T/T0))</c>. The forward-voltage slope of about −2 mV/°C is
-/// not put in: it follows from these equations.
+/// <c>I_s(T) = I_s(T0)·(T/T0)^XTI·exp(−(E_g/(n·V_T))·(1 − T/T0))</c>, i.e. I_s ∝ T^XTI·exp(−E_g/(n·k·T)). The
+/// forward-voltage slope of about −2 mV/°C and its slight curvature are not put in: they follow from these equations.
 /// </summary>
 /// <param name="SaturationCurrentAtT0Amps">I_s at <see cref="ReferenceKelvin"/>, amperes.</param>
 /// <param name="Ideality">Emission coefficient n (1 for an ideal junction).</param>
@@ -29,6 +29,12 @@ public sealed record SiliconDiode(double SaturationCurrentAtT0Amps, double Ideal
     /// <summary>Saturation-current temperature exponent XTI for a junction diode.</summary>
     public const double SaturationCurrentTemperatureExponent = 3.0;
 
+    /// <summary>This part's saturation-current temperature exponent XTI (<see cref="SaturationCurrentTemperatureExponent"/> by default).</summary>
+    public double Xti { get; init; } = SaturationCurrentTemperatureExponent;
+
+    /// <summary>This part's band-gap energy in the saturation-current law, eV (<see cref="SiliconBandGapElectronVolts"/> by default).</summary>
+    public double BandGapElectronVolts { get; init; } = SiliconBandGapElectronVolts;
+
     /// <summary>
     /// Resistance of a leakage path across the junction, Ω (a leaky junction: surface leakage or a damaged die), or null
     /// for none. Part of the current then bypasses the junction, which pulls the forward voltage down most at low current.
@@ -45,8 +51,8 @@ public sealed record SiliconDiode(double SaturationCurrentAtT0Amps, double Ideal
         var nVt = Ideality * ThermalVolts(kelvin);
         var ratio = kelvin / ReferenceKelvin;
         return SaturationCurrentAtT0Amps
-            * Math.Pow(ratio, SaturationCurrentTemperatureExponent / Ideality)
-            * Math.Exp(-(SiliconBandGapElectronVolts / nVt) * (1 - ratio));
+            * Math.Pow(ratio, Xti)
+            * Math.Exp(-(BandGapElectronVolts / nVt) * (1 - ratio));
     }
 
     /// <summary>Forward voltage at <paramref name="celsius"/> when driven with <paramref name="currentAmps"/>, volts.</summary>

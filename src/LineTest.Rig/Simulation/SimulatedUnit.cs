@@ -105,7 +105,7 @@ public sealed class SimulatedUnit
 
         var gain = Parameters.DesignGain * (1 + (Parameters.GainStepPerCode * (gainCode - Design.CodeNominal)));
         var offset = Parameters.OffsetStepVolts * (offsetCode - Design.CodeNominal);
-        var forward = Parameters.Diode.ForwardVolts(sensorC, Design.BiasCurrentAmps);
+        var forward = SensedVolts(sensorC);
         var output = (gain * (Design.ReferenceVolts - forward + Parameters.InputOffsetVolts)) + offset;
         return Math.Clamp(output, Design.OutputMinVolts, Design.OutputMaxVolts);
     }
@@ -151,7 +151,7 @@ public sealed class SimulatedUnit
             return Design.AdcFullScaleCounts;
         }
 
-        var counts = Parameters.Diode.ForwardVolts(sensorC, Design.BiasCurrentAmps) / Parameters.AdcReferenceVolts * (1L << Design.AdcBits);
+        var counts = SensedVolts(sensorC) / Parameters.AdcReferenceVolts * (1L << Design.AdcBits);
         return Math.Clamp(counts, 0, Design.AdcFullScaleCounts);
     }
 
@@ -206,9 +206,36 @@ public sealed class SimulatedUnit
         var ro = _fittedOhms[Design.OffsetPosition];
         var gain = rg is { } g ? 1.0 + (Design.GainFeedbackOhms / g) : 1.0;
         var offset = ro is { } o ? Design.OffsetNetworkReferenceVolts * Design.OffsetFeedbackOhms / o : 0.0;
-        var forward = Parameters.Diode.ForwardVolts(sensorC, Design.BiasCurrentAmps);
+        var forward = SensedVolts(sensorC);
         var u = Parameters.DesignGain * (Design.ReferenceVolts - forward + Parameters.InputOffsetVolts);
         return Math.Clamp((gain * u) + offset, Design.OutputMinVolts, Design.OutputMaxVolts);
+    }
+
+    /// <summary>
+    /// The diode voltage as the stage after it sees it, volts: V_f at the bias current plus the stage's small quadratic
+    /// non-linearity β·(V_f − v_c)².
+    /// </summary>
+    public double SensedVolts(double sensorC)
+    {
+        var forward = Parameters.Diode.ForwardVolts(sensorC, Design.BiasCurrentAmps);
+        var d = forward - Design.NonLinearityCentreVolts;
+        return forward + (Parameters.NonLinearityPerVolt * d * d);
+    }
+
+    /// <summary>
+    /// The unit's true error as shipped at each of <paramref name="temperaturesC"/> (sensor settled there, noise-free), °C:
+    /// what a digital unit reports minus the temperature, or for an analog unit the temperature <paramref name="target"/>
+    /// indicates for its output minus the temperature. Ground truth for campaigns and benchmarks.
+    /// </summary>
+    public double[] TrueErrorsC(IReadOnlyList<double> temperaturesC, LinearTransfer? target)
+    {
+        ArgumentNullException.ThrowIfNull(temperaturesC);
+        if (Design.Kind != SimulatedUnitKind.FirmwareTrimmed && target is null)
+        {
+            throw new ArgumentNullException(nameof(target), "An analog unit's error needs the target transfer function.");
+        }
+
+        return temperaturesC.Select(t => Design.Kind == SimulatedUnitKind.FirmwareTrimmed ? TrueReportedErrorC(t) : TrueErrorC(target!, t)).ToArray();
     }
 
     /// <summary>Whether the unit as shipped is within ±<paramref name="limitC"/> of the target at every one of <paramref name="temperaturesC"/>.</summary>

@@ -123,6 +123,27 @@ public sealed record SimulatedUnitDesign
     /// <summary>Spread (1σ) of ln(I_s): the saturation current is log-normal between parts.</summary>
     public double SaturationCurrentLogSpread { get; init; } = 0.3;
 
+    /// <summary>Typical saturation-current temperature exponent XTI of the diode.</summary>
+    public double XtiNominal { get; init; } = SiliconDiode.SaturationCurrentTemperatureExponent;
+
+    /// <summary>Spread (1σ) of XTI between parts; draws kept within ±2σ.</summary>
+    public double XtiSpread { get; init; } = 0.1;
+
+    /// <summary>Typical band-gap energy of the diode's saturation-current law, eV.</summary>
+    public double BandGapNominalElectronVolts { get; init; } = SiliconDiode.SiliconBandGapElectronVolts;
+
+    /// <summary>Spread (1σ) of that band gap between parts, eV; draws kept within ±2σ.</summary>
+    public double BandGapSpreadElectronVolts { get; init; } = 0.005;
+
+    /// <summary>
+    /// Spread (1σ) of the quadratic non-linearity β of the stage that reads the diode, 1/V (mean 0; draws kept within
+    /// ±2σ): about ±0.015 mV of bow over the CTP-40's rated range at 1σ.
+    /// </summary>
+    public double NonLinearitySpreadPerVolt { get; init; } = 0.004;
+
+    /// <summary>The diode voltage about which the non-linearity is centred, volts (the typical V_f near +15 °C).</summary>
+    public double NonLinearityCentreVolts { get; init; } = 0.62;
+
     /// <summary>Typical diode series resistance, Ω.</summary>
     public double SeriesResistanceOhms { get; init; } = 20;
 

@@ -151,8 +151,26 @@ public sealed class SimulatedUnitFactory
             };
         }
 
-        parameters = parameters with { Diode = SensorWithDefect(parameters.Diode, defect, part) };
+        // The diode's temperature law and the read-out's non-linearity are drawn after everything else too, for the same reason.
+        var xti = part.NextTruncatedNormal(d.XtiNominal, d.XtiSpread, d.XtiNominal - (2 * d.XtiSpread), d.XtiNominal + (2 * d.XtiSpread));
+        var bandGap = part.NextTruncatedNormal(
+            d.BandGapNominalElectronVolts, d.BandGapSpreadElectronVolts, d.BandGapNominalElectronVolts - (2 * d.BandGapSpreadElectronVolts), d.BandGapNominalElectronVolts + (2 * d.BandGapSpreadElectronVolts));
+        var beta = part.NextTruncatedNormal(0, d.NonLinearitySpreadPerVolt, -2 * d.NonLinearitySpreadPerVolt, 2 * d.NonLinearitySpreadPerVolt);
+        var withLaw = DiodeWithLaw(parameters.Diode, xti, bandGap);
+        parameters = parameters with { Diode = SensorWithDefect(withLaw, defect, part), NonLinearityPerVolt = beta };
         return new SimulatedUnit(serial, d, parameters, defect, _simulation.UnitOutputNoiseVolts, noiseSeed);
+    }
+
+    /// <summary>
+    /// The diode with its own XTI and band gap, its saturation current at T0 rescaled so that its saturation current (so
+    /// its forward voltage) at 25 °C stays what the draw gave: the spread of V_f is the design's, only the curve's shape changes.
+    /// </summary>
+    private static SiliconDiode DiodeWithLaw(SiliconDiode diode, double xti, double bandGap)
+    {
+        const double at25Kelvin = 25.0 + SiliconDiode.ZeroCelsiusKelvin;
+        var shaped = diode with { Xti = xti, BandGapElectronVolts = bandGap };
+        var scale = diode.SaturationCurrentAmps(at25Kelvin) / shaped.SaturationCurrentAmps(at25Kelvin);
+        return shaped with { SaturationCurrentAtT0Amps = diode.SaturationCurrentAtT0Amps * scale };
     }
 
     /// <summary>The part's diode as a sensor defect leaves it (unchanged for other defects).</summary>

@@ -19,4 +19,11 @@ public sealed record SimulatedUnitParameters(
     double LagTimeConstantSeconds,
     double SupplyCurrentAmps,
     double OpenRailVolts,
-    double AdcReferenceVolts);
+    double AdcReferenceVolts)
+{
+    /// <summary>
+    /// Quadratic non-linearity β of the stage that reads the diode (amplifier input or ADC buffer), 1/V: it sees
+    /// <c>v + β·(v − v_c)²</c> for a diode voltage v (<see cref="SimulatedUnitDesign.NonLinearityCentreVolts"/> is v_c).
+    /// </summary>
+    public double NonLinearityPerVolt { get; init; }
+}

@@ -24,7 +24,9 @@ internal static class DacTrimExecutor
             .ToList();
         var name = step.DisplayName;
         var now = instruments.Now;
-        var result = DacTrim.Compute(spec, points, unit.Registers[spec.Gain.Register], unit.Registers[spec.Offset.Register], checkpoints);
+        var curve = TrimInputs.Curve(sequence, points, unit);
+        var result = DacTrim.Compute(spec, points, unit.Registers[spec.Gain.Register], unit.Registers[spec.Offset.Register], checkpoints,
+            TrimAccuracy.Line(sequence, curve, points));
         if (!result.TryGetValue(out var trim))
         {
             unit.Add(new Reading($"{name}.computed", null, "1", null, null, Verdict.Fail)
@@ -46,6 +48,8 @@ internal static class DacTrimExecutor
         {
             unit.Add(UnlimitedReading.Create($"{name}.predicted.{predicted.Name}", predicted.ErrorC, "degC") with { Step = name, At = now });
         }
+
+        TrimInputs.AddBudget(sequence, step, unit, trim, curve, instruments.Fixture, now);
 
         if (!trim.InRange)
         {

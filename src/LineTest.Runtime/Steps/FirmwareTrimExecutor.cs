@@ -1,3 +1,4 @@
+using LineTest.Core.Calibration;
 using LineTest.Core.Results;
 using LineTest.Core.Sequences;
 using LineTest.Core.Trims;
@@ -19,7 +20,9 @@ internal static class FirmwareTrimExecutor
         var spec = sequence.Trim?.Firmware ?? throw new InvalidOperationException("Checked sequences with method 'firmware' have a firmware trim.");
         var name = step.DisplayName;
         var now = instruments.Now;
-        var result = FirmwareTrim.Compute(spec, TrimInputs.Points(step, unit), TrimInputs.ExtraCheckpoints(sequence, step));
+        var points = TrimInputs.Points(step, unit);
+        var curve = TrimInputs.Curve(sequence, points, unit);
+        var result = FirmwareTrim.Compute(spec, points, TrimInputs.ExtraCheckpoints(sequence, step), TrimAccuracy.FirmwareFitPoints(sequence, curve));
         if (!result.TryGetValue(out var trim))
         {
             unit.Add(new Reading($"{name}.computed", null, "1", null, null, Verdict.Fail)
@@ -47,6 +50,8 @@ internal static class FirmwareTrimExecutor
         {
             unit.Add(UnlimitedReading.Create($"{name}.predicted.{predicted.Name}", predicted.ErrorC, "degC") with { Step = name, At = now });
         }
+
+        TrimInputs.AddBudget(sequence, step, unit, trim, curve, instruments.Fixture, now);
 
         if (!trim.InRange)
         {

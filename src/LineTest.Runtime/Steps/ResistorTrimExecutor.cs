@@ -1,3 +1,4 @@
+using LineTest.Core.Calibration;
 using LineTest.Core.Results;
 using LineTest.Core.Sequences;
 using LineTest.Core.Trims;
@@ -23,7 +24,9 @@ internal static class ResistorTrimExecutor
         var spec = sequence.Trim?.Resistor ?? throw new InvalidOperationException("Checked sequences with method 'resistor' have a resistor trim.");
         var name = step.DisplayName;
         var now = instruments.Now;
-        var result = ResistorTrim.Compute(spec, TrimInputs.Points(step, unit), TrimInputs.ExtraCheckpoints(sequence, step));
+        var points = TrimInputs.Points(step, unit);
+        var curve = TrimInputs.Curve(sequence, points, unit);
+        var result = ResistorTrim.Compute(spec, points, TrimInputs.ExtraCheckpoints(sequence, step), TrimAccuracy.Line(sequence, curve, points));
         if (!result.TryGetValue(out var trim))
         {
             unit.Add(new Reading($"{name}.computed", null, "1", null, null, Verdict.Fail)
@@ -47,6 +50,8 @@ internal static class ResistorTrimExecutor
                 unit.Add(UnlimitedReading.Create($"{name}.predicted.{predicted.Name}.worstCase", worst, "degC") with { Step = name, At = now });
             }
         }
+
+        TrimInputs.AddBudget(sequence, step, unit, trim, curve, instruments.Fixture, now);
 
         if (!trim.InRange)
         {

@@ -1,4 +1,6 @@
 using LineTest.Core.Calibration;
+using LineTest.Core.Decisions;
+using LineTest.Core.Fixtures;
 using LineTest.Core.Sequences;
 using LineTest.Core.Trims;
 using LineTest.Runtime.Batches;
@@ -28,4 +30,64 @@ internal static class TrimInputs
         step.PredictAt.Distinct(StringComparer.Ordinal).Where(p => !step.Points.Contains(p, StringComparer.Ordinal))
             .Select(p => new TrimCheckpoint(p, sequence.Setpoints.First(s => s.Name == p).Celsius))
             .ToList();
+
+    /// <summary>The unit's own ideality: the mean n of its I–V sweeps so far, or null when it has none.</summary>
+    public static double? Ideality(UnitContext unit) => unit.Sweeps.Count == 0 ? null : unit.Sweeps.Average(s => s.Fit.Ideality);
+
+    /// <summary>
+    /// The unit's sensor curve through the step's points (<see cref="TrimAccuracy.Curve"/>), or null when the sequence
+    /// states neither a sensor model nor a rated range, or the points cannot be fitted (the trim then says why).
+    /// </summary>
+    public static SensorCurve? Curve(SequenceDefinition sequence, IReadOnlyList<CalibrationPoint> points, UnitContext unit) =>
+        TrimAccuracy.Curve(sequence, points, Ideality(unit)) is { } result && result.TryGetValue(out var curve) ? curve : null;
+
+    /// <summary>
+    /// Records the error budget over the rated range for a computed trim (<see cref="RatedRangeBudget"/>), from the
+    /// reference and output readings the measure steps recorded at the trim's points; nothing without a rated range.
+    /// </summary>
+    public static void AddBudget(
+        SequenceDefinition sequence, TrimStep step, UnitContext unit, ITrimResult trim, SensorCurve? curve, FixtureDefinition fixture, DateTimeOffset now)
+    {
+        if (sequence.RatedRange is not { } range || curve is null)
+        {
+            return;
+        }
+
+        var uncertainties = step.Points.Select(p =>
+        {
+            var reference = unit.Readings.LastOrDefault(r => r.Setpoint == p && r.Name.EndsWith(".reference", StringComparison.Ordinal));
+            var output = unit.Readings.LastOrDefault(r => r.Setpoint == p && r.Name.EndsWith(".output", StringComparison.Ordinal));
+            var scale = output is not null && UnitsOfMeasure.IsKnown(output.Unit) ? UnitsOfMeasure.FromBase(1, output.Unit) : 1.0;
+            return TrimAccuracy.PointFrom(reference, output, scale);
+        }).ToList();
+        var sweepSpread = unit.Sweeps.Count > 1
+            ? Math.Sqrt(unit.Sweeps.Sum(s => Math.Pow(s.Fit.Ideality - curve.Ideality, 2)) / (unit.Sweeps.Count - 1) / unit.Sweeps.Count)
+            : (double?)null;
+        var prediction = RatedRangeBudget.Predict(curve, trim.IndicatedC, uncertainties, range.LowC, range.HighC, sweepSpread,
+            TrimAccuracy.PartTolerance(trim), TrimAccuracy.Resolution(trim),
+            soakResidualHalfWidthC: TrimAccuracy.SoakResidualHalfWidthC(sequence),
+            wellUniformityHalfWidthC: fixture.Source.WellUniformityC ?? 0);
+        // The further setpoints' predictions get the budget's value (the sensor curve through the points) and uncertainty.
+        foreach (var checkpoint in ExtraCheckpoints(sequence, step))
+        {
+            var index = unit.Readings.FindLastIndex(r => r.Name == $"{step.DisplayName}.predicted.{checkpoint.Name}");
+            if (index >= 0)
+            {
+                var at = prediction.Nearest(checkpoint.TemperatureC);
+                var u = new ExpandedUncertainty(at.StandardUncertaintyC, CoverageFactor.ForDegreesOfFreedom(at.EffectiveDegreesOfFreedom));
+                unit.Readings[index] = unit.Readings[index] with
+                {
+                    Value = trim.IndicatedC(curve.OutputAt(checkpoint.TemperatureC)) - checkpoint.TemperatureC,
+                    StandardUncertainty = u.StandardUncertainty,
+                    ExpandedUncertainty = u.Expanded,
+                    CoverageFactor = u.CoverageFactor,
+                };
+            }
+        }
+
+        foreach (var reading in TrimAccuracy.Readings(step.DisplayName, range, prediction, curve, step.Points, now))
+        {
+            unit.Add(reading);
+        }
+    }
 }

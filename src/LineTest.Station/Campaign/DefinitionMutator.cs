@@ -12,14 +12,27 @@ internal sealed class DefinitionMutator(int seed)
     private readonly Random _random = new(seed);
 
     /// <summary>One damaged copy of <paramref name="original"/>.</summary>
-    public byte[] Mutate(byte[] original) => _random.Next(5) switch
+    public byte[] Mutate(byte[] original) => original.Length == 0 ? InsertJunk(original) : _random.Next(5) switch
     {
         0 => FlipBytes(original),
         1 => original[.._random.Next(original.Length)],
         2 => InsertJunk(original),
-        3 => ReplaceValue(original) ?? FlipBytes(original),
-        _ => RemoveMember(original) ?? FlipBytes(original),
+        3 => Structured(ReplaceValue, original) ?? FlipBytes(original),
+        _ => Structured(RemoveMember, original) ?? FlipBytes(original),
     };
+
+    /// <summary>A structured edit, or null when the bytes are no longer JSON the editor can walk (e.g. not UTF-8 after a flip).</summary>
+    private static byte[]? Structured(Func<byte[], byte[]?> edit, byte[] original)
+    {
+        try
+        {
+            return edit(original);
+        }
+        catch (Exception ex) when (ex is System.Text.Json.JsonException or InvalidOperationException or ArgumentException)
+        {
+            return null;
+        }
+    }
 
     private byte[] FlipBytes(byte[] original)
     {

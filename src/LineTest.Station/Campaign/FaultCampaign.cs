@@ -226,7 +226,10 @@ public sealed class FaultCampaign(CampaignOptions options)
         return (pass, fail, error, wrong, lost, duplicates, inProgress);
     }
 
-    /// <summary>Whether the simulator's ground truth puts the shipped unit outside a verify step's limits at its setpoint.</summary>
+    /// <summary>
+    /// Whether the simulator's ground truth puts the shipped unit outside a verify step's limits at its setpoint, or (where the
+    /// sequence judges it) its largest error over the rated range above the rated range's limit.
+    /// </summary>
     internal static bool TrulyOutOfLimits(SimulatedUnit unit, SequenceDefinition sequence)
     {
         var target = sequence.Trim?.AnalogTarget;
@@ -237,6 +240,19 @@ public sealed class FaultCampaign(CampaignOptions options)
                 ? unit.TrueReportedErrorC(celsius)
                 : unit.TrueErrorC(target, celsius);
             if (!double.IsFinite(errorC) || errorC < (verify.Limits.Low ?? double.NegativeInfinity) || errorC > (verify.Limits.High ?? double.PositiveInfinity))
+            {
+                return true;
+            }
+        }
+
+        // Where the sequence judges the predicted error over its rated range, the truth is judged over it too.
+        if (sequence.RatedRange is { MaxAbsErrorLimits: { } rangeLimits } range)
+        {
+            var grid = Enumerable.Range(0, (int)Math.Floor(range.HighC - range.LowC) + 1).Select(i => range.LowC + i).ToArray();
+            var worst = unit.Design.Kind == SimulatedUnitKind.FirmwareTrimmed || target is null
+                ? grid.Max(c => Math.Abs(unit.TrueReportedErrorC(c)))
+                : unit.TrueErrorsC(grid, target).Max(Math.Abs);
+            if (!double.IsFinite(worst) || worst > (rangeLimits.High ?? double.PositiveInfinity))
             {
                 return true;
             }

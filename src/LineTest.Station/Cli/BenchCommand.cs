@@ -24,10 +24,15 @@ public static class BenchCommand
         var fixture = new Option<string?>("--fixture") { Description = "Simulated fixture (default: the station's)" };
         var batches = new Option<int>("--batches") { Description = "Full batches per sequence for the throughput figures", DefaultValueFactory = _ => 5 };
         var shiftUnits = new Option<int>("--shift-units") { Description = "Units in the shift whose wall time and memory are measured (0: skip)", DefaultValueFactory = _ => 1000 };
-        var json = new Option<bool>("--json") { Description = "Print the figures as one JSON object" };
+        var json = new Option<bool>("--json") { Description = "Print the figures as one JSON object (with --accuracy: a JSON array)" };
+        var accuracy = new Option<bool>("--accuracy")
+        {
+            Description = "Instead of throughput: the true post-trim error over each sequence's rated range (simulator ground truth) per fit, against the error budget's floor",
+        };
+        var accuracyBatches = new Option<int>("--accuracy-batches") { Description = "Full batches per sequence and fit for --accuracy", DefaultValueFactory = _ => 25 };
         var command = new Command("bench", "Simulated throughput against the baseline and the thermal bound, and the engine's own cost")
         {
-            sequences, fixture, batches, shiftUnits, json,
+            sequences, fixture, batches, shiftUnits, json, accuracy, accuracyBatches,
         };
         command.SetAction(async (parse, ct) =>
         {
@@ -74,6 +79,12 @@ public static class BenchCommand
                 }
 
                 loaded.Add((result.Value, result.Sha256));
+            }
+
+            if (parse.GetValue(accuracy))
+            {
+                return await AccuracyCommand.RunAsync(context, fx, loaded.Select(l => l.Sequence).ToList(), parse.GetValue(accuracyBatches), parse.GetValue(json), ct)
+                    .ConfigureAwait(false);
             }
 
             // The shift first, so that the process's peak working set is the shift's and not the throughput runs'.

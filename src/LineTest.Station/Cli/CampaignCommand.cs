@@ -29,11 +29,15 @@ public static class CampaignCommand
         var results = new Option<string?>("--results") { Description = "Results folder (default: a new folder under the temporary folder)" };
         var json = new Option<bool>("--json") { Description = "Print the figures as one JSON object" };
         var fuzz = new Option<int?>("--fuzz") { Description = "Fuzz instead: damaged definition files to load (and one garbage batch per 100)" };
+        var fuzzFiles = new Option<int?>("--fuzz-files")
+        {
+            Description = "Fuzz definition files instead: N damaged sequence and N damaged fixture files through what check runs",
+        };
         var sequence = new Option<string?>("--sequence") { Description = "Sequence file (default: the station's)" };
         var fixture = new Option<string?>("--fixture") { Description = "Simulated fixture file (default: the station's)" };
         var command = new Command("campaign", "Inject instrument and unit faults into simulated batches and audit what was stored")
         {
-            units, rate, seed, results, json, fuzz, sequence, fixture,
+            units, rate, seed, results, json, fuzz, fuzzFiles, sequence, fixture,
         };
         command.SetAction(async (parse, ct) =>
         {
@@ -64,6 +68,20 @@ public static class CampaignCommand
             }
 
             var asJson = parse.GetValue(json);
+            if (parse.GetValue(fuzzFiles) is { } files)
+            {
+                if (files < 1)
+                {
+                    return context.BadInput($"--fuzz-files must be 1 or more, not {files}");
+                }
+
+                var fileFuzzer = new FileFuzzer(fx, await File.ReadAllBytesAsync(fixturePath, ct).ConfigureAwait(false),
+                    await File.ReadAllBytesAsync(sequencePath, ct).ConfigureAwait(false), parse.GetValue(seed));
+                var fileSummary = fileFuzzer.Run(files, ct);
+                context.Output.WriteLine(asJson ? JsonSerializer.Serialize(fileSummary, Json) : FileFuzzText(fileSummary));
+                return fileSummary.Crashes + fileSummary.OverTenSeconds == 0 ? ExitCodes.Done : ExitCodes.RuntimeFailure;
+            }
+
             if (parse.GetValue(fuzz) is { } iterations)
             {
                 if (iterations < 1)
@@ -137,6 +155,14 @@ public static class CampaignCommand
         string.Create(CultureInfo.InvariantCulture, $"Verdicts: {s.Pass} pass, {s.Fail} fail, {s.Error} error"),
         string.Create(CultureInfo.InvariantCulture, $"Wrong passes {s.WrongPasses}, lost runs {s.LostRuns}, duplicate runs {s.DuplicateRuns}, runs without a verdict {s.RunsWithoutVerdict}, source left away from standby {s.SourceLeftAwayFromStandby}"),
         string.Create(CultureInfo.InvariantCulture, $"Simulated {s.SimulatedSeconds / 3600:F1} h, wall {s.WallSeconds:F1} s; results in {s.ResultsPath}"),
+    ]);
+
+    private static string FileFuzzText(FileFuzzSummary s) => string.Join(Environment.NewLine,
+    [
+        string.Create(CultureInfo.InvariantCulture, $"Damaged files checked: {s.Sequences} sequences and {s.Fixtures} fixtures; {s.Loaded} loaded, {s.Refused} refused with problems"),
+        string.Create(CultureInfo.InvariantCulture, $"Crashes {s.Crashes}, over 10 s {s.OverTenSeconds}, slowest {s.SlowestMilliseconds:F1} ms"),
+        .. s.FirstCrashes.Select(c => $"  crash: {c}"),
+        string.Create(CultureInfo.InvariantCulture, $"Wall {s.WallSeconds:F1} s"),
     ]);
 
     private static string FuzzText(FuzzSummary s) => string.Join(Environment.NewLine,

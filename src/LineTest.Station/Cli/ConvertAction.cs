@@ -138,7 +138,7 @@ internal sealed partial class ConvertAction : SynchronousCommandLineAction
 
         var sensor = created.Sensor;
         var toCelsius = hasValue;
-        var result = toCelsius ? sensor.ToCelsius(value!.Value) : sensor.FromCelsius(celsius!.Value);
+        var result = toCelsius ? ToCelsiusAtPrintedEnds(sensor, value!.Value) : sensor.FromCelsius(celsius!.Value);
         if (!result.IsSuccess)
         {
             return Fail(stderr, [result.Error], showUsageHint: false);
@@ -160,6 +160,42 @@ internal sealed partial class ConvertAction : SynchronousCommandLineAction
 
         return ConvertCommand.ExitOk;
     }
+
+    /// <summary>
+    /// The reading in °C; a reading that is a range end as convert prints it (four decimals, e.g. 20.872 mV for type T
+    /// at 400 °C) is taken as that end, so every value convert prints is accepted back.
+    /// </summary>
+    private static ConversionResult ToCelsiusAtPrintedEnds(IReferenceSensor sensor, double raw)
+    {
+        var result = sensor.ToCelsius(raw);
+        if (result.IsSuccess)
+        {
+            return result;
+        }
+
+        foreach (var endC in new[] { sensor.MinC, sensor.MaxC })
+        {
+            if (sensor.FromCelsius(endC) is { IsSuccess: true } end && Printed(raw) == Printed(end.Value))
+            {
+                // The end itself, or the nearest value inside the range when the end's own rounding (°C to raw and
+                // back) puts it a hair outside: moved inward by growing relative steps, far below the printed digit.
+                var inward = raw > end.Value ? -1.0 : 1.0;
+                for (var k = 0; k <= 30; k++)
+                {
+                    var candidate = k == 0 ? end.Value : end.Value + (inward * Math.Max(Math.Abs(end.Value), 1) * Math.ScaleB(1e-16, k));
+                    if (sensor.ToCelsius(candidate) is { IsSuccess: true } atEnd)
+                    {
+                        return atEnd;
+                    }
+                }
+            }
+        }
+
+        return result;
+    }
+
+    /// <summary>A reading as convert prints a range end (four decimals at most, invariant culture).</summary>
+    private static string Printed(double value) => value.ToString("0.####", CultureInfo.InvariantCulture);
 
     private static Option<string[]> NumberOption(string name, string helpName, string description) => new(name)
     {

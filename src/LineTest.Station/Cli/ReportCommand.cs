@@ -4,6 +4,7 @@ using System.Text;
 using LineTest.Reports.Building;
 using LineTest.Reports.Console;
 using LineTest.Reports.Csv;
+using LineTest.Reports.Fuzzing;
 using LineTest.Reports.Html;
 using LineTest.Reports.Json;
 using LineTest.Reports.Loading;
@@ -31,6 +32,7 @@ public static class ReportCommand
         var skipBadRows = new Option<bool>("--skip-bad-rows") { Description = "Report on the good rows of --readings when some rows are bad" };
         var by = new Option<string?>("--by") { Description = "Group by station, slot, lot, day, revision, operator or shift (shifts from Station:Shifts)" };
         by.AcceptOnlyFromAmong("station", "slot", "lot", "day", "revision", "operator", "shift");
+        var fuzz = new Option<int?>("--fuzz") { Description = "Fuzz the report: N damaged copies of the --results database (or mutations of the --readings CSV); prints the figures" };
         var firstRuns = new Option<bool>("--first-runs") { Description = "Capability and failure Pareto from each unit's first run only" };
         var json = new Option<bool>("--json") { Description = "Print the report as one JSON object instead of tables" };
         var csv = new Option<string?>("--csv") { Description = "Write the per-reading statistics to this CSV file" };
@@ -39,7 +41,7 @@ public static class ReportCommand
         var filters = new ReportFilterOptions();
         var command = new Command("report", "Quality report: yield, failures, capability, control charts and slot bias")
         {
-            results, readings, skipBadRows, by, firstRuns, json, csv, html, factory,
+            results, readings, skipBadRows, by, firstRuns, json, csv, html, factory, fuzz,
         };
         filters.AddTo(command);
         command.SetAction(async (parse, ct) =>
@@ -70,6 +72,11 @@ public static class ReportCommand
             if (csvInput is not null && folders.Length > 0)
             {
                 return context.BadInput("give either --results or --readings, not both");
+            }
+
+            if (parse.GetValue(fuzz) is { } iterations)
+            {
+                return Fuzz(context, iterations, csvInput, folders);
             }
 
             var factoryConnection = parse.GetValue(factory);
@@ -187,5 +194,48 @@ public static class ReportCommand
             return ExitCodes.Done;
         });
         return command;
+    }
+
+    /// <summary>
+    /// <c>report --fuzz N</c>: damaged inputs through loading, building and every format; exit 1 when any crashed or
+    /// took more than 10 s. The figures in docs/reliability.md come from this.
+    /// </summary>
+    private static int Fuzz(CliContext context, int iterations, string? csvInput, string[] folders)
+    {
+        if (iterations < 1)
+        {
+            return context.BadInput($"--fuzz must be 1 or more, not {iterations}");
+        }
+
+        FuzzSummary summary;
+        if (csvInput is not null)
+        {
+            if (!File.Exists(csvInput))
+            {
+                return context.BadInput($"'{csvInput}' does not exist");
+            }
+
+            summary = ReportFuzzer.FuzzCsv(File.ReadAllText(csvInput), iterations, seed: 1);
+        }
+        else
+        {
+            var folder = Path.GetFullPath(folders.Length == 0 ? "results" : folders[0]);
+            if (!File.Exists(Path.Combine(folder, "results.db")))
+            {
+                return context.BadInput($"'{folder}' holds no results.db to fuzz");
+            }
+
+            summary = ReportFuzzer.FuzzDatabase(folder, iterations, seed: 1);
+        }
+
+        context.Output.WriteLine(string.Create(
+            System.Globalization.CultureInfo.InvariantCulture,
+            $"{summary.Kind}: {summary.Inputs} inputs, {summary.Reported} reported, {summary.Refused} refused with a reason, {summary.Crashed} crashed, {summary.OverTenSeconds} over 10 s (slowest {summary.SlowestSeconds:F2} s)"));
+        if (summary.FirstCrash is { } crash)
+        {
+            context.Output.WriteLine($"first crash: {crash}");
+        }
+
+        return summary.Crashed == 0 && summary.OverTenSeconds == 0 ? ExitCodes.Done : ExitCodes.RuntimeFailure;
     }
 }

@@ -1,5 +1,6 @@
 using System.CommandLine;
 using LineTest.Core.Definitions;
+using LineTest.Station.Composition;
 
 namespace LineTest.Station.Cli;
 
@@ -16,7 +17,8 @@ public static class SchemaCommand
         var command = new Command("schema", "Print the JSON Schema of sequence files (or fixture files with --kind fixture)") { output, kind };
         command.SetAction(parse =>
         {
-            var text = parse.GetValue(kind) == "fixture" ? DefinitionSchemas.Fixture() : DefinitionSchemas.Sequence();
+            var docs = ModelDocs.ForCoreModel();
+            var text = parse.GetValue(kind) == "fixture" ? DefinitionSchemas.Fixture(docs.Describe) : DefinitionSchemas.Sequence(docs.Describe);
             if (parse.GetValue(output) is { } path)
             {
                 try

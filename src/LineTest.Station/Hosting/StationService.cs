@@ -151,7 +151,7 @@ public sealed partial class StationService : BackgroundService
         var prompts = new PromptAnswers();
         var sink = new StoreSink(store, run => talk.Log(DemoCommand.UnitLine(run)));
         var coordinator = new BatchCoordinator(rig.Instruments, fixture, ReferenceConversion.ToCelsius(sensor), rig.Clock, sink,
-            new ScreenOperator(model, prompts.WaitAsync, interactive ? null : _context.Output), model, _loggers.CreateLogger<BatchCoordinator>(), partFitting: rig.PartFitting);
+            new ScreenOperator(model, prompts.WaitAsync, interactive ? null : _context.Output), _context.Observe?.Invoke(model) ?? model, _loggers.CreateLogger<BatchCoordinator>(), partFitting: rig.PartFitting);
 
         var recovered = await StartupRecovery.RunAsync(coordinator, store, _logger, ct).ConfigureAwait(false);
         if (recovered.Count > 0)

@@ -1,3 +1,4 @@
+using LineTest.Runtime.Batches;
 using LineTest.Station.Composition;
 
 namespace LineTest.Station.Hosting;
@@ -12,6 +13,12 @@ public sealed record StationServiceContext(string Root, StationOptions Options, 
 {
     /// <summary>Where log events go while the live screen owns the terminal.</summary>
     public LogRouting Logging { get; init; } = new();
+
+    /// <summary>
+    /// Wraps what watches the batch (the screen model) before the coordinator gets it, e.g. to feed another view or,
+    /// in tests, to fail at a chosen moment; null: the screen model alone.
+    /// </summary>
+    public Func<IBatchObserver, IBatchObserver>? Observe { get; init; }
 
     /// <summary>Ctrl-C and SIGTERM, when the process listens for them.</summary>
     public StopSignals? Signals { get; init; }

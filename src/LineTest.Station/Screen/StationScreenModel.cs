@@ -213,6 +213,12 @@ public sealed class StationScreenModel : IBatchObserver
 
     private SlotView WithTimeLeft(SlotView view)
     {
+        if (view.Verdict is null && view.State is { } state and not UnitState.Loaded && Words is { } words)
+        {
+            // Named at drawing time: the block's setpoint may have changed since the unit's last step change.
+            view = view with { Doing = words.Of(state, view.Step, _setpointC) };
+        }
+
         if (view.Verdict is not null || view.State is null or UnitState.Loaded || !_stepStarted.TryGetValue(view.Slot, out var started))
         {
             return view;

@@ -6,7 +6,9 @@ namespace LineTest.Station.Screen;
 
 /// <summary>
 /// What a unit is doing, in words an operator understands and short enough for the table's "Doing" column
-/// (at most <see cref="Width"/> characters): "block to -20 °C", "reading at 40 °C", "checking at 5 °C".
+/// (at most <see cref="Width"/> characters): "block to -20 °C", "reading at 40 °C", "checking at 5 °C". Steps at a
+/// setpoint are named by its temperature (what the operator sees on the block); other steps by the step kind's
+/// descriptor (<c>Core/Sequences/Steps</c>) when its words fit, else by the unit's state.
 /// </summary>
 public sealed class StepWords
 {
@@ -40,6 +42,13 @@ public sealed class StepWords
             UnitState.Trimming when definition is TrimStep => "trimming",
             _ => StateWords.Of(state),
         };
+        if (words == StateWords.Of(state) && definition is not null
+            && LineTest.Core.Sequences.Steps.StepKinds.Find(definition)?.DoingText(definition) is { Length: > 0 and <= Width } described)
+        {
+            // No temperature to name: the step kind's own words, when they fit the column.
+            return described;
+        }
+
         return words.Length <= Width ? words : StateWords.Of(state);
     }
 

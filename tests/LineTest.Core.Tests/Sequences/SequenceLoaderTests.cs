@@ -119,8 +119,8 @@ public sealed class SequenceLoaderTests
             "method 'dac' needs a 'dac' object", 2)),
         ["firmware register too wide"] = ("ctp40d-firmware.json", new("\"register\": \"C1\", \"bits\": 32", "\"register\": \"C1\", \"bits\": 60", "\"C1\"",
             "$.trim.firmware.coefficients[1].bits", "60 is outside 2…53")),
-        ["firmware order without its registers"] = ("ctp40d-firmware.json", new("\"order\": 1", "\"order\": 2", "\"coefficients\"", "$.trim.firmware.coefficients",
-            "order 2 needs 3 registers, got 2")),
+        ["firmware order without its registers"] = ("ctp40d-firmware.json", new("\"order\": 2", "\"order\": 1", "\"coefficients\"", "$.trim.firmware.coefficients",
+            "order 1 needs 2 registers, got 3")),
         ["firmware register without a format"] = ("ctp40d-firmware.json", new("\"bits\": 32, \"fractionalBits\": 16", "\"bits\": 32", "\"C0\"",
             "$.trim.firmware.coefficients[0]", "give exactly one of fractionalBits and scale")),
         ["firmware measure over the meter"] = ("ctp40d-firmware.json", new("\"name\": \"cal-high\", \"setpoint\": \"cal-high\", \"samples\": 10, \"output\": \"link\"",
@@ -175,8 +175,8 @@ public sealed class SequenceLoaderTests
 
         Assert.True(result.IsSuccess, string.Join(Environment.NewLine, result.Problems));
         var firmware = result.Value.Trim!.Firmware!;
-        Assert.Equal(1, firmware.Order);
-        Assert.Equal(["C0", "C1"], firmware.Coefficients.Select(c => c.Register));
+        Assert.Equal(2, firmware.Order);
+        Assert.Equal(["C0", "C1", "C2"], firmware.Coefficients.Select(c => c.Register));
         Assert.Equal(Math.ScaleB(1.0, -40), firmware.Coefficients[1].Lsb);
         Assert.Null(result.Value.Trim.AnalogTarget);
         Assert.Equal(("link", 1670.0), (result.Value.Soak.Output, result.Value.Soak.OutputCountsPerC!.Value));

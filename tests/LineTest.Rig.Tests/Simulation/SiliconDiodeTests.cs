@@ -84,4 +84,24 @@ public sealed class SiliconDiodeTests
     {
         Assert.Throws<ArgumentOutOfRangeException>(() => SiliconDiode.WithForwardVolts(0.0001, 25, BiasAmps, 1.05, 20));
     }
+
+    [Theory]
+    [InlineData(3.0, 1.12)]
+    [InlineData(3.2, 1.10)]
+    public void ForwardVolts_OwnXtiAndBandGap_FollowsTheClosedFormOfTheDiodeTemperatureModel(double xti, double bandGap)
+    {
+        // V_f(T) − I·R_s = (T/T1)·V_j(T1) + EG·(1 − T/T1) − XTI·(n·k·T/q)·ln(T/T1) for I_s ∝ T^XTI·exp(−EG/(n·k·T))
+        // (semiconductor-device textbooks; the SPICE diode model with XTI_SPICE = n·XTI [from memory]); the Shockley
+        // "+1" changes V_f by n·V_T·I_s/I, about a nanovolt here.
+        var diode = SiliconDiode.WithForwardVolts(0.6, 25, BiasAmps, 1.05, 20) with { Xti = xti, BandGapElectronVolts = bandGap };
+        var drop = BiasAmps * 20;
+        var t1 = 298.15;
+        var junctionAtT1 = diode.ForwardVolts(25, BiasAmps) - drop;
+
+        foreach (var celsius in new[] { -30.0, -20, 5, 40, 60 })
+        {
+            var expected = Core.Characterisation.DiodeTemperatureModel.ForwardVolts(celsius + 273.15, t1, junctionAtT1, bandGap, xti, 1.05);
+            Assert.InRange(diode.ForwardVolts(celsius, BiasAmps) - drop - expected, -3e-9, 3e-9);
+        }
+    }
 }

@@ -171,4 +171,29 @@ public sealed class SimulatedUnitFactoryTests
     {
         Assert.Throws<ArgumentOutOfRangeException>(() => new SimulatedUnitFactory(1, SimulatedFixtures.Simulation(defectRate: 1.5), Design));
     }
+
+    [Fact]
+    public void NextUnit_ManyParts_SpreadXtiBandGapAndNonLinearityAsDesigned()
+    {
+        var design = SimulatedUnitDesign.Ctp40D;
+        var factory = SimulatedFixtures.Factory(seed: 5, design: design);
+        var parts = Enumerable.Range(0, 600).Select(_ => factory.NextUnit(UnitDefect.None).Parameters).ToList();
+
+        // Normal draws truncated at ±2σ keep a standard deviation of about 0.88σ [derived: √(1 − 2·2·φ(2)/(2Φ(2) − 1))].
+        static (double Mean, double Sd) Stats(IReadOnlyList<double> v)
+        {
+            var mean = v.Average();
+            return (mean, Math.Sqrt(v.Sum(x => (x - mean) * (x - mean)) / (v.Count - 1)));
+        }
+
+        var xti = Stats(parts.Select(p => p.Diode.Xti).ToList());
+        var eg = Stats(parts.Select(p => p.Diode.BandGapElectronVolts).ToList());
+        var beta = Stats(parts.Select(p => p.NonLinearityPerVolt).ToList());
+        Assert.InRange(xti.Mean, 2.99, 3.01);
+        Assert.InRange(xti.Sd / design.XtiSpread, 0.8, 0.96);
+        Assert.InRange(eg.Sd / design.BandGapSpreadElectronVolts, 0.8, 0.96);
+        Assert.InRange(beta.Mean, -0.0005, 0.0005);
+        Assert.InRange(beta.Sd / design.NonLinearitySpreadPerVolt, 0.8, 0.96);
+        Assert.All(parts, p => Assert.InRange(p.Diode.Xti, 3 - (2 * design.XtiSpread), 3 + (2 * design.XtiSpread)));
+    }
 }

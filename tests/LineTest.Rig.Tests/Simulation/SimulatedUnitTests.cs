@@ -36,9 +36,12 @@ public sealed class SimulatedUnitTests
             unit.WriteWorking(codes);
             unit.Store();
 
+            // A straight-line trim through 0 and 50 degC leaves the diode's curvature: at -20 degC about
+            // ½·XTI·n·(k/q)/T·(T − 0)(T − 50)·G ≈ ½·3·1.05·86.17 µV/K / 263 K · 1400 K² · 5 ≈ 3.6 mV [derived], plus the
+            // spread of XTI, n and the read-out non-linearity and the DAC steps.
             foreach (var celsius in new[] { 0.0, 25.0, 50.0, -20.0 })
             {
-                Assert.InRange(unit.TrueErrorVolts(spec.Target, celsius), -0.004, 0.004);
+                Assert.InRange(unit.TrueErrorVolts(spec.Target, celsius), -0.005, 0.005);
             }
         }
     }

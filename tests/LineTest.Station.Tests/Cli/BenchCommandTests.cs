@@ -1,4 +1,5 @@
 using System.Text.Json;
+using LineTest.TestSupport;
 
 namespace LineTest.Station.Tests.Cli;
 
@@ -44,5 +45,41 @@ public sealed class BenchCommandTests
 
         Assert.Equal(2, exit);
         Assert.Contains("--batches must be 1 or more", error, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public async Task BenchAccuracy_Json_ArrayWithExactlyTheContractKeysPerSequenceAndFit()
+    {
+        var (exit, output, error) = await CliRunner.RunAsync(
+            "bench", "--accuracy", "--json", "--accuracy-batches", "1", "--sequence", RepoFiles.Path("sequences/ctp40a-dac.json"),
+            "--sequence", RepoFiles.Path("sequences/ctp40d-firmware.json"));
+
+        Assert.True(exit == 0, error);
+        using var json = JsonDocument.Parse(output);
+        var rows = json.RootElement.EnumerateArray().ToList();
+        Assert.Equal(
+            [("ctp40a-dac", "through-points"), ("ctp40a-dac", "minimax"), ("ctp40d-firmware", "through-points"), ("ctp40d-firmware", "straight-line")],
+            rows.Select(r => (r.GetProperty("sequence").GetString(), r.GetProperty("fit").GetString())));
+        foreach (var row in rows)
+        {
+            Assert.Equal(["sequence", "fit", "rmsErrorC", "maxAbsErrorC", "floorRmsC", "ratio", "verifyBiasC"], row.EnumerateObject().Select(p => p.Name));
+            Assert.True(row.GetProperty("floorRmsC").GetDouble() > 0);
+            Assert.Equal(row.GetProperty("rmsErrorC").GetDouble() / row.GetProperty("floorRmsC").GetDouble(), row.GetProperty("ratio").GetDouble(), 1);
+        }
+    }
+
+    [Fact]
+    public async Task BenchAccuracy_SequenceWithoutRatedRange_IsBadInput()
+    {
+        var text = File.ReadAllText(RepoFiles.Path("sequences/ctp40a-dac.json"))
+            .Replace("\"ratedRange\": { \"lowC\": -20, \"highC\": 40 },", string.Empty, StringComparison.Ordinal)
+            .Replace("\"fit\": \"minimax\",", string.Empty, StringComparison.Ordinal);
+        var path = Path.Combine(Some.TempDirectory(), "no-range.json");
+        File.WriteAllText(path, text);
+
+        var (exit, _, error) = await CliRunner.RunAsync("bench", "--accuracy", "--sequence", path);
+
+        Assert.Equal(2, exit);
+        Assert.Contains("states no ratedRange", error, StringComparison.Ordinal);
     }
 }

@@ -36,6 +36,40 @@ public sealed class ConvertCommandTests
         Assert.Equal(expected, run.Stdout.TrimEnd());
     }
 
+    [Theory]
+    [InlineData("type-t", "20.872", 400.0)] // Regression: convert printed 20.872 mV as the range end and then refused it.
+    [InlineData("type-t", "20.8720", 400.0)] // as convert type-t --celsius 400 prints it
+    [InlineData("type-k", "54.8864", 1372.0)]
+    [InlineData("pt1000", "3904.8113", 850.0)]
+    [InlineData("pt100", "18.5201", -200.0)]
+    public void Invoke_RangeEndAsPrinted_IsAccepted(string sensor, string value, double expectedC)
+    {
+        var run = Run("convert", sensor, value);
+
+        Assert.Equal(ConvertCommand.ExitOk, run.ExitCode);
+        Assert.Equal(expectedC, ParseLeadingNumber(run.Stdout), 0.0002);
+    }
+
+    [Theory]
+    [InlineData("pt100")]
+    [InlineData("pt1000")]
+    [InlineData("type-k")]
+    [InlineData("type-t")]
+    public void Invoke_EveryRangeEndItPrints_IsAcceptedBack(string sensor)
+    {
+        var refused = Run("convert", sensor, "1e9");
+        var range = System.Text.RegularExpressions.Regex.Match(refused.Stderr, @"valid range (?<low>-?[0-9.]+) to (?<high>-?[0-9.]+) ");
+
+        Assert.True(range.Success, refused.Stderr);
+        foreach (var end in new[] { range.Groups["low"].Value, range.Groups["high"].Value })
+        {
+            var run = Run("convert", sensor, "--", end);
+            Assert.True(run.ExitCode == ConvertCommand.ExitOk, $"{sensor} {end}: {run.Stderr}");
+        }
+
+        Assert.Equal(ConvertCommand.ExitBadInput, Run("convert", sensor, "--", range.Groups["high"].Value + "9").ExitCode);
+    }
+
     [Fact]
     public void Invoke_NtcSteinhartHart_ConvertsPublishedPoint()
     {

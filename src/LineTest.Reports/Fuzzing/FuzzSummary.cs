@@ -1,0 +1,12 @@
+namespace LineTest.Reports.Fuzzing;
+
+/// <summary>The figures of a fuzz run over report inputs.</summary>
+/// <param name="Kind">"csv" or "database".</param>
+/// <param name="Inputs">Mutated inputs tried.</param>
+/// <param name="Reported">Inputs that gave a report.</param>
+/// <param name="Refused">Inputs refused with a reason.</param>
+/// <param name="Crashed">Inputs that threw an unexpected exception.</param>
+/// <param name="OverTenSeconds">Inputs that took more than 10 s.</param>
+/// <param name="SlowestSeconds">The slowest input, seconds.</param>
+/// <param name="FirstCrash">The first crash's exception type and message, or null.</param>
+public sealed record FuzzSummary(string Kind, int Inputs, int Reported, int Refused, int Crashed, int OverTenSeconds, double SlowestSeconds, string? FirstCrash);

@@ -1,0 +1,79 @@
+using System.Globalization;
+using System.Text.Json;
+using LineTest.Core.Fixtures;
+using LineTest.Core.Sequences;
+using LineTest.Station.Demo;
+
+namespace LineTest.Station.Cli;
+
+/// <summary>
+/// <c>linetest bench --accuracy [--json]</c>: per sequence and fit objective, the true post-trim error over the rated
+/// range (RMS and largest), the error budget's floor, their ratio and the bias at the verify setpoint. JSON: an array of
+/// objects with exactly the keys <c>sequence</c>, <c>fit</c>, <c>rmsErrorC</c>, <c>maxAbsErrorC</c>, <c>floorRmsC</c>,
+/// <c>ratio</c>, <c>verifyBiasC</c>.
+/// </summary>
+public static class AccuracyCommand
+{
+    /// <summary>Runs the accuracy benchmark and prints it; exit code.</summary>
+    public static async Task<int> RunAsync(
+        CliContext context, FixtureDefinition fixture, IReadOnlyList<SequenceDefinition> sequences, int batches, bool json, CancellationToken ct)
+    {
+        ArgumentNullException.ThrowIfNull(context);
+        ArgumentNullException.ThrowIfNull(fixture);
+        ArgumentNullException.ThrowIfNull(sequences);
+        if (batches < 1)
+        {
+            return context.BadInput($"--accuracy-batches must be 1 or more, not {batches}");
+        }
+
+        var missing = sequences.FirstOrDefault(s => s.RatedRange is null);
+        if (missing is not null)
+        {
+            return context.BadInput($"sequence '{missing.Id}' states no ratedRange: --accuracy measures the error over the rated range");
+        }
+
+        var figures = new List<AccuracyFigures>();
+        foreach (var sequence in sequences)
+        {
+            foreach (var (fit, variant) in AccuracyBench.Variants(sequence))
+            {
+                figures.Add(await AccuracyBench.MeasureAsync(fixture, variant, fit, batches, context.Options.SimulatorSeed, null, ct).ConfigureAwait(false));
+            }
+        }
+
+        if (json)
+        {
+            context.Output.WriteLine(JsonSerializer.Serialize(figures.Select(f => new
+            {
+                sequence = f.SequenceId,
+                fit = f.Fit,
+                rmsErrorC = Round(f.RmsErrorC, 4),
+                maxAbsErrorC = Round(f.MaxAbsErrorC, 4),
+                floorRmsC = Round(f.FloorRmsC, 4),
+                ratio = Round(f.Ratio, 3),
+                verifyBiasC = Round(f.VerifyBiasC, 4),
+            })));
+        }
+        else
+        {
+            Write(context.Output, fixture.Id, figures);
+        }
+
+        return ExitCodes.Done;
+    }
+
+    private static double? Round(double value, int digits) => double.IsFinite(value) ? Math.Round(value, digits) : null;
+
+    private static void Write(TextWriter o, string fixtureId, List<AccuracyFigures> figures)
+    {
+        var inv = CultureInfo.InvariantCulture;
+        o.WriteLine($"True post-trim error over each sequence's rated range on fixture {fixtureId} (simulator ground truth, passing units)");
+        o.WriteLine();
+        o.WriteLine("sequence           fit              units  rms degC  max|e| degC  floor rms  ratio  verify bias  verify reading mean/sd  predicted mean/sd");
+        foreach (var f in figures)
+        {
+            o.WriteLine(string.Create(inv,
+                $"{f.SequenceId,-18} {f.Fit,-15} {f.Units,6}  {f.RmsErrorC,8:F4}  {f.MaxAbsErrorC,11:F4}  {f.FloorRmsC,9:F4}  {f.Ratio,5:F2}  {f.VerifyBiasC,11:+0.0000;-0.0000}  {f.VerifyReadingMeanC,11:+0.0000;-0.0000}/{f.VerifyReadingSdC:F4}  {f.PredictedVerifyMeanC,9:+0.0000;-0.0000}/{f.PredictedVerifySdC:F4}"));
+        }
+    }
+}
