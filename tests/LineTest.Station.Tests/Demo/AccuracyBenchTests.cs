@@ -7,9 +7,9 @@ namespace LineTest.Station.Tests.Demo;
 
 public sealed class AccuracyBenchTests
 {
-    private static FixtureDefinition Fixture => FixtureLoader.LoadFile(RepoFiles.Path("fixtures/sim-dryblock-4.json")).Value!;
+    private static FixtureDefinition Fixture => DefinitionFile.Fixture(RepoFiles.Path("fixtures/sim-dryblock-4.json")).Value!;
 
-    private static SequenceDefinition Sequence(string name) => SequenceLoader.LoadFile(RepoFiles.Path($"sequences/{name}"), Fixture).Value!;
+    private static SequenceDefinition Sequence(string name) => DefinitionFile.Sequence(RepoFiles.Path($"sequences/{name}"), Fixture).Value!;
 
     public static TheoryData<string, string> DemoVariants => new()
     {
