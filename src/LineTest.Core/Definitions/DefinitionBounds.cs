@@ -63,6 +63,9 @@ public static class DefinitionBounds
     /// <summary>The simulated static offset of one slot from the reference well, °C.</summary>
     public static readonly NumberBound SlotOffsetC = new(-10, 10, "°C");
 
+    /// <summary>A source's well-to-well uniformity (half-width), °C: zero up to 10 °C.</summary>
+    public static readonly NumberBound WellUniformityC = NumberBound.NonNegative(10, "°C");
+
     /// <summary>A share of units (defect rates), 0 … 1.</summary>
     public static readonly NumberBound Share = NumberBound.NonNegative(1, string.Empty);
 
@@ -174,6 +177,7 @@ public static class DefinitionBounds
         [(typeof(SourceDefinition), nameof(SourceDefinition.RampUpCPerMinute))] = RampCPerMinute,
         [(typeof(SourceDefinition), nameof(SourceDefinition.RampDownCPerMinute))] = RampCPerMinute,
         [(typeof(SourceDefinition), nameof(SourceDefinition.SettlingTimeConstantSeconds))] = TimeConstantSeconds,
+        [(typeof(SourceDefinition), nameof(SourceDefinition.WellUniformityC))] = WellUniformityC,
         [(typeof(MeterDefinition), nameof(MeterDefinition.RangeVolts))] = MeterRangeVolts,
         [(typeof(MeterDefinition), nameof(MeterDefinition.AccuracyPercentOfReading))] = AccuracyPercent,
         [(typeof(MeterDefinition), nameof(MeterDefinition.AccuracyOffsetVolts))] = MeterVolts,

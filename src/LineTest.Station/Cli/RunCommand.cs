@@ -2,6 +2,7 @@ using System.CommandLine;
 using LineTest.Factory.Forwarding;
 using LineTest.Station.Composition;
 using LineTest.Station.Hosting;
+using LineTest.Web.Hosting;
 using Microsoft.Extensions.Configuration;
 using Microsoft.Extensions.DependencyInjection;
 using Microsoft.Extensions.Hosting;
@@ -57,8 +58,11 @@ public static class RunCommand
             {
                 // Store-and-forward to the factory database when Station:Factory:ConnectionString is set.
                 builder.Services.AddFactoryForwarding(context.Configuration, ContentRoot.Resolve(context.Root, context.Options.Results));
+
+                // The live page beside the station, read-only on its own folder, when Station:Web:Listen is set.
+                builder.Services.AddStationWebPage(context.Configuration, ContentRoot.Resolve(context.Root, context.Options.Results));
             }
-            catch (ArgumentException ex)
+            catch (Exception ex) when (ex is ArgumentException or InvalidOperationException)
             {
                 return context.BadInput(ex.Message);
             }

@@ -2,6 +2,7 @@ using LineTest.Core.Fixtures;
 using LineTest.Core.Results;
 using LineTest.Core.Scanning;
 using LineTest.Core.Sequences;
+using LineTest.Core.Sequences.Steps;
 using LineTest.Core.Throughput;
 using LineTest.Rig.Serial.Scanner;
 using LineTest.Runtime.Batches;
@@ -150,8 +151,13 @@ public sealed partial class StationService : BackgroundService
             : ScannerFeed.Start(serialScanner, serialScanner.Port.Name, input, TimeProvider.System, _loggers.CreateLogger<ScannerFeed>());
         var prompts = new PromptAnswers();
         var sink = new StoreSink(store, run => talk.Log(DemoCommand.UnitLine(run)));
-        var coordinator = new BatchCoordinator(rig.Instruments, fixture, ReferenceConversion.ToCelsius(sensor), rig.Clock, sink,
-            new ScreenOperator(model, prompts.WaitAsync, interactive ? null : _context.Output), _context.Observe?.Invoke(model) ?? model, _loggers.CreateLogger<BatchCoordinator>(), partFitting: rig.PartFitting);
+        var coordinator = StationComposition.Coordinator(fixture, rig.Instruments, rig.Clock, sink, new CoordinatorParts
+        {
+            Operator = new ScreenOperator(model, prompts.WaitAsync, interactive ? null : _context.Output),
+            Observer = _context.Observe?.Invoke(model) ?? model,
+            Logger = _loggers.CreateLogger<BatchCoordinator>(),
+            PartFitting = rig.PartFitting,
+        });
 
         var recovered = await StartupRecovery.RunAsync(coordinator, store, _logger, ct).ConfigureAwait(false);
         if (recovered.Count > 0)
@@ -245,13 +251,12 @@ public sealed partial class StationService : BackgroundService
         var timing = new InstrumentTiming();
         var bound = ThermalBound.Compute(sequence, fixture.Source, fixture.Source.StandbyC, fixture.Slots.Count, timing.ReferenceReadSeconds, timing.MeterReadSeconds);
         var legs = new Queue<ThermalBoundLeg>(bound.Legs);
-        return sequence.Steps.Select(step => step switch
-        {
-            SettleStep when legs.Count > 0 => legs.Peek().TravelSeconds + legs.Peek().StableWindowSeconds + legs.Dequeue().SoakSeconds,
-            MeasureStep m => m.Samples * (timing.ReferenceReadSeconds + fixture.Slots.Count * timing.MeterReadSeconds),
-            VerifyStep v => v.Samples * (timing.ReferenceReadSeconds + fixture.Slots.Count * timing.MeterReadSeconds),
-            _ => 5.0,
-        }).ToList();
+        var model = new StepTimeModel(fixture.Slots.Count, timing.ReferenceReadSeconds, timing.MeterReadSeconds);
+
+        // Each step kind estimates its own time (sweeps included); settle steps take their thermal-bound leg.
+        return sequence.Steps.Select(step => step is SettleStep && legs.Count > 0
+            ? legs.Peek().TravelSeconds + legs.Peek().StableWindowSeconds + legs.Dequeue().SoakSeconds
+            : StepKinds.Of(step).EstimateSeconds(step, model)).ToList();
     }
 
     private void WriteSafetyNote(bool interactive)

@@ -25,8 +25,10 @@ public sealed class CheckCommandTests
         var (exit, _, error) = await CliRunner.RunAsync("check", path, "--fixture", RepoFiles.Path("fixtures/sim-dryblock-4.json"));
 
         Assert.Equal(2, exit);
-        Assert.Contains($"{path}:25: $.setpoints[1].celsius: 140 °C is outside the safe range", error, StringComparison.Ordinal);
-        Assert.Contains($"{path}:48: $.steps[1].limits.unit: unknown unit of measure 'mAmp'", error, StringComparison.Ordinal);
+        var celsiusLine = LineOf(text, "\"celsius\": 140");
+        var unitLine = LineOf(text, "\"unit\": \"mAmp\"");
+        Assert.Contains($"{path}:{celsiusLine}: $.setpoints[1].celsius: 140 °C is outside the safe range", error, StringComparison.Ordinal);
+        Assert.Contains($"{path}:{unitLine}: $.steps[1].limits.unit: unknown unit of measure 'mAmp'", error, StringComparison.Ordinal);
     }
 
     [Fact]
@@ -55,7 +57,7 @@ public sealed class CheckCommandTests
     public async Task Check_TrailingCommaAndKeyGivenTwice_ExitsTwoWithTheirLines()
     {
         // Regression: both passed check; the second of two keys silently won.
-        var path = Edited("\"revision\": 1,", "\"revision\": 1,\n  \"revision\": 2,");
+        var path = Edited("\"revision\": 2,", "\"revision\": 2,\n  \"revision\": 3,");
         File.WriteAllText(path, File.ReadAllText(path).Replace("\"verify\", \"celsius\": 5 }", "\"verify\", \"celsius\": 5 },", StringComparison.Ordinal));
 
         var (exit, _, error) = await CliRunner.RunAsync("check", path);
@@ -85,4 +87,8 @@ public sealed class CheckCommandTests
         File.WriteAllText(path, text.Replace(find, replace, StringComparison.Ordinal));
         return path;
     }
+
+    /// <summary>The 1-based line of the first occurrence of <paramref name="find"/>, so the test follows edits of the file.</summary>
+    private static int LineOf(string text, string find) =>
+        text[..text.IndexOf(find, StringComparison.Ordinal)].Count(c => c == '\n') + 1;
 }
