@@ -219,6 +219,7 @@ public static class DefinitionBounds
         [(typeof(SoakSettings), nameof(SoakSettings.SampleIntervalSeconds))] = SampleIntervalSeconds,
         [(typeof(SoakSettings), nameof(SoakSettings.TimeoutSeconds))] = TimeoutSeconds,
         [(typeof(SetpointDefinition), nameof(SetpointDefinition.Celsius))] = TemperatureC,
+        [(typeof(SettleSettings), nameof(SettleSettings.MaxExtrapolationUncertaintyC))] = TemperatureBandC,
         [(typeof(MeasureStep), nameof(MeasureStep.Samples))] = Samples,
         [(typeof(VerifyStep), nameof(VerifyStep.Samples))] = Samples,
         [(typeof(SupplyCurrentStep), nameof(SupplyCurrentStep.Samples))] = Samples,

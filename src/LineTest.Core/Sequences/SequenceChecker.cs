@@ -31,6 +31,7 @@ public static class SequenceChecker
         CheckSteps(sequence, fixture, setpoints, problems);
         IvSweepStepKind.CheckSequence(sequence, problems);
         DispositionRules.Check(sequence, problems);
+        SettleRules.Check(sequence, problems);
         AccuracyRules.Check(sequence, problems);
         problems.AddIf(!SetpointOrders.All.Contains(sequence.SetpointOrder, StringComparer.Ordinal), "$.setpointOrder",
             $"'{sequence.SetpointOrder}' is not a setpoint order: use {string.Join(" or ", SetpointOrders.All.Select(o => $"\"{o}\""))}");

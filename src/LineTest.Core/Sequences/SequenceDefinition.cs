@@ -42,6 +42,9 @@ public sealed record SequenceDefinition
     /// <summary>How long units soak once the source is stable.</summary>
     public required SoakSettings Soak { get; init; }
 
+    /// <summary>How the station decides the source and units have settled (window mode when absent).</summary>
+    public SettleSettings? Settle { get; init; }
+
     /// <summary>The reference temperatures the sequence asks for.</summary>
     public required IReadOnlyList<SetpointDefinition> Setpoints { get; init; }
 

@@ -8,4 +8,7 @@ public sealed record SetpointDefinition
 
     /// <summary>Temperature, °C. Must lie inside the fixture's safe range.</summary>
     public required double Celsius { get; init; }
+
+    /// <summary>This setpoint's own settle settings, replacing the sequence's <c>settle</c>; null keeps the sequence's.</summary>
+    public SettleSettings? Settle { get; init; }
 }

@@ -1,0 +1,33 @@
+namespace LineTest.Core.Stability;
+
+/// <summary>What an <see cref="ExponentialApproachFit"/> found: y(t) = FinalValue + Amplitude·exp(−t/τ), t from the first reading.</summary>
+/// <param name="Converged">True when a minimum was found inside the searched time-constant range with a usable covariance.</param>
+/// <param name="FinalValue">The extrapolated final value y∞ (NaN when not converged).</param>
+/// <param name="FinalValueStandardUncertainty">u(y∞) from the fit's covariance scaled by the residual variance.</param>
+/// <param name="Amplitude">A = y(0) − y∞.</param>
+/// <param name="TimeConstantSeconds">τ, seconds.</param>
+/// <param name="TimeConstantStandardUncertainty">u(τ), seconds.</param>
+/// <param name="ResidualRms">Root mean square of the residuals.</param>
+/// <param name="Readings">How many readings were fitted.</param>
+/// <param name="RunsZScore">Runs-test z-score of the residual signs (strongly negative: a shape the model lacks).</param>
+/// <param name="Disturbed">True when the residuals show a disturbance (runs test or size against the expected noise).</param>
+/// <param name="Why">Plain words: converged, a disturbance, or why there is no fit.</param>
+public sealed record ExponentialApproachResult(
+    bool Converged,
+    double FinalValue,
+    double FinalValueStandardUncertainty,
+    double Amplitude,
+    double TimeConstantSeconds,
+    double TimeConstantStandardUncertainty,
+    double ResidualRms,
+    int Readings,
+    double RunsZScore,
+    bool Disturbed,
+    string Why)
+{
+    /// <summary>True when the fit can be used to predict: converged and undisturbed.</summary>
+    public bool IsUsable => Converged && !Disturbed;
+
+    internal static ExponentialApproachResult NotConverged(int readings, string why) =>
+        new(false, double.NaN, double.NaN, double.NaN, double.NaN, double.NaN, double.NaN, readings, 0, false, why);
+}

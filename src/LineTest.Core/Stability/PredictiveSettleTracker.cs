@@ -1,0 +1,74 @@
+namespace LineTest.Core.Stability;
+
+/// <summary>
+/// Follows one approach (the reference, or one unit) reading by reading and says when a predictive settle may take its
+/// reading: it fits the readings of the last <see cref="FitSpanSeconds"/> (so the ramp before the first-order tail drops
+/// out of the fit) and decides with <see cref="PredictiveSettle.Decide"/>. Misfit before any usable fit means the
+/// readings are not yet a first-order approach (still ramping): keep waiting. Misfit after a usable fit is a
+/// disturbance (a door opened, a unit inserted late): fall back, and stay fallen back for this setpoint. Not thread-safe;
+/// one tracker per approach.
+/// </summary>
+public sealed class PredictiveSettleTracker
+{
+    private readonly Queue<(double Seconds, double Value)> _readings = new();
+    private readonly double _setpointC;
+    private readonly double _maxOffsetFromSetpointC;
+    private readonly double _maxUncertaintyC;
+    private readonly ExponentialFitOptions _options;
+    private bool _sawUsableFit;
+
+    /// <summary>Creates a tracker.</summary>
+    /// <param name="setpointC">The setpoint, °C.</param>
+    /// <param name="maxOffsetFromSetpointC">Largest allowed |predicted − setpoint|, °C.</param>
+    /// <param name="maxUncertaintyC">Largest allowed u(y∞), °C.</param>
+    /// <param name="fitSpanSeconds">How far back the fit reaches, seconds; at least a time constant of the approach.</param>
+    /// <param name="options">Fit settings; defaults when null.</param>
+    public PredictiveSettleTracker(double setpointC, double maxOffsetFromSetpointC, double maxUncertaintyC, double fitSpanSeconds, ExponentialFitOptions? options = null)
+    {
+        ArgumentOutOfRangeException.ThrowIfNegativeOrZero(maxOffsetFromSetpointC);
+        ArgumentOutOfRangeException.ThrowIfNegativeOrZero(maxUncertaintyC);
+        ArgumentOutOfRangeException.ThrowIfNegativeOrZero(fitSpanSeconds);
+        _setpointC = setpointC;
+        _maxOffsetFromSetpointC = maxOffsetFromSetpointC;
+        _maxUncertaintyC = maxUncertaintyC;
+        FitSpanSeconds = fitSpanSeconds;
+        _options = options ?? ExponentialFitOptions.Default;
+    }
+
+    /// <summary>How far back the fit reaches, seconds.</summary>
+    public double FitSpanSeconds { get; }
+
+    /// <summary>The latest decision, null before the first reading.</summary>
+    public PredictiveSettleDecision? Last { get; private set; }
+
+    /// <summary>True once the tracker has fallen back; it then stays so.</summary>
+    public bool FellBack => Last?.Outcome == PredictiveSettleOutcome.FallBack;
+
+    /// <summary>Adds a reading (time-ordered seconds, value) and decides again.</summary>
+    public PredictiveSettleDecision Add(double seconds, double value)
+    {
+        if (FellBack)
+        {
+            return Last!;
+        }
+
+        _readings.Enqueue((seconds, value));
+        while (_readings.Count > ExponentialApproachFit.MinimumReadings && seconds - _readings.Peek().Seconds > FitSpanSeconds)
+        {
+            _readings.Dequeue();
+        }
+
+        var readings = _readings.ToArray();
+        var fit = ExponentialApproachFit.Fit(readings, _options);
+        var span = readings[^1].Seconds - readings[0].Seconds;
+        var decision = PredictiveSettle.Decide(fit, span, _setpointC, _maxOffsetFromSetpointC, _maxUncertaintyC);
+        if (decision.Outcome == PredictiveSettleOutcome.FallBack && fit.Disturbed && !_sawUsableFit)
+        {
+            decision = decision with { Outcome = PredictiveSettleOutcome.KeepWaiting, Why = $"not yet a first-order approach ({decision.Why})" };
+        }
+
+        _sawUsableFit |= fit.IsUsable;
+        Last = decision;
+        return decision;
+    }
+}
