@@ -44,24 +44,13 @@ internal static class DacTrimExecutor
             trim.GainCode >= spec.Gain.Min && trim.GainCode <= spec.Gain.Max ? Verdict.Pass : Verdict.Fail) { Step = name, At = now });
         unit.Add(new Reading($"{name}.offsetCode", trim.OffsetCode, "count", spec.Offset.Min, spec.Offset.Max,
             trim.OffsetCode >= spec.Offset.Min && trim.OffsetCode <= spec.Offset.Max ? Verdict.Pass : Verdict.Fail) { Step = name, At = now });
-        foreach (var predicted in trim.PredictedErrors)
+        if (!TrimInputs.RecordPrediction(sequence, step, unit, trim, curve, instruments.Fixture, now))
         {
-            unit.Add(UnlimitedReading.Create($"{name}.predicted.{predicted.Name}", predicted.ErrorC, "degC") with { Step = name, At = now });
-        }
-
-        TrimInputs.AddBudget(sequence, step, unit, trim, curve, instruments.Fixture, now);
-
-        if (!trim.InRange)
-        {
-            unit.FirstFailureReason = $"trim out of range: {string.Join("; ", trim.Problems)}";
             return;
         }
 
         var values = trim.Registers.ToDictionary(r => r.Key, r => r.Value, StringComparer.Ordinal);
-        await instruments.LinkAsync(unit.Slot, (link, token) => link.WriteTrimAsync(values, token), ct).ConfigureAwait(false);
-        await instruments.DelayAsync(instruments.Timing.UnitStoreSeconds, ct).ConfigureAwait(false);
-        await instruments.LinkAsync(unit.Slot, (link, token) => link.StoreAsync(token), ct).ConfigureAwait(false);
-        var readBack = await instruments.LinkAsync(unit.Slot, (link, token) => link.ReadBackAsync(token), ct).ConfigureAwait(false);
+        var readBack = await TrimInputs.WriteStoreReadBackAsync(instruments, unit.Slot, values, ct).ConfigureAwait(false);
         foreach (var (register, value) in values)
         {
             if (!readBack.TryGetValue(register, out var stored) || stored != value)

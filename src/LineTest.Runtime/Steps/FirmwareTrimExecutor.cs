@@ -46,24 +46,13 @@ internal static class FirmwareTrimExecutor
                 inRange ? Verdict.Pass : Verdict.Fail) { Step = name, At = now });
         }
 
-        foreach (var predicted in trim.PredictedErrors)
+        if (!TrimInputs.RecordPrediction(sequence, step, unit, trim, curve, instruments.Fixture, now))
         {
-            unit.Add(UnlimitedReading.Create($"{name}.predicted.{predicted.Name}", predicted.ErrorC, "degC") with { Step = name, At = now });
-        }
-
-        TrimInputs.AddBudget(sequence, step, unit, trim, curve, instruments.Fixture, now);
-
-        if (!trim.InRange)
-        {
-            unit.FirstFailureReason = $"trim out of range: {string.Join("; ", trim.Problems)}";
             return;
         }
 
         var values = trim.Registers.ToDictionary(r => r.Register, r => r.Value, StringComparer.Ordinal);
-        await instruments.LinkAsync(unit.Slot, (link, token) => link.WriteTrimAsync(values, token), ct).ConfigureAwait(false);
-        await instruments.DelayAsync(instruments.Timing.UnitStoreSeconds, ct).ConfigureAwait(false);
-        await instruments.LinkAsync(unit.Slot, (link, token) => link.StoreAsync(token), ct).ConfigureAwait(false);
-        var readBack = await instruments.LinkAsync(unit.Slot, (link, token) => link.ReadBackAsync(token), ct).ConfigureAwait(false);
+        var readBack = await TrimInputs.WriteStoreReadBackAsync(instruments, unit.Slot, values, ct).ConfigureAwait(false);
         var check = FirmwareTrim.CheckReadBack(trim, readBack);
         if (!check.Succeeded)
         {

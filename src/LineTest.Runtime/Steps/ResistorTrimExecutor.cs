@@ -42,20 +42,8 @@ internal static class ResistorTrimExecutor
         unit.Add(UnlimitedReading.Create($"{name}.slope", trim.Fit.Slope * 1000, "mV/degC") with { Step = name, At = now });
         AddPosition(unit, name, now, trim.Gain, spec.Gain.MinOhms, spec.Gain.MaxOhms);
         AddPosition(unit, name, now, trim.Offset, spec.Offset.MinOhms, spec.Offset.MaxOhms);
-        foreach (var predicted in trim.PredictedErrors)
+        if (!TrimInputs.RecordPrediction(sequence, step, unit, trim, curve, instruments.Fixture, now))
         {
-            unit.Add(UnlimitedReading.Create($"{name}.predicted.{predicted.Name}", predicted.ErrorC, "degC") with { Step = name, At = now });
-            if (predicted.WorstCaseErrorC is { } worst)
-            {
-                unit.Add(UnlimitedReading.Create($"{name}.predicted.{predicted.Name}.worstCase", worst, "degC") with { Step = name, At = now });
-            }
-        }
-
-        TrimInputs.AddBudget(sequence, step, unit, trim, curve, instruments.Fixture, now);
-
-        if (!trim.InRange)
-        {
-            unit.FirstFailureReason = $"trim out of range: {string.Join("; ", trim.Problems)}";
             return;
         }
 

@@ -4,6 +4,8 @@ using LineTest.Core.Fixtures;
 using LineTest.Core.Sequences;
 using LineTest.Core.Trims;
 using LineTest.Runtime.Batches;
+using LineTest.Runtime.Instruments;
+using LineTest.Runtime.Judging;
 
 namespace LineTest.Runtime.Steps;
 
@@ -89,5 +91,42 @@ internal static class TrimInputs
         {
             unit.Add(reading);
         }
+    }
+
+    /// <summary>
+    /// Records a computed trim's predicted errors (and worst cases, where the trim gives them) and its budget over the
+    /// rated range; false, with the unit's first failure reason set, when the trim is out of range and must not be applied.
+    /// </summary>
+    public static bool RecordPrediction(
+        SequenceDefinition sequence, TrimStep step, UnitContext unit, ITrimResult trim, SensorCurve? curve, FixtureDefinition fixture, DateTimeOffset now)
+    {
+        var name = step.DisplayName;
+        foreach (var predicted in trim.PredictedErrors)
+        {
+            unit.Add(UnlimitedReading.Create($"{name}.predicted.{predicted.Name}", predicted.ErrorC, "degC") with { Step = name, At = now });
+            if (predicted.WorstCaseErrorC is { } worst)
+            {
+                unit.Add(UnlimitedReading.Create($"{name}.predicted.{predicted.Name}.worstCase", worst, "degC") with { Step = name, At = now });
+            }
+        }
+
+        AddBudget(sequence, step, unit, trim, curve, fixture, now);
+        if (trim.InRange)
+        {
+            return true;
+        }
+
+        unit.FirstFailureReason = $"trim out of range: {string.Join("; ", trim.Problems)}";
+        return false;
+    }
+
+    /// <summary>Writes trim registers over the unit's link, stores them, and returns what the unit reads back.</summary>
+    public static async Task<IReadOnlyDictionary<string, long>> WriteStoreReadBackAsync(
+        InstrumentGateway instruments, int slot, IReadOnlyDictionary<string, long> values, CancellationToken ct)
+    {
+        await instruments.LinkAsync(slot, (link, token) => link.WriteTrimAsync(values, token), ct).ConfigureAwait(false);
+        await instruments.DelayAsync(instruments.Timing.UnitStoreSeconds, ct).ConfigureAwait(false);
+        await instruments.LinkAsync(slot, (link, token) => link.StoreAsync(token), ct).ConfigureAwait(false);
+        return await instruments.LinkAsync(slot, (link, token) => link.ReadBackAsync(token), ct).ConfigureAwait(false);
     }
 }
