@@ -78,7 +78,8 @@ public static class HtmlReportWriter
         th, td { padding: 4px 5px; border-bottom: 1px solid var(--line); text-align: right; white-space: nowrap; }
         th:first-child, td:first-child { text-align: left; white-space: normal; }
         th { background: #eef2f6; font-weight: 600; white-space: normal; vertical-align: bottom; }
-        td.covers { white-space: normal; text-align: left; font-size: 11px; min-width: 7em; }
+        td.covers { white-space: normal; font-size: 11px; min-width: 9.5em; }
+        .covers, th.sig { text-align: left; }
         .wide { max-width: 100%; overflow-x: auto; }
         td.low { color: var(--bad); font-weight: 600; }
         .bad { color: var(--bad); }
@@ -190,7 +191,7 @@ public static class HtmlReportWriter
         var label = ReportText.Labeller(report);
         // Twelve columns in a 960 px column (186 mm in print): headings and the text columns wrap, reading names break
         // after their dots, numbers never; on a narrower screen the table scrolls inside its box, not the page.
-        h.Append("<div class=\"wide\"><table>\n<tr><th>Reading</th><th>Covers</th><th>n</th><th>Mean</th><th>SD overall</th><th>Cpk</th><th>Cpk 95 %</th><th>Ppk</th><th>Ppk pct</th><th>ppm obs</th><th>ppm exp</th><th>Signals</th></tr>\n");
+        h.Append("<div class=\"wide\"><table>\n<tr><th>Reading</th><th class=\"covers\">Covers</th><th>n</th><th>Mean</th><th>SD overall</th><th>Cpk</th><th>Cpk 95 %</th><th>Ppk</th><th>Ppk pct</th><th>ppm obs</th><th>ppm exp</th><th class=\"sig\">Signals</th></tr>\n");
         foreach (var r in report.Readings)
         {
             var c = r.Capability;
