@@ -83,17 +83,20 @@ internal static class WebPageEndpoints
 
     private static async Task<IResult> YieldAsync(HttpContext context, IResultsSource source, ShiftCalendar shifts, TimeProvider time)
     {
+        // Without dates, the last days only: the source reads that window (SQL), never every run stored.
         return await Guarded(context, source, time, "Yield", "/yield", async (filters, products, query) =>
         {
             var data = await source.LoadAsync(query with { GroupBy = ReportGrouping.Day }, withReadings: false, context.RequestAborted).ConfigureAwait(false);
             var report = ReportBuilder.Build(data, query, time);
-            return YieldPage.Main(filters.Form("/yield", products), report, YieldPage.ByShift(data.Runs, shifts), Html.Query(filters.Pairs()));
-        }).ConfigureAwait(false);
+            var form = filters.Form("/yield", products) + (filters.IsDefaultWindow ? YieldPage.DefaultWindowNote(filters) : string.Empty);
+            return YieldPage.Main(form, report, YieldPage.ByShift(data.Runs, shifts), Html.Query(filters.Pairs()));
+        }, filters => filters.WithDefaultWindow(time.GetUtcNow())).ConfigureAwait(false);
     }
 
     private static async Task<IResult> ParetoSvgAsync(HttpContext context, IResultsSource source, TimeProvider time)
     {
-        var (query, _) = PageFilters.Read(context.Request.Query).ToQuery(await source.ReadProductsAsync(context.RequestAborted).ConfigureAwait(false));
+        var (query, _) = PageFilters.Read(context.Request.Query).WithDefaultWindow(time.GetUtcNow())
+            .ToQuery(await source.ReadProductsAsync(context.RequestAborted).ConfigureAwait(false));
         if (query is null)
         {
             return Results.BadRequest();
@@ -196,11 +199,13 @@ internal static class WebPageEndpoints
         TimeProvider time,
         string title,
         string section,
-        Func<PageFilters, IReadOnlyList<Storage.Sqlite.ProductSequence>, ReportQuery, Task<string>> render)
+        Func<PageFilters, IReadOnlyList<Storage.Sqlite.ProductSequence>, ReportQuery, Task<string>> render,
+        Func<PageFilters, PageFilters>? defaults = null)
     {
         try
         {
             var filters = PageFilters.Read(context.Request.Query);
+            filters = defaults?.Invoke(filters) ?? filters;
             var products = await source.ReadProductsAsync(context.RequestAborted).ConfigureAwait(false);
             var (query, problems) = filters.ToQuery(products);
             if (query is null)

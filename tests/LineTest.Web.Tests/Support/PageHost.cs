@@ -25,12 +25,16 @@ internal sealed class PageHost : IAsyncDisposable
 
     public const string Token = "correct-horse-battery-staple-7d3f";
 
-    private PageHost(string root, WebApplication app, RecordingLoggerProvider log)
+    private PageHost(string root, WebApplication app, RecordingLoggerProvider log, QueryRecordingSource source)
     {
         Root = root;
         App = app;
         Log = log;
+        Source = source;
     }
+
+    /// <summary>The page's source, recording what the page loads.</summary>
+    public QueryRecordingSource Source { get; }
 
     public string Root { get; }
 
@@ -50,17 +54,15 @@ internal sealed class PageHost : IAsyncDisposable
         await WriteAsync(Path.Combine(root, "st02"), StationBRuns());
         var log = new RecordingLoggerProvider();
         var loggers = LoggerFactory.Create(b => b.AddProvider(log).SetMinimumLevel(LogLevel.Information));
-        var setup = new WebPageSetup(
-            ListenAddress.Parse(listen, out _)!,
-            options ?? new WebPageOptions(),
-            new SqliteFolderSource([Path.Combine(root, "st01"), Path.Combine(root, "st02")]))
+        var source = new QueryRecordingSource(new SqliteFolderSource([Path.Combine(root, "st01"), Path.Combine(root, "st02")]));
+        var setup = new WebPageSetup(ListenAddress.Parse(listen, out _)!, options ?? new WebPageOptions(), source)
         {
             Time = new FakeTimeProvider(Now),
             Loggers = loggers,
         };
         var app = WebPageApp.Create(setup, b => b.WebHost.UseTestServer());
         await app.StartAsync();
-        return new PageHost(root, app, log);
+        return new PageHost(root, app, log, source);
     }
 
     /// <summary>verify.error of unit <paramref name="i"/>: spread deterministically around 0.02 °C.</summary>
