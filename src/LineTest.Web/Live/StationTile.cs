@@ -1,4 +1,5 @@
 using LineTest.Core.Results;
+using LineTest.Factory.Reporting;
 
 namespace LineTest.Web.Live;
 
@@ -43,4 +44,7 @@ public sealed record StationTile
 
     /// <summary>Why the last run failed or erred.</summary>
     public string? LastReason { get; init; }
+
+    /// <summary>What the factory database holds of the station (forwarding), when the page reads the factory database.</summary>
+    public FactoryStationHead? Factory { get; init; }
 }
