@@ -49,12 +49,25 @@ internal sealed class PageHost : IAsyncDisposable
     /// <summary>ST-01: 20 units from 06:10, three failing verify.error and retested to pass, one error; ST-02: 5 units of lot L-B.</summary>
     public static async Task<PageHost> StartAsync(WebPageOptions? options = null, string listen = "127.0.0.1:0")
     {
+        var root = await WriteStationsAsync();
+        return await StartAsync(root, new SqliteFolderSource([Path.Combine(root, "st01"), Path.Combine(root, "st02")]), options, listen);
+    }
+
+    /// <summary>A temporary folder with the two stations' results folders <c>st01</c> and <c>st02</c>.</summary>
+    public static async Task<string> WriteStationsAsync()
+    {
         var root = Directory.CreateTempSubdirectory("linetest-web-").FullName;
         await WriteAsync(Path.Combine(root, "st01"), StationARuns());
         await WriteAsync(Path.Combine(root, "st02"), StationBRuns());
+        return root;
+    }
+
+    /// <summary>The page over <paramref name="inner"/> (e.g. the factory database); <paramref name="root"/> is deleted at the end.</summary>
+    public static async Task<PageHost> StartAsync(string root, IResultsSource inner, WebPageOptions? options = null, string listen = "127.0.0.1:0")
+    {
         var log = new RecordingLoggerProvider();
         var loggers = LoggerFactory.Create(b => b.AddProvider(log).SetMinimumLevel(LogLevel.Information));
-        var source = new QueryRecordingSource(new SqliteFolderSource([Path.Combine(root, "st01"), Path.Combine(root, "st02")]));
+        var source = new QueryRecordingSource(inner);
         var setup = new WebPageSetup(ListenAddress.Parse(listen, out _)!, options ?? new WebPageOptions(), source)
         {
             Time = new FakeTimeProvider(Now),

@@ -10,6 +10,8 @@ internal sealed class QueryRecordingSource(IResultsSource inner) : IResultsSourc
 {
     public ConcurrentQueue<(ReportQuery Query, bool WithReadings)> Loads { get; } = new();
 
+    public IResultsSource Inner => inner;
+
     public string Description => inner.Description;
 
     public Task<string> ReadChangeMarkAsync(CancellationToken ct) => inner.ReadChangeMarkAsync(ct);
