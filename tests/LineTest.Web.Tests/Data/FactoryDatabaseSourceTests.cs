@@ -85,6 +85,7 @@ public sealed partial class FactoryDatabaseSourceTests : IAsyncLifetime
 
         var (_, before, _) = await _factory!.SendAsync("/");
         await ForwardAsync(_connection, st02);
+        _factory.Clock.Advance(TimeSpan.FromSeconds(5)); // past the line page's shared look (half the refresh interval)
         var (_, after, _) = await _factory.SendAsync("/");
 
         Assert.Equal("5", Figure(Tile(before, "ST-02"), "factory-runs"));

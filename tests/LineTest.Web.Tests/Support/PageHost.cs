@@ -25,13 +25,17 @@ internal sealed class PageHost : IAsyncDisposable
 
     public const string Token = "correct-horse-battery-staple-7d3f";
 
-    private PageHost(string root, WebApplication app, RecordingLoggerProvider log, QueryRecordingSource source)
+    private PageHost(string root, WebApplication app, RecordingLoggerProvider log, QueryRecordingSource source, FakeTimeProvider clock)
     {
+        Clock = clock;
         Root = root;
         App = app;
         Log = log;
         Source = source;
     }
+
+    /// <summary>The page's clock, starting at <see cref="Now"/>.</summary>
+    public FakeTimeProvider Clock { get; }
 
     /// <summary>The page's source, recording what the page loads.</summary>
     public QueryRecordingSource Source { get; }
@@ -68,14 +72,15 @@ internal sealed class PageHost : IAsyncDisposable
         var log = new RecordingLoggerProvider();
         var loggers = LoggerFactory.Create(b => b.AddProvider(log).SetMinimumLevel(LogLevel.Information));
         var source = new QueryRecordingSource(inner);
+        var clock = new FakeTimeProvider(Now);
         var setup = new WebPageSetup(ListenAddress.Parse(listen, out _)!, options ?? new WebPageOptions(), source)
         {
-            Time = new FakeTimeProvider(Now),
+            Time = clock,
             Loggers = loggers,
         };
         var app = WebPageApp.Create(setup, b => b.WebHost.UseTestServer());
         await app.StartAsync();
-        return new PageHost(root, app, log, source);
+        return new PageHost(root, app, log, source, clock);
     }
 
     /// <summary>verify.error of unit <paramref name="i"/>: spread deterministically around 0.02 °C.</summary>
