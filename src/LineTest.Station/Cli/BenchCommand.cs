@@ -34,10 +34,12 @@ public static class BenchCommand
         {
             Description = "Instead of throughput: the shift of --shift-units with the live page closed and served in this process and polled, in --pairs alternating pairs",
         };
+        var lineSeconds = new Option<double>("--page-line-seconds") { Description = "With --page: seconds between fetches of the line page", DefaultValueFactory = _ => 1 };
+        var yieldSeconds = new Option<double>("--page-yield-seconds") { Description = "With --page: seconds between fetches of the yield page and a serial search", DefaultValueFactory = _ => 5 };
         var pairs = new Option<int>("--pairs") { Description = "Pairs of shifts (page closed, page open) for --page, after one warm-up pair", DefaultValueFactory = _ => 5 };
         var command = new Command("bench", "Simulated throughput against the baseline and the thermal bound, and the engine's own cost")
         {
-            sequences, fixture, batches, shiftUnits, json, accuracy, accuracyBatches, page, pairs,
+            sequences, fixture, batches, shiftUnits, json, accuracy, accuracyBatches, page, pairs, lineSeconds, yieldSeconds,
         };
         command.SetAction(async (parse, ct) =>
         {
@@ -94,7 +96,7 @@ public static class BenchCommand
 
             if (parse.GetValue(page))
             {
-                return await PageBenchOutput.RunAsync(context, fx, loaded[0].Sequence, loaded[0].Sha256, shiftCount, parse.GetValue(pairs), parse.GetValue(json), ct)
+                return await PageBenchOutput.RunAsync(context, fx, loaded[0].Sequence, loaded[0].Sha256, shiftCount, parse.GetValue(pairs), (parse.GetValue(lineSeconds), parse.GetValue(yieldSeconds)), parse.GetValue(json), ct)
                     .ConfigureAwait(false);
             }
 

@@ -10,11 +10,16 @@ namespace LineTest.Station.Cli;
 internal static class PageBenchOutput
 {
     public static async Task<int> RunAsync(
-        CliContext context, FixtureDefinition fixture, SequenceDefinition sequence, string sha256, int units, int pairs, bool json, CancellationToken ct)
+        CliContext context, FixtureDefinition fixture, SequenceDefinition sequence, string sha256, int units, int pairs, (double Line, double Yield) everySeconds, bool json, CancellationToken ct)
     {
         if (units < 1)
         {
             return context.BadInput($"--page needs --shift-units of 1 or more, not {units}");
+        }
+
+        if (!(everySeconds.Line >= 0.1) || !(everySeconds.Yield >= 0.1))
+        {
+            return context.BadInput("--page-line-seconds and --page-yield-seconds must be 0.1 or more");
         }
 
         if (pairs < 1)
@@ -23,8 +28,9 @@ internal static class PageBenchOutput
         }
 
         var progress = json ? TextWriter.Null : context.Output;
-        progress.WriteLine($"Shift of {units} units ({sequence.Id}) with the live page closed and open, {pairs} pairs after one warm-up pair:");
-        var rounds = await PageBench.RunAsync(fixture, sequence, sha256, units, pairs, context.Options.SimulatorSeed, context.Loggers, progress, ct)
+        progress.WriteLine(string.Create(CultureInfo.InvariantCulture,
+            $"Shift of {units} units ({sequence.Id}) with the live page closed and open (live events, line page every {everySeconds.Line} s, yield and a search every {everySeconds.Yield} s), {pairs} pairs after one warm-up pair:"));
+        var rounds = await PageBench.RunAsync(fixture, sequence, sha256, units, pairs, context.Options.SimulatorSeed, everySeconds, context.Loggers, progress, ct)
             .ConfigureAwait(false);
         var closed = rounds.Where(r => !r.PageOpen).ToList();
         var open = rounds.Where(r => r.PageOpen).ToList();
@@ -43,6 +49,8 @@ internal static class PageBenchOutput
                 sequence = sequence.Id,
                 units,
                 pairs,
+                lineEverySeconds = everySeconds.Line,
+                yieldEverySeconds = everySeconds.Yield,
                 medianWallSecondsClosed = Math.Round(wallClosed, 3),
                 medianWallSecondsOpen = Math.Round(wallOpen, 3),
                 medianCpuSecondsClosed = Math.Round(cpuClosed, 3),

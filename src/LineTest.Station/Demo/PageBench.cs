@@ -12,21 +12,15 @@ namespace LineTest.Station.Demo;
 /// pairs, with the page closed (nobody looking) and open and polled, the order alternating from pair to pair so that a
 /// machine's load drifting over the run falls on both sides. As in a station, the page is served by this process and
 /// started once, before the first shift; each shift writes a fresh results folder, which the page is switched to.
-/// Polled means: the line page open on its live events, the line page fetched every <see cref="LineEverySeconds"/>,
-/// the yield page and a serial search every <see cref="YieldEverySeconds"/>: far more often than people look.
+/// Polled means: the line page open on its live events, the line page fetched every <c>lineEverySeconds</c>, the
+/// yield page and a serial search every <c>yieldEverySeconds</c> (by default 1 s and 5 s: far more often than people look).
 /// </summary>
 public static class PageBench
 {
-    /// <summary>Seconds between fetches of the line page while the page is open.</summary>
-    public const double LineEverySeconds = 1;
-
-    /// <summary>Seconds between fetches of the yield page and of a serial search while the page is open.</summary>
-    public const double YieldEverySeconds = 5;
-
     /// <summary>Runs <paramref name="pairs"/> pairs of shifts of <paramref name="units"/> units, after one pair not counted (warm-up).</summary>
     public static async Task<IReadOnlyList<PageBenchRound>> RunAsync(
-        FixtureDefinition fixture, SequenceDefinition sequence, string sha256, int units, int pairs, int seed, ILoggerFactory loggers, TextWriter progress,
-        CancellationToken ct)
+        FixtureDefinition fixture, SequenceDefinition sequence, string sha256, int units, int pairs, int seed, (double Line, double Yield) everySeconds,
+        ILoggerFactory loggers, TextWriter progress, CancellationToken ct)
     {
         ArgumentNullException.ThrowIfNull(progress);
         ArgumentOutOfRangeException.ThrowIfNegativeOrZero(pairs);
@@ -48,7 +42,7 @@ public static class PageBench
                     var folder = Path.Combine(root, $"shift-{rounds.Count + (pair == 0 ? 100 : 1)}-{(open ? "open" : "closed")}");
                     Directory.CreateDirectory(folder);
                     var round = open
-                        ? await OpenAsync(client, source, fixture, sequence, sha256, units, seed, folder, loggers, rounds.Count + 1, ct).ConfigureAwait(false)
+                        ? await OpenAsync(client, source, fixture, sequence, sha256, units, seed, folder, everySeconds, loggers, rounds.Count + 1, ct).ConfigureAwait(false)
                         : new PageBenchRound(rounds.Count + 1, false, await ThroughputBench.ShiftAsync(fixture, sequence, sha256, units, seed, folder, loggers, ct).ConfigureAwait(false), 0, 0);
                     progress.WriteLine(string.Create(System.Globalization.CultureInfo.InvariantCulture,
                         $"  {(pair == 0 ? "warm-up" : "pair " + pair)}: page {(open ? "open  " : "closed")} wall {round.Shift.WallSeconds,7:F2} s  process CPU {round.Shift.CpuSeconds,7:F2} s  requests {round.Requests,4}  events {round.Events,4}"));
@@ -71,13 +65,13 @@ public static class PageBench
 
     private static async Task<PageBenchRound> OpenAsync(
         HttpClient client, SwitchableFolderSource source, FixtureDefinition fixture, SequenceDefinition sequence, string sha256, int units, int seed, string folder,
-        ILoggerFactory loggers, int number, CancellationToken ct)
+        (double Line, double Yield) everySeconds, ILoggerFactory loggers, int number, CancellationToken ct)
     {
         source.SwitchTo(folder);
         using var stop = CancellationTokenSource.CreateLinkedTokenSource(ct);
         var counts = new int[2]; // requests answered, events received
         var events = ListenAsync(client, counts, stop.Token);
-        var polls = PollAsync(client, counts, stop.Token);
+        var polls = PollAsync(client, counts, everySeconds, stop.Token);
         try
         {
             var shift = await ThroughputBench.ShiftAsync(fixture, sequence, sha256, units, seed, folder, loggers, ct).ConfigureAwait(false);
@@ -111,7 +105,7 @@ public static class PageBench
         }
     }
 
-    private static async Task PollAsync(HttpClient client, int[] counts, CancellationToken ct)
+    private static async Task PollAsync(HttpClient client, int[] counts, (double Line, double Yield) everySeconds, CancellationToken ct)
     {
         var clock = TimeProvider.System;
         var started = clock.GetTimestamp();
@@ -124,7 +118,7 @@ public static class PageBench
                 var paths = elapsed >= nextYield ? new[] { "/", "/yield", "/units?serial=CTP40" } : ["/"];
                 if (elapsed >= nextYield)
                 {
-                    nextYield += YieldEverySeconds;
+                    nextYield += everySeconds.Yield;
                 }
 
                 foreach (var path in paths)
@@ -134,7 +128,7 @@ public static class PageBench
                     Interlocked.Increment(ref counts[0]);
                 }
 
-                await Task.Delay(TimeSpan.FromSeconds(LineEverySeconds), clock, ct).ConfigureAwait(false);
+                await Task.Delay(TimeSpan.FromSeconds(everySeconds.Line), clock, ct).ConfigureAwait(false);
             }
         }
         catch (OperationCanceledException) when (ct.IsCancellationRequested)

@@ -1,3 +1,4 @@
+using LineTest.Factory.Forwarding;
 using LineTest.Factory.Reporting;
 using LineTest.Reports.Loading;
 using LineTest.Storage.Sqlite;
@@ -14,4 +15,7 @@ public sealed record StationRuns(string Name, string Where, RunTable Runs, LiveS
 {
     /// <summary>What the factory database holds of the station, when the runs are read from there; null for a results folder.</summary>
     public FactoryStationHead? Factory { get; init; }
+
+    /// <summary>The station's own forwarding backlog, when the page runs inside the station (<c>Station:Web:Listen</c>) and it forwards.</summary>
+    public FactoryBacklogStatus? Backlog { get; init; }
 }

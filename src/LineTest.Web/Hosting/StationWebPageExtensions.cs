@@ -42,7 +42,8 @@ public static class StationWebPageExtensions
             options,
             folder,
             provider.GetService<TimeProvider>() ?? TimeProvider.System,
-            provider.GetRequiredService<ILoggerFactory>())));
+            provider.GetRequiredService<ILoggerFactory>(),
+            provider.GetService<Factory.Forwarding.IFactoryBacklog>())));
         return true;
     }
 }

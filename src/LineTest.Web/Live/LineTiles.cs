@@ -81,6 +81,7 @@ public static class LineTiles
             LastEndedUtc = last >= 0 ? runs.EndedUtc(last) : null,
             LastReason = last >= 0 ? runs.Outcome(last) is { } o ? o.FailureName ?? o.ErrorReason : null : null,
             Factory = station.Factory,
+            Backlog = station.Backlog,
         };
     }
 

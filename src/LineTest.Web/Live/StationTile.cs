@@ -1,4 +1,5 @@
 using LineTest.Core.Results;
+using LineTest.Factory.Forwarding;
 using LineTest.Factory.Reporting;
 
 namespace LineTest.Web.Live;
@@ -47,4 +48,7 @@ public sealed record StationTile
 
     /// <summary>What the factory database holds of the station (forwarding), when the page reads the factory database.</summary>
     public FactoryStationHead? Factory { get; init; }
+
+    /// <summary>The station's own forwarding backlog (the page inside a forwarding station), or null.</summary>
+    public FactoryBacklogStatus? Backlog { get; init; }
 }

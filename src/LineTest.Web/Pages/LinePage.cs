@@ -63,6 +63,12 @@ internal static class LinePage
                 Forwarding(html, factory);
             }
 
+            if (t.Backlog is { } backlog)
+            {
+                // Counted by the station itself: runs stored and not yet committed by the factory database.
+                html.Append("<p class=\"backlog\" data-key=\"backlog\">").Append(Html.E(backlog.Describe())).Append("</p>");
+            }
+
             html.Append("<p class=\"where\">").Append(Html.E(t.Where)).Append("</p></section>");
         }
 

@@ -40,6 +40,24 @@ public sealed partial class WebPageEndpointsTests : IAsyncLifetime
     }
 
     [Fact]
+    public async Task Line_PageInsideAForwardingStation_TileShowsTheStationsOwnBacklog()
+    {
+        var backlog = new FixedBacklog(new LineTest.Factory.Forwarding.FactoryBacklogStatus(
+            3, new DateTimeOffset(2026, 12, 3, 9, 40, 0, TimeSpan.Zero), null, "connection refused", 4));
+        await using var host = await PageHost.StartAsync(
+            Directory.CreateTempSubdirectory("linetest-web-backlog-").FullName, new LineTest.Web.Data.SqliteFolderSource([_host.StationA], backlog));
+
+        var (_, waiting, _) = await host.SendAsync("/");
+        backlog.Current = new LineTest.Factory.Forwarding.FactoryBacklogStatus(0, null, PageHost.Now, null, 0);
+        host.Clock.Advance(TimeSpan.FromSeconds(5));
+        var (_, caughtUp, _) = await host.SendAsync("/");
+
+        Assert.Equal("factory: 3 run(s) waiting since 2026-12-03 09:40 UTC (connection refused; attempt 4)", Figure(Tile(waiting, "ST-01"), "backlog"));
+        Assert.Equal("factory: up to date", Figure(Tile(caughtUp, "ST-01"), "backlog"));
+        Assert.DoesNotContain("data-key=\"backlog\"", (await _host.SendAsync("/")).Body, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public async Task LineEvents_FirstEvent_CarriesTheTiles()
     {
         using var cancel = new CancellationTokenSource();
