@@ -39,29 +39,38 @@ public static class FactoryReportLoader
         data.AddSource(FactoryConnection.Describe(dataSource));
 
         // Every scan in one repeatable-read snapshot: stations forwarding meanwhile do not make runs, readings and
-        // counts disagree. The yield is counted on a second connection that shares the snapshot, at the same time as
-        // the runs and readings stream; where a snapshot cannot be shared (a server in recovery), one after the other.
-        await using var connection = await dataSource.OpenConnectionAsync(ct).ConfigureAwait(false);
-        await using var transaction = await connection.BeginTransactionAsync(System.Data.IsolationLevel.RepeatableRead, ct).ConfigureAwait(false);
+        // counts disagree. Other connections import the snapshot, so the yield is counted while the runs stream, and
+        // the months of readings stream on several connections at once; where a snapshot cannot be shared (a server
+        // in recovery), everything runs on the one connection, one after the other.
+        await using var session = await SharedSnapshot.OpenAsync(dataSource, ct).ConfigureAwait(false);
         Task<YieldTally>? counting = null;
-        NpgsqlConnection? second = null;
         try
         {
-            if (countYield)
+            if (countYield && session.Shared)
             {
-                (counting, second) = await StartCountingAsync(dataSource, connection, transaction, query, ct).ConfigureAwait(false);
+                counting = Task.Run(
+                    async () =>
+                    {
+                        var (connection, transaction) = await session.JoinAsync(ct).ConfigureAwait(false);
+                        return await FactoryYieldCounter.CountAsync(connection, transaction, query, ct).ConfigureAwait(false);
+                    },
+                    ct);
             }
 
-            var keys = await LoadRunsAsync(connection, transaction, query, data, countYield, ct).ConfigureAwait(false);
+            var readers = session.Shared
+                ? Task.WhenAll(Enumerable.Range(1, Math.Max(2, Environment.ProcessorCount) - 1).Select(_ => session.JoinAsync(ct)))
+                : Task.FromResult(Array.Empty<(NpgsqlConnection, NpgsqlTransaction)>());
+            var keys = await LoadRunsAsync(session.Connection, session.Transaction, query, data, countYield, ct).ConfigureAwait(false);
+            var connections = (await readers.ConfigureAwait(false)).Prepend((session.Connection, session.Transaction)).ToList();
             if (keys.Count > 0)
             {
-                await FactoryReadingStream.ReadAsync(connection, transaction, query, keys, data, ct).ConfigureAwait(false);
+                await FactoryReadingStream.ReadAsync(connections, query, keys, data, ct).ConfigureAwait(false);
             }
 
             if (countYield)
             {
                 data.Tally = counting is null
-                    ? await FactoryYieldCounter.CountAsync(connection, transaction, query, ct).ConfigureAwait(false)
+                    ? await FactoryYieldCounter.CountAsync(session.Connection, session.Transaction, query, ct).ConfigureAwait(false)
                     : await counting.ConfigureAwait(false);
                 if (query.FirstRunsOnly)
                 {
@@ -75,50 +84,10 @@ public static class FactoryReportLoader
         {
             if (counting is not null)
             {
-                // Observed even when the stream failed first, so its exception is not left unobserved.
+                // Waited for even when the stream failed first: its connection is closed with the session.
                 await Task.WhenAny(counting).ConfigureAwait(false);
             }
-
-            if (second is not null)
-            {
-                await second.DisposeAsync().ConfigureAwait(false);
-            }
         }
-    }
-
-    /// <summary>Starts counting the yield on a second connection that imports this transaction's snapshot.</summary>
-    private static async Task<(Task<YieldTally>? Counting, NpgsqlConnection? Second)> StartCountingAsync(
-        NpgsqlDataSource dataSource, NpgsqlConnection connection, NpgsqlTransaction transaction, ReportQuery query, CancellationToken ct)
-    {
-        string snapshot;
-        await transaction.SaveAsync("export", ct).ConfigureAwait(false);
-        try
-        {
-            await using var export = new NpgsqlCommand("SELECT pg_export_snapshot();", connection, transaction);
-            snapshot = (string)(await export.ExecuteScalarAsync(ct).ConfigureAwait(false))!;
-            await transaction.ReleaseAsync("export", ct).ConfigureAwait(false);
-        }
-        catch (PostgresException)
-        {
-            // E.g. "cannot export a snapshot during recovery" on an older hot standby: count on this connection afterwards.
-            await transaction.RollbackAsync("export", ct).ConfigureAwait(false);
-            return (null, null);
-        }
-
-        var second = await dataSource.OpenConnectionAsync(ct).ConfigureAwait(false);
-        var task = Task.Run(
-            async () =>
-            {
-                await using var secondTransaction = await second.BeginTransactionAsync(System.Data.IsolationLevel.RepeatableRead, ct).ConfigureAwait(false);
-                await using (var import = new NpgsqlCommand($"SET TRANSACTION SNAPSHOT '{snapshot.Replace("'", "''", StringComparison.Ordinal)}';", second, secondTransaction))
-                {
-                    await import.ExecuteNonQueryAsync(ct).ConfigureAwait(false);
-                }
-
-                return await FactoryYieldCounter.CountAsync(second, secondTransaction, query, ct).ConfigureAwait(false);
-            },
-            ct);
-        return (task, second);
     }
 
     private static async Task<RunIndex> LoadRunsAsync(

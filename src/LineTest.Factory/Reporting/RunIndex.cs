@@ -1,20 +1,15 @@
 namespace LineTest.Factory.Reporting;
 
 /// <summary>
-/// The loaded runs' keys in run order (end ticks, then station database and seq), so readings streamed in the same
-/// order find their run by walking forward, without a hash lookup per reading. Readings of runs that were not loaded
-/// (left out by slot, lot or sequence) are passed over.
+/// The loaded runs by key (station database, seq), so readings streamed in any order find their run's index in the
+/// <c>RunTable</c>. Built by one thread, then only read (from several at once).
 /// </summary>
 internal sealed class RunIndex
 {
-    private readonly List<long> _ticks = [];
-    private readonly List<Guid> _chains = [];
-    private readonly List<long> _seqs = [];
+    private const int SeqBits = 40;
+    private readonly Dictionary<Guid, long> _chains = [];
+    private readonly Dictionary<long, int> _runs = [];
     private readonly List<bool>? _firstRuns;
-    private int _position;
-    private Guid _lastChain;
-    private long _lastSeq = -1;
-    private int _lastRun = -1;
 
     /// <summary>Creates an empty index; <paramref name="firstRuns"/>: keep a first-run flag per run.</summary>
     public RunIndex(bool firstRuns)
@@ -26,47 +21,35 @@ internal sealed class RunIndex
     public bool[]? FirstRunFlags => _firstRuns?.ToArray();
 
     /// <summary>Number of runs.</summary>
-    public int Count => _ticks.Count;
+    public int Count => _runs.Count;
 
-    /// <summary>Adds the next run (in run order).</summary>
+    /// <summary>Earliest end of the runs (ticks), or 0 when none.</summary>
+    public long FirstTicks { get; private set; }
+
+    /// <summary>Latest end of the runs (ticks), or 0 when none.</summary>
+    public long LastTicks { get; private set; }
+
+    /// <summary>Adds the next run, whose index is the number of runs added before it.</summary>
     public void Add(long endedTicks, Guid chain, long seq, bool firstRun)
     {
+        if (!_chains.TryGetValue(chain, out var number))
+        {
+            number = _chains.Count;
+            _chains.Add(chain, number);
+        }
+
+        if (seq < 0 || seq >= 1L << SeqBits)
+        {
+            throw new InvalidDataException($"Run seq {seq} of station database {chain} is outside 0…2^{SeqBits}.");
+        }
+
+        FirstTicks = Count == 0 ? endedTicks : Math.Min(FirstTicks, endedTicks);
+        LastTicks = Count == 0 ? endedTicks : Math.Max(LastTicks, endedTicks);
+        _runs.Add((number << SeqBits) | seq, _runs.Count);
         _firstRuns?.Add(firstRun);
-        _ticks.Add(endedTicks);
-        _chains.Add(chain);
-        _seqs.Add(seq);
     }
 
-    /// <summary>
-    /// The index of the run (<paramref name="endedTicks"/>, <paramref name="chain"/>, <paramref name="seq"/>), or -1
-    /// when it was not loaded. Calls must come in run order.
-    /// </summary>
-    public int Find(long endedTicks, Guid chain, long seq)
-    {
-        if (seq == _lastSeq && chain == _lastChain)
-        {
-            return _lastRun;
-        }
-
-        while (_position < _ticks.Count && _ticks[_position] < endedTicks)
-        {
-            _position++;
-        }
-
-        _lastChain = chain;
-        _lastSeq = seq;
-        _lastRun = -1;
-
-        // Runs that ended at the same instant (two stations) are few: look through them.
-        for (var i = _position; i < _ticks.Count && _ticks[i] == endedTicks; i++)
-        {
-            if (_seqs[i] == seq && _chains[i] == chain)
-            {
-                _lastRun = i;
-                break;
-            }
-        }
-
-        return _lastRun;
-    }
+    /// <summary>The index of run (<paramref name="chain"/>, <paramref name="seq"/>), or -1 when it was not loaded.</summary>
+    public int Find(Guid chain, long seq) =>
+        _chains.TryGetValue(chain, out var number) && _runs.TryGetValue((number << SeqBits) | seq, out var run) ? run : -1;
 }
