@@ -1,5 +1,6 @@
 using System.Globalization;
 using LineTest.Core.Results;
+using LineTest.Factory.Forwarding;
 using Spectre.Console;
 using Spectre.Console.Rendering;
 
@@ -36,6 +37,14 @@ public static class ScreenRenderer
         var colour = caution.StartsWith("HOT", StringComparison.Ordinal) ? "red" : caution.StartsWith("COLD", StringComparison.Ordinal) ? "deepskyblue1" : "yellow";
         rows.Add(new Markup($"[bold {colour}]{E(caution)}[/]"));
         var used = 4;
+        if (s.Factory is { } factory)
+        {
+            // Waiting runs are safe in the station's own database: shown, in yellow while any wait, never as an alarm.
+            var text = factory.Describe();
+            rows.Add(new Markup($"[{(factory.Count == 0 && factory.Problem is null ? "grey" : "yellow")}]{E(text)}[/]"));
+            used += Lines(text);
+        }
+
         if (s.Alarm is { } alarm)
         {
             rows.Add(new Markup($"[bold white on red]{E(alarm)}[/]"));
@@ -83,6 +92,11 @@ public static class ScreenRenderer
     {
         ArgumentNullException.ThrowIfNull(s);
         var lines = new List<string> { Markup.Remove(SourceLine(s)) };
+        if (s.Factory is { } factory)
+        {
+            lines.Add(factory.Describe());
+        }
+
         if (s.Caution is { } caution)
         {
             lines.Add(caution);
