@@ -44,7 +44,7 @@ internal static class FactoryReadingStream
     }
 
     /// <summary>UTC month starts covering [first, last] ticks: each month is one partition of <c>readings</c>.</summary>
-    private static List<(DateTime From, DateTime To)> Months(long firstTicks, long lastTicks)
+    public static List<(DateTime From, DateTime To)> Months(long firstTicks, long lastTicks)
     {
         var months = new List<(DateTime, DateTime)>();
         var last = new DateTime(lastTicks, DateTimeKind.Utc);

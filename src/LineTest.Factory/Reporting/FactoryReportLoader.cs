@@ -57,11 +57,11 @@ public static class FactoryReportLoader
                     ct);
             }
 
-            var readers = session.Shared
-                ? Task.WhenAll(Enumerable.Range(1, Math.Max(2, Environment.ProcessorCount) - 1).Select(_ => session.JoinAsync(ct)))
-                : Task.FromResult(Array.Empty<(NpgsqlConnection, NpgsqlTransaction)>());
-            var keys = await LoadRunsAsync(session.Connection, session.Transaction, query, data, countYield, ct).ConfigureAwait(false);
-            var connections = (await readers.ConfigureAwait(false)).Prepend((session.Connection, session.Transaction)).ToList();
+            var others = session.Shared
+                ? await Task.WhenAll(Enumerable.Range(1, Math.Max(2, Environment.ProcessorCount) - 1).Select(_ => session.JoinAsync(ct))).ConfigureAwait(false)
+                : [];
+            var connections = others.Prepend((session.Connection, session.Transaction)).ToList();
+            var keys = await LoadRunsAsync(connections, query, data, countYield, ct).ConfigureAwait(false);
             if (keys.Count > 0)
             {
                 await FactoryReadingStream.ReadAsync(connections, query, keys, data, ct).ConfigureAwait(false);
@@ -90,14 +90,93 @@ public static class FactoryReportLoader
         }
     }
 
+    /// <summary>
+    /// Loads the runs into <paramref name="data"/> and returns their index: month by month on all
+    /// <paramref name="connections"/> at once, appended in month order (the run order), or in one query when first runs
+    /// are marked (a unit's first run may lie in an earlier month).
+    /// </summary>
     private static async Task<RunIndex> LoadRunsAsync(
-        NpgsqlConnection connection, NpgsqlTransaction transaction, ReportQuery query, ReportData data, bool countYield, CancellationToken ct)
+        IReadOnlyList<(NpgsqlConnection Connection, NpgsqlTransaction Transaction)> connections,
+        ReportQuery query,
+        ReportData data,
+        bool countYield,
+        CancellationToken ct)
+    {
+        var index = new RunIndex(countYield && query.FirstRunsOnly);
+        if (await BoundsAsync(connections[0].Connection, connections[0].Transaction, query, ct).ConfigureAwait(false) is not { } bounds)
+        {
+            return index;
+        }
+
+        IReadOnlyList<(DateTime From, DateTime To)?> months = query.FirstRunsOnly || connections.Count == 1
+            ? [null]
+            : [.. FactoryReadingStream.Months(bounds.First, bounds.Last).Select(m => ((DateTime, DateTime)?)m)];
+        var parts = new List<RunRow>[months.Count];
+        await Task.WhenAll(connections.Select((c, k) => Task.Run(
+            async () =>
+            {
+                for (var m = k; m < months.Count; m += connections.Count)
+                {
+                    parts[m] = await ReadRunsAsync(c.Connection, c.Transaction, query, countYield, months[m], ct).ConfigureAwait(false);
+                }
+            },
+            ct))).ConfigureAwait(false);
+
+        var runs = data.Runs;
+        for (var m = 0; m < parts.Length; m++)
+        {
+            foreach (var row in parts[m])
+            {
+                if (row.Product is { } product && !data.Products.ContainsKey(row.SequenceId))
+                {
+                    // The product of a sequence's first run, as the folder loader takes it.
+                    data.AddProduct(row.SequenceId, product);
+                }
+
+                var ended = new DateTimeOffset(row.EndedTicks, TimeSpan.Zero);
+                var run = countYield
+                    ? runs.AddWithoutOutcome(ended, row.Station, row.Slot, row.Lot, row.SequenceId, row.Revision)
+                    : runs.Add(row.Serial!, ended, row.Verdict, row.Station, row.Slot, row.Lot, row.SequenceId, row.Revision, row.Failure, row.Reason);
+                if (query.GroupBy == ReportGrouping.Operator)
+                {
+                    runs.SetOperator(run, row.Operator);
+                }
+
+                index.Add(row.EndedTicks, row.Chain, row.Seq, row.FirstRun);
+            }
+
+            parts[m] = [];
+        }
+
+        return index;
+    }
+
+    /// <summary>The first and last end (ticks) of the runs matching <paramref name="query"/>; null when none match.</summary>
+    private static async Task<(long First, long Last)?> BoundsAsync(NpgsqlConnection connection, NpgsqlTransaction transaction, ReportQuery query, CancellationToken ct)
     {
         await using var command = new NpgsqlCommand(string.Empty, connection, transaction) { CommandTimeout = 0 };
         var where = FactoryFilterSql.Where(query, "r", command, runConditions: true);
+        command.CommandText = $"SELECT min(r.ended_ticks), max(r.ended_ticks) FROM runs r{where};";
+        await using var reader = await command.ExecuteReaderAsync(ct).ConfigureAwait(false);
+        return await reader.ReadAsync(ct).ConfigureAwait(false) && !reader.IsDBNull(0) ? (reader.GetInt64(0), reader.GetInt64(1)) : null;
+    }
+
+    private static async Task<List<RunRow>> ReadRunsAsync(
+        NpgsqlConnection connection, NpgsqlTransaction transaction, ReportQuery query, bool countYield, (DateTime From, DateTime To)? month, CancellationToken ct)
+    {
+        await using var command = new NpgsqlCommand(string.Empty, connection, transaction) { CommandTimeout = 0 };
+        var where = FactoryFilterSql.Where(query, "r", command, runConditions: true);
+        if (month is { } range)
+        {
+            command.Parameters.Add(new NpgsqlParameter("month_from", NpgsqlTypes.NpgsqlDbType.TimestampTz) { Value = range.From });
+            command.Parameters.Add(new NpgsqlParameter("month_to", NpgsqlTypes.NpgsqlDbType.TimestampTz) { Value = range.To });
+            where = (where.Length == 0 ? " WHERE " : where + " AND ") + "r.ended_utc >= @month_from AND r.ended_utc < @month_to";
+        }
+
         var operators = query.GroupBy == ReportGrouping.Operator;
+        var firstRuns = countYield && query.FirstRunsOnly;
         var outcome = countYield
-            ? query.FirstRunsOnly ? $", row_number() OVER (PARTITION BY r.serial ORDER BY {FactoryYieldCounter.RunOrder("r")}) = 1" : string.Empty
+            ? firstRuns ? $", row_number() OVER (PARTITION BY r.serial ORDER BY {FactoryYieldCounter.RunOrder("r")}) = 1" : string.Empty
             : ", r.serial, r.verdict, r.first_failing_reading, r.reason";
         command.CommandText = $"""
             SELECT r.chain_id, r.station_seq, r.ended_ticks, r.station, r.slot, r.lot, r.sequence_id, r.sequence_revision,
@@ -105,51 +184,42 @@ public static class FactoryReportLoader
               FROM runs r{where} ORDER BY {FactoryYieldCounter.RunOrder("r")};
             """;
         await using var reader = await command.ExecuteReaderAsync(ct).ConfigureAwait(false);
-        var index = new RunIndex(countYield && query.FirstRunsOnly);
-        var runs = data.Runs;
+
+        // Stations, lots and sequences repeat: one string each, not one per run.
+        var texts = new Dictionary<string, string>(StringComparer.Ordinal);
+        string Shared(string text) => texts.TryGetValue(text, out var same) ? same : texts[text] = text;
+        var rows = new List<RunRow>();
         string? lastSequence = null;
         while (await reader.ReadAsync(ct).ConfigureAwait(false))
         {
-            var endedTicks = reader.GetInt64(2);
-            var ended = new DateTimeOffset(endedTicks, TimeSpan.Zero);
-            var sequenceId = reader.GetString(6);
-            if (!string.Equals(sequenceId, lastSequence, StringComparison.Ordinal))
+            var sequenceId = Shared(reader.GetString(6));
+            string? product = null;
+            if (!ReferenceEquals(sequenceId, lastSequence))
             {
-                // The product of a sequence's first run, as the folder loader takes it.
-                if (!data.Products.ContainsKey(sequenceId))
-                {
-                    data.AddProduct(sequenceId, reader.GetString(8));
-                }
-
+                product = reader.GetString(8);
                 lastSequence = sequenceId;
             }
 
-            var station = reader.GetString(3);
-            var slot = reader.GetInt32(4);
             var lot = NullableString(reader, 5);
-            var revision = reader.GetInt32(7);
-            var run = countYield
-                ? runs.AddWithoutOutcome(ended, station, slot, lot, sequenceId, revision)
-                : runs.Add(
-                    reader.GetString(10),
-                    ended,
-                    FactoryYieldCounter.ParseVerdict(reader.GetString(11)),
-                    station,
-                    slot,
-                    lot,
-                    sequenceId,
-                    revision,
-                    NullableString(reader, 12),
-                    NullableString(reader, 13));
-            if (operators)
-            {
-                runs.SetOperator(run, NullableString(reader, 9));
-            }
-
-            index.Add(endedTicks, reader.GetGuid(0), reader.GetInt64(1), countYield && query.FirstRunsOnly && reader.GetBoolean(10));
+            rows.Add(new RunRow(
+                reader.GetInt64(2),
+                reader.GetGuid(0),
+                reader.GetInt64(1),
+                Shared(reader.GetString(3)),
+                reader.GetInt32(4),
+                lot is null ? null : Shared(lot),
+                sequenceId,
+                reader.GetInt32(7),
+                product,
+                operators ? NullableString(reader, 9) : null,
+                countYield ? null : reader.GetString(10),
+                countYield ? default : FactoryYieldCounter.ParseVerdict(reader.GetString(11)),
+                countYield ? null : NullableString(reader, 12),
+                countYield ? null : NullableString(reader, 13),
+                firstRuns && reader.GetBoolean(10)));
         }
 
-        return index;
+        return rows;
     }
 
     private static string? NullableString(NpgsqlDataReader reader, int ordinal) => reader.IsDBNull(ordinal) ? null : reader.GetString(ordinal);
