@@ -4,6 +4,7 @@ using LineTest.Web.Access;
 using LineTest.Web.Data;
 using LineTest.Web.Hosting;
 using Microsoft.Extensions.Configuration;
+using Microsoft.Extensions.Logging;
 
 namespace LineTest.Station.Cli;
 
@@ -51,7 +52,8 @@ public static class ServeCommand
                 return context.BadInput((parse.GetValue(listen) is null ? "Station:Web:Listen " : "--listen ") + listenError);
             }
 
-            var problems = options.Validate(address);
+            var (shifts, shiftError, shiftWarning) = ShiftSettings.Read(context.Configuration);
+            var problems = options.Validate(address).Concat(shiftError is null ? [] : [shiftError]).ToList();
             if (problems.Count > 0)
             {
                 context.Error.WriteLine("linetest: serve cannot start:");
@@ -84,8 +86,13 @@ public static class ServeCommand
                 return failed;
             }
 
+            if (shiftWarning is not null)
+            {
+                ShiftSettings.LogDeprecation(context.Loggers.CreateLogger(typeof(ShiftSettings)), shiftWarning);
+            }
+
             await using var owned = source as IAsyncDisposable;
-            var setup = new WebPageSetup(address, options, source) { Time = context.Clock, Loggers = context.Loggers };
+            var setup = new WebPageSetup(address, options, source) { Time = context.Clock, Loggers = context.Loggers, Shifts = shifts! };
             await using var app = WebPageApp.Create(setup);
             try
             {

@@ -1,6 +1,7 @@
 using System.Net;
 using System.Net.Http.Headers;
 using LineTest.Core.Results;
+using LineTest.Reports.Loading;
 using LineTest.Storage.Sqlite;
 using LineTest.TestSupport.Builders;
 using LineTest.Web.Access;
@@ -51,10 +52,10 @@ internal sealed class PageHost : IAsyncDisposable
     public string StationB => Path.Combine(Root, "st02");
 
     /// <summary>ST-01: 20 units from 06:10, three failing verify.error and retested to pass, one error; ST-02: 5 units of lot L-B.</summary>
-    public static async Task<PageHost> StartAsync(WebPageOptions? options = null, string listen = "127.0.0.1:0")
+    public static async Task<PageHost> StartAsync(WebPageOptions? options = null, string listen = "127.0.0.1:0", NamedShifts? shifts = null)
     {
         var root = await WriteStationsAsync();
-        return await StartAsync(root, new SqliteFolderSource([Path.Combine(root, "st01"), Path.Combine(root, "st02")]), options, listen);
+        return await StartAsync(root, new SqliteFolderSource([Path.Combine(root, "st01"), Path.Combine(root, "st02")]), options, listen, shifts);
     }
 
     /// <summary>A temporary folder with the two stations' results folders <c>st01</c> and <c>st02</c>.</summary>
@@ -67,7 +68,8 @@ internal sealed class PageHost : IAsyncDisposable
     }
 
     /// <summary>The page over <paramref name="inner"/> (e.g. the factory database); <paramref name="root"/> is deleted at the end.</summary>
-    public static async Task<PageHost> StartAsync(string root, IResultsSource inner, WebPageOptions? options = null, string listen = "127.0.0.1:0")
+    public static async Task<PageHost> StartAsync(
+        string root, IResultsSource inner, WebPageOptions? options = null, string listen = "127.0.0.1:0", NamedShifts? shifts = null)
     {
         var log = new RecordingLoggerProvider();
         var loggers = LoggerFactory.Create(b => b.AddProvider(log).SetMinimumLevel(LogLevel.Information));
@@ -77,6 +79,7 @@ internal sealed class PageHost : IAsyncDisposable
         {
             Time = clock,
             Loggers = loggers,
+            Shifts = shifts ?? NamedShifts.Default,
         };
         var app = WebPageApp.Create(setup, b => b.WebHost.UseTestServer());
         await app.StartAsync();
