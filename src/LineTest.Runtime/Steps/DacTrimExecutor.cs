@@ -26,7 +26,7 @@ internal static class DacTrimExecutor
         var now = instruments.Now;
         var curve = TrimInputs.Curve(sequence, points, unit);
         var result = DacTrim.Compute(spec, points, unit.Registers[spec.Gain.Register], unit.Registers[spec.Offset.Register], checkpoints,
-            TrimAccuracy.Line(sequence, curve, points));
+            TrimAccuracy.Line(sequence, curve, points), TrimAccuracy.CodeObjectiveC(sequence, points));
         if (!result.TryGetValue(out var trim))
         {
             unit.Add(new Reading($"{name}.computed", null, "1", null, null, Verdict.Fail)
