@@ -45,6 +45,9 @@ public static class DefinitionBounds
     /// <summary>Readings averaged in one measurement (measure, verify, supply-current, iv-sweep).</summary>
     public static readonly NumberBound Samples = NumberBound.Count(1, 1000);
 
+    /// <summary>Old/new code pairs read by a DAC trim's check (each pair: two writes and two meter readings per unit).</summary>
+    public static readonly NumberBound DacCheckPairs = NumberBound.Count(1, 20);
+
     /// <summary>Currents of one I–V sweep: enough for the three-parameter fit, few enough for the cycle time.</summary>
     public static readonly NumberBound SweepPoints = NumberBound.Count(Characterisation.ShockleyFit.MinimumPoints, Sequences.Steps.IvSweepStepKind.MaxPoints);
 
@@ -233,6 +236,7 @@ public static class DefinitionBounds
         [(typeof(LimitSpec), nameof(LimitSpec.Low))] = LimitValue,
         [(typeof(LimitSpec), nameof(LimitSpec.High))] = LimitValue,
         [(typeof(LimitSpec), nameof(LimitSpec.GuardBandFactor))] = GuardBandFactor,
+        [(typeof(DacTrimSpec), nameof(DacTrimSpec.CheckPairs))] = DacCheckPairs,
         [(typeof(DacChannelSpec), nameof(DacChannelSpec.Min))] = DacCode,
         [(typeof(DacChannelSpec), nameof(DacChannelSpec.Max))] = DacCode,
         [(typeof(DacChannelSpec), nameof(DacChannelSpec.Nominal))] = DacCode,

@@ -33,6 +33,9 @@ public static class DacCodeSearch
     /// <param name="untrimmedOutput">The unit's modelled output with the calibration codes at each temperature, volts.</param>
     /// <param name="roundedGainCode">The independently rounded gain code.</param>
     /// <param name="roundedOffsetCode">The independently rounded offset code for it.</param>
+    /// <param name="outputShiftVolts">
+    /// A measured error of the real output against the model, added to every prediction (from <see cref="DacCheck"/>), volts.
+    /// </param>
     public static (long GainCode, long OffsetCode, double MaxAbsErrorC, double RoundedMaxAbsErrorC) Choose(
         DacTrimSpec spec,
         double gainFactorAtCalibration,
@@ -40,7 +43,8 @@ public static class DacCodeSearch
         IReadOnlyList<double> temperaturesC,
         IReadOnlyList<double> untrimmedOutput,
         long roundedGainCode,
-        long roundedOffsetCode)
+        long roundedOffsetCode,
+        double outputShiftVolts = 0)
     {
         ArgumentNullException.ThrowIfNull(spec);
         ArgumentNullException.ThrowIfNull(temperaturesC);
@@ -95,7 +99,7 @@ public static class DacCodeSearch
             var ratio = DacTrim.GainFactor(spec.Gain, gainCode) / gainFactorAtCalibration;
             for (var i = 0; i < d.Length; i++)
             {
-                d[i] = ((ratio * (untrimmedOutput[i] - offsetAtCalibration)) - spec.Target.VoltsAt(temperaturesC[i])) / s;
+                d[i] = ((ratio * (untrimmedOutput[i] - offsetAtCalibration)) + outputShiftVolts - spec.Target.VoltsAt(temperaturesC[i])) / s;
             }
         }
 

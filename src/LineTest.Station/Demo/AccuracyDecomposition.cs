@@ -20,13 +20,13 @@ namespace LineTest.Station.Demo;
 /// (the fixture's static slot offset); (4) <c>soak lag, noise, reference</c>: the measured points themselves (what is
 /// left: the unit still following its well, output and reference noise); (5) <c>trim resolution</c>: the codes rounded or
 /// the E-series parts chosen (the trim's own prediction applied to the true curve); (6) <c>as built</c>: the unit's
-/// real DAC steps or the fitted parts' tolerance (the simulator's truth).
+/// real DAC steps (what the sequence's DAC check leaves of them) or the fitted parts' tolerance (the simulator's truth).
 /// </remarks>
 public sealed class AccuracyDecomposition
 {
     /// <summary>The stage names, in order.</summary>
     public static readonly IReadOnlyList<string> StageNames =
-        ["best line", "sensor model", "well offset", "soak lag, noise, reference", "trim resolution", "as built"];
+        ["best line", "sensor model", "well offset", "soak lag, noise, reference", "trim resolution", "as built (after the DAC check, if any)"];
 
     private readonly List<double[]>[] _errors = StageNames.Select(_ => new List<double[]>()).ToArray();
 
@@ -60,19 +60,6 @@ public sealed class AccuracyDecomposition
         var measured = step.Points.Select(p => Point(sequence, run, p)).ToList();
         var ideality = IdealityOf(sequence, run);
         Func<double, double> truth = unit.CalibrationOutputVolts;
-
-        foreach (var p in measured)
-        {
-            // DBG: the unit's temperature implied by its measured output, minus the reference and the well offset
-            double lo = p.ReferenceC - 2, hi = p.ReferenceC + 2;
-            var rising = truth(hi) > truth(lo);
-            for (var i = 0; i < 60; i++)
-            {
-                var mid = (lo + hi) / 2;
-                if ((truth(mid) < p.Output) == rising) { lo = mid; } else { hi = mid; }
-            }
-            Console.Error.WriteLine(System.FormattableString.Invariant($"DBGP {p.Setpoint} {run.Slot} {(lo - p.ReferenceC - wellOffsetC):F5} {unit.Parameters.LagTimeConstantSeconds:F1}"));
-        }
 
         var best = sequence.Trim!.Fit == TrimFits.Minimax
             ? Minimax(truth, range.LowC, range.HighC)
@@ -170,7 +157,17 @@ public sealed class AccuracyDecomposition
             return false;
         }
 
+        // A DAC check may have moved the codes after the trim was computed; compare with what was computed.
+        var computed = new Dictionary<string, double>(written.Values, StringComparer.Ordinal);
+        foreach (var key in new[] { "gainCode", "offsetCode" })
+        {
+            if (written.Inputs.TryGetValue($"computed.{key}", out var before))
+            {
+                computed[key] = before;
+            }
+        }
+
         var mine = trim.ToRecord().Values;
-        return mine.All(kv => written.Values.TryGetValue(kv.Key, out var v) && Math.Abs(v - kv.Value) <= 1e-9 * Math.Max(1, Math.Abs(v)));
+        return mine.All(kv => computed.TryGetValue(kv.Key, out var v) && Math.Abs(v - kv.Value) <= 1e-9 * Math.Max(1, Math.Abs(v)));
     }
 }
