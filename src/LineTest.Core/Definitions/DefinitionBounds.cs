@@ -63,7 +63,7 @@ public static class DefinitionBounds
     /// <summary>The simulated block's temperature noise (1σ), °C.</summary>
     public static readonly NumberBound BlockNoiseC = NumberBound.NonNegative(1, "°C");
 
-    /// <summary>The simulated static offset of one slot from the reference well, °C.</summary>
+    /// <summary>A static offset of one slot's well from the reference well (simulated, or found by the fixture's calibration), °C.</summary>
     public static readonly NumberBound SlotOffsetC = new(-10, 10, "°C");
 
     /// <summary>A source's well-to-well uniformity (half-width), °C: zero up to 10 °C.</summary>
@@ -194,6 +194,7 @@ public static class DefinitionBounds
         [(typeof(SlotDefinition), nameof(SlotDefinition.SupplyChannel))] = Channel,
         [(typeof(SlotDefinition), nameof(SlotDefinition.SmuChannel))] = Channel,
         [(typeof(SlotDefinition), nameof(SlotDefinition.SupplyShuntOhms))] = Ohms,
+        [(typeof(SlotDefinition), nameof(SlotDefinition.WellOffsetC))] = SlotOffsetC,
         [(typeof(SourceMeterDefinition), nameof(SourceMeterDefinition.ComplianceVolts))] = ComplianceVolts,
         [(typeof(SourceMeterDefinition), nameof(SourceMeterDefinition.MaxCurrentAmps))] = SensorCurrentAmps,
         [(typeof(SourceMeterDefinition), nameof(SourceMeterDefinition.NoiseVolts))] = NoiseVolts,

@@ -16,9 +16,7 @@ internal static class DacTrimExecutor
     {
         var instruments = context.Instruments;
         var spec = sequence.Trim?.Dac ?? throw new InvalidOperationException("Checked sequences with a trim step have a DAC trim.");
-        var points = step.Points
-            .Select(p => new CalibrationPoint(p, unit.CalibrationPoints[p].ReferenceC, unit.CalibrationPoints[p].Output))
-            .ToList();
+        var points = TrimInputs.Points(step, unit, instruments.Fixture);
         // The trim predicts at its calibration points itself; checkpoints are the further setpoints only.
         var checkpoints = step.PredictAt.Except(step.Points, StringComparer.Ordinal)
             .Select(p => new TrimCheckpoint(p, sequence.Setpoints.First(s => s.Name == p).Celsius))

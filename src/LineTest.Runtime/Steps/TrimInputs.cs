@@ -12,11 +12,17 @@ namespace LineTest.Runtime.Steps;
 /// <summary>The calibration points and checkpoints a trim step hands to its trim calculation.</summary>
 internal static class TrimInputs
 {
-    /// <summary>The unit's mean (reference, output) at each of the step's points, in the step's order.</summary>
-    public static List<CalibrationPoint> Points(TrimStep step, UnitContext unit) =>
-        step.Points
-            .Select(p => new CalibrationPoint(p, unit.CalibrationPoints[p].ReferenceC, unit.CalibrationPoints[p].Output))
+    /// <summary>
+    /// The unit's mean (temperature, output) at each of the step's points, in the step's order: the temperature is the
+    /// reference reading plus the slot's well offset from the fixture's calibration (<see cref="FixtureDefinition.WellOffsetC"/>).
+    /// </summary>
+    public static List<CalibrationPoint> Points(TrimStep step, UnitContext unit, FixtureDefinition fixture)
+    {
+        var wellOffset = fixture.WellOffsetC(unit.Slot);
+        return step.Points
+            .Select(p => new CalibrationPoint(p, unit.CalibrationPoints[p].ReferenceC + wellOffset, unit.CalibrationPoints[p].Output))
             .ToList();
+    }
 
     /// <summary>Every calibration and predict-at setpoint, once, at its nominal temperature.</summary>
     public static List<TrimCheckpoint> Checkpoints(SequenceDefinition sequence, TrimStep step) =>

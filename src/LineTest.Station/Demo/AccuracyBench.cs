@@ -115,7 +115,7 @@ public static class AccuracyBench
             {
                 var unit = loaded[run.Serial];
                 var errors = unit.TrueErrorsC(grid, target);
-                decomposition?.Add(sequence, unit, run, WellOffsetC(simulation, run.Slot), grid, errors);
+                decomposition?.Add(sequence, unit, run, WellOffsetC(simulation, run.Slot), fixture.WellOffsetC(run.Slot), grid, errors);
                 squares.AddRange(errors.Select(e => e * e));
                 maxAbs = Math.Max(maxAbs, errors.Max(Math.Abs));
                 if (Value(run, ".predicted.floorRms") is { } floor)

@@ -17,7 +17,7 @@ namespace LineTest.Station.Demo;
 /// range, or through the true outputs at the calibration temperatures) — the floor of a straight-line trim;
 /// (2) <c>sensor model</c>: the station's curve (nominal XTI, no read-out non-linearity, the unit's measured n) through
 /// the true outputs at the reference temperatures; (3) <c>well offset</c>: the unit's well is not the reference's
-/// (the fixture's static slot offset); (4) <c>soak lag, noise, reference</c>: the measured points themselves (what is
+/// (the simulator's static slot offset, less what the fixture states for the slot and the station corrects); (4) <c>soak lag, noise, reference</c>: the measured points themselves (what is
 /// left: the unit still following its well, output and reference noise); (5) <c>trim resolution</c>: the codes rounded or
 /// the E-series parts chosen (the trim's own prediction applied to the true curve); (6) <c>as built</c>: the unit's
 /// real DAC steps (what the sequence's DAC check leaves of them) or the fitted parts' tolerance (the simulator's truth).
@@ -46,9 +46,11 @@ public sealed class AccuracyDecomposition
     /// <param name="unit">The simulated part.</param>
     /// <param name="run">Its stored run.</param>
     /// <param name="wellOffsetC">Its well's true offset from the reference well, °C.</param>
+    /// <param name="statedWellOffsetC">The offset the fixture states for its slot (which the station corrected), °C.</param>
     /// <param name="grid">The rated-range temperatures, °C.</param>
     /// <param name="actual">The unit's true error as shipped at <paramref name="grid"/>, °C.</param>
-    public void Add(SequenceDefinition sequence, SimulatedUnit unit, RunRecord run, double wellOffsetC, double[] grid, double[] actual)
+    public void Add(
+        SequenceDefinition sequence, SimulatedUnit unit, RunRecord run, double wellOffsetC, double statedWellOffsetC, double[] grid, double[] actual)
     {
         ArgumentNullException.ThrowIfNull(sequence);
         ArgumentNullException.ThrowIfNull(unit);
@@ -57,7 +59,7 @@ public sealed class AccuracyDecomposition
         ArgumentNullException.ThrowIfNull(actual);
         var range = sequence.RatedRange!;
         var step = sequence.Steps.OfType<TrimStep>().First();
-        var measured = step.Points.Select(p => Point(sequence, run, p)).ToList();
+        var measured = step.Points.Select(p => Point(sequence, run, p, statedWellOffsetC)).ToList();
         var ideality = IdealityOf(sequence, run);
         Func<double, double> truth = unit.CalibrationOutputVolts;
 
@@ -65,7 +67,7 @@ public sealed class AccuracyDecomposition
             ? Minimax(truth, range.LowC, range.HighC)
             : StationLine(sequence, measured.Select(p => p with { Output = truth(p.ReferenceC) }).ToList(), ideality);
         var exact = StationLine(sequence, measured.Select(p => p with { Output = truth(p.ReferenceC) }).ToList(), ideality);
-        var well = StationLine(sequence, measured.Select(p => p with { Output = truth(p.ReferenceC + wellOffsetC) }).ToList(), ideality);
+        var well = StationLine(sequence, measured.Select(p => p with { Output = truth(p.ReferenceC - statedWellOffsetC + wellOffsetC) }).ToList(), ideality);
         var station = StationLine(sequence, measured, ideality);
         var trim = Trim(sequence, measured, station, ideality);
         if (trim is null || best is null || exact is null || well is null || station is null)
@@ -109,13 +111,13 @@ public sealed class AccuracyDecomposition
 
     private static double Rms(List<double> values) => values.Count == 0 ? double.NaN : Math.Sqrt(values.Average(v => v * v));
 
-    private static CalibrationPoint Point(SequenceDefinition sequence, RunRecord run, string setpoint)
+    private static CalibrationPoint Point(SequenceDefinition sequence, RunRecord run, string setpoint, double statedWellOffsetC)
     {
         var measure = sequence.Steps.OfType<MeasureStep>().Last(m => m.Setpoint == setpoint).DisplayName;
         var reference = run.Readings.Last(r => r.Name == $"{measure}.reference");
         var output = run.Readings.Last(r => r.Name == $"{measure}.output");
         var volts = UnitsOfMeasure.IsKnown(output.Unit) ? output.Value!.Value / UnitsOfMeasure.FromBase(1, output.Unit) : output.Value!.Value;
-        return new CalibrationPoint(setpoint, reference.Value!.Value, volts);
+        return new CalibrationPoint(setpoint, reference.Value!.Value + statedWellOffsetC, volts);
     }
 
     private static double? IdealityOf(SequenceDefinition sequence, RunRecord run)
