@@ -26,7 +26,7 @@ public sealed class AccuracyDecomposition
 {
     /// <summary>The stage names, in order.</summary>
     public static readonly IReadOnlyList<string> StageNames =
-        ["best line", "sensor model", "well offset", "soak lag, noise, reference", "trim resolution", "as built (after the DAC check, if any)"];
+        ["best line", "sensor model", "well offset", "soak lag, noise, reference", "trim resolution", "as built (after DAC check)"];
 
     private readonly List<double[]>[] _errors = StageNames.Select(_ => new List<double[]>()).ToArray();
 
