@@ -1,0 +1,115 @@
+using System.Globalization;
+using LineTest.Core.Sequences;
+using LineTest.Core.Stability;
+using LineTest.Runtime.Batches;
+
+namespace LineTest.Runtime.Steps;
+
+/// <summary>
+/// The approach to one setpoint in predictive settle mode: one <see cref="PredictiveSettleTracker"/> for the reference
+/// (°C) and one per unit (its soak quantity — meter volts or raw counts — over the soak's signed sensitivity, so in °C
+/// of the unit's own scale). It decides for the whole batch, since the units share one source: the readings are taken
+/// when the reference and every unit still in progress say take; the setpoint falls back to the window as soon as one
+/// of them falls back. After the take, the fits are frozen and move later samples to the final value
+/// (<see cref="ReferenceShiftC"/>, <see cref="UnitShiftC"/>). Touched only by the coordinator's loop.
+/// </summary>
+internal sealed class PredictiveApproach
+{
+    private readonly Dictionary<UnitContext, PredictiveSettleTracker> _units = [];
+    private readonly double _maxUncertaintyC;
+    private readonly double _fitSpanSeconds;
+
+    public PredictiveApproach(SetpointDefinition setpoint, SettleSettings settle, StabilitySettings stability, double fitSpanSeconds, double outputPerC,
+        DateTimeOffset commanded)
+    {
+        Setpoint = setpoint;
+        Commanded = commanded;
+        OutputPerC = outputPerC;
+        _maxUncertaintyC = settle.MaxExtrapolationUncertaintyC
+            ?? throw new InvalidOperationException("Checked sequences give maxExtrapolationUncertaintyC in predictive mode.");
+        _fitSpanSeconds = fitSpanSeconds;
+        Reference = new PredictiveSettleTracker(setpoint.Celsius, stability.MaxOffsetFromSetpointC, _maxUncertaintyC, fitSpanSeconds);
+    }
+
+    public SetpointDefinition Setpoint { get; }
+
+    /// <summary>When the setpoint was commanded: the time origin of every tracker.</summary>
+    public DateTimeOffset Commanded { get; }
+
+    /// <summary>The units' soak quantity per °C, signed (volts or counts per °C).</summary>
+    public double OutputPerC { get; }
+
+    public PredictiveSettleTracker Reference { get; }
+
+    /// <summary>True once the readings were taken from the predictions (the fits are then frozen).</summary>
+    public bool Taken { get; private set; }
+
+    /// <summary>Why the setpoint fell back to the window, or null.</summary>
+    public string? FallbackReason { get; private set; }
+
+    public double Seconds(DateTimeOffset at) => (at - Commanded).TotalSeconds;
+
+    public void AddReference(DateTimeOffset at, double celsius) => Reference.Add(Seconds(at), celsius);
+
+    public void AddUnit(UnitContext unit, DateTimeOffset at, double output)
+    {
+        if (!_units.TryGetValue(unit, out var tracker))
+        {
+            // A unit's offset from the setpoint is unknown before its trim: only the reference is held to the band.
+            tracker = new PredictiveSettleTracker(0, double.PositiveInfinity, _maxUncertaintyC, _fitSpanSeconds);
+            _units[unit] = tracker;
+        }
+
+        // The unit follows the block through its own lag: its fit takes the reference's fitted time constant.
+        tracker.AddFollowing(Seconds(at), output / OutputPerC, Reference.Last?.Fit);
+    }
+
+    public PredictiveSettleTracker? TrackerOf(UnitContext unit) => _units.GetValueOrDefault(unit);
+
+    /// <summary>
+    /// Decides for the batch after a round of readings of the reference and of <paramref name="units"/> (those still in
+    /// progress): take, keep waiting, or fall back (remembered with its reason).
+    /// </summary>
+    public PredictiveSettleOutcome Decide(IReadOnlyList<UnitContext> units)
+    {
+        if (Reference.Last is { Outcome: PredictiveSettleOutcome.FallBack } r)
+        {
+            return FallBack($"reference: {r.Why}");
+        }
+
+        foreach (var unit in units)
+        {
+            if (TrackerOf(unit)?.Last is { Outcome: PredictiveSettleOutcome.FallBack } u)
+            {
+                return FallBack($"slot {unit.Slot.ToString(CultureInfo.InvariantCulture)}: {u.Why}");
+            }
+        }
+
+        var all = Reference.Last?.Outcome == PredictiveSettleOutcome.Take
+            && units.All(u => TrackerOf(u)?.Last?.Outcome == PredictiveSettleOutcome.Take);
+        if (all)
+        {
+            Taken = true;
+            return PredictiveSettleOutcome.Take;
+        }
+
+        return PredictiveSettleOutcome.KeepWaiting;
+    }
+
+    /// <summary>Falls back with <paramref name="why"/> (the first reason is kept).</summary>
+    public PredictiveSettleOutcome FallBack(string why)
+    {
+        FallbackReason ??= why;
+        return PredictiveSettleOutcome.FallBack;
+    }
+
+    /// <summary>What the reference still has to move from <paramref name="at"/> to its final value, °C (y∞ − f(t)).</summary>
+    public double ReferenceShiftC(DateTimeOffset at) => Reference.Last!.Fit.FinalValue - Reference.PredictedAt(Seconds(at));
+
+    /// <summary>What the unit still has to move from <paramref name="at"/> to its final value, °C of its own scale.</summary>
+    public double UnitShiftC(UnitContext unit, DateTimeOffset at)
+    {
+        var tracker = _units[unit];
+        return tracker.Last!.Fit.FinalValue - tracker.PredictedAt(Seconds(at));
+    }
+}
