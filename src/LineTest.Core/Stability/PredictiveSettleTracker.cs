@@ -102,7 +102,9 @@ public sealed class PredictiveSettleTracker
             decision = decision with { Outcome = PredictiveSettleOutcome.KeepWaiting, Why = $"not yet a first-order approach ({decision.Why})" };
         }
 
-        _sawUsableFit |= fit.IsUsable;
+        // Only a fit over at least the covered time constants establishes the approach: an early fit over a short
+        // stretch (the end of the ramp) can look usable and then stop fitting without any disturbance.
+        _sawUsableFit |= fit.IsUsable && span >= PredictiveSettle.MinimumTimeConstantsCovered * fit.TimeConstantSeconds;
         Last = decision;
         return decision;
     }

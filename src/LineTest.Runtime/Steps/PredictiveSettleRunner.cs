@@ -18,7 +18,7 @@ namespace LineTest.Runtime.Steps;
 internal static class PredictiveSettleRunner
 {
     /// <summary>How far back each fit reaches, in time constants of the source: the ramp drops out, the approach stays in.</summary>
-    public const double FitSpanTimeConstants = 3;
+    public const double FitSpanTimeConstants = 4;
 
     /// <summary>Shortest round of readings, seconds: the reference and every unit are read once per round.</summary>
     public const double MinimumRoundSeconds = 2;
