@@ -31,7 +31,6 @@ internal sealed class MeasureExecutor : StepExecutor<MeasureStep>
         // Predictive mode: every sample moved to its final value along the fitted approach, the fit's u(y∞) its own
         // component of the budget.
         var approach = context.Batch.Predictions.GetValueOrDefault(step.Setpoint);
-        var quantityPerC = SoakRunner.QuantityPerC(context.Sequence, read) ?? 0;
         var references = SampleRounds.ReferencesAtFinal(approach, rawReferences, referenceTimes);
         var refMean = references.Average();
         var referenceBudget = instruments.ReferenceBudget(references);
@@ -39,11 +38,11 @@ internal sealed class MeasureExecutor : StepExecutor<MeasureStep>
         var now = instruments.Now;
         foreach (var (unit, rawSamples, times) in outputs)
         {
-            var samples = SampleRounds.OutputsAtFinal(approach, unit, quantityPerC, rawSamples, times);
+            var samples = SampleRounds.OutputsAtFinal(context, approach, unit, read, rawSamples, times);
             var mean = samples.Average();
             var budget = StationBudgets.UnitOutput(instruments.Fixture.Meter, samples, overLink);
             var u = (approach?.TrackerOf(unit)?.Last?.Fit is { } fit
-                ? StationBudgets.Predicted(budget, StationBudgets.Extrapolation(fit, quantityPerC))
+                ? StationBudgets.Predicted(budget, StationBudgets.Extrapolation(fit, SampleRounds.ShiftPerUnitScale(context, approach, unit, read)))
                 : budget).Expand();
             unit.CalibrationPoints[step.Setpoint] = (refMean, mean);
             unit.Add(UnlimitedReading.Create($"{step.DisplayName}.reference", refMean, "degC", refU) with

@@ -16,6 +16,8 @@ namespace LineTest.Runtime.Steps;
 internal sealed class PredictiveApproach
 {
     private readonly Dictionary<UnitContext, PredictiveSettleTracker> _units = [];
+    private readonly Dictionary<UnitContext, double> _unitFirst = [];
+    private double _referenceFirst = double.NaN;
     private readonly double _maxUncertaintyC;
     private readonly double _fitSpanSeconds;
 
@@ -49,7 +51,15 @@ internal sealed class PredictiveApproach
 
     public double Seconds(DateTimeOffset at) => (at - Commanded).TotalSeconds;
 
-    public void AddReference(DateTimeOffset at, double celsius) => Reference.Add(Seconds(at), celsius);
+    public void AddReference(DateTimeOffset at, double celsius)
+    {
+        if (double.IsNaN(_referenceFirst))
+        {
+            _referenceFirst = celsius;
+        }
+
+        Reference.Add(Seconds(at), celsius);
+    }
 
     public void AddUnit(UnitContext unit, DateTimeOffset at, double output)
     {
@@ -59,6 +69,8 @@ internal sealed class PredictiveApproach
             tracker = new PredictiveSettleTracker(0, double.PositiveInfinity, _maxUncertaintyC, _fitSpanSeconds);
             _units[unit] = tracker;
         }
+
+        _unitFirst.TryAdd(unit, output / OutputPerC);
 
         // The unit follows the block through its own lag: its fit takes the reference's fitted time constant.
         tracker.AddFollowing(Seconds(at), output / OutputPerC, Reference.Last?.Fit);
@@ -105,6 +117,25 @@ internal sealed class PredictiveApproach
 
     /// <summary>What the reference still has to move from <paramref name="at"/> to its final value, °C (y∞ − f(t)).</summary>
     public double ReferenceShiftC(DateTimeOffset at) => Reference.Last!.Fit.FinalValue - Reference.PredictedAt(Seconds(at));
+
+    /// <summary>
+    /// How much of the unit's own scale (its soak quantity over the sequence's sensitivity) one °C of the well makes,
+    /// from the whole approach: the unit's move from its first reading to its final value over the reference's. The
+    /// sequence may give the sensitivity's size only (a diode's counts fall as it warms), and a part's own slope
+    /// differs from the nominal; steps shorter than 1 °C keep the nominal +1, and a ratio outside 0.5 … 2 (not a
+    /// plausible part) keeps only its sign.
+    /// </summary>
+    public double ScaleOf(UnitContext unit)
+    {
+        var reference = Reference.Last!.Fit.FinalValue - _referenceFirst;
+        if (!(Math.Abs(reference) >= 1) || _units[unit].Last?.Fit is not { Converged: true } fit)
+        {
+            return 1;
+        }
+
+        var ratio = (fit.FinalValue - _unitFirst[unit]) / reference;
+        return Math.Abs(ratio) is >= 0.5 and <= 2 ? ratio : Math.Sign(ratio) is 0 ? 1 : Math.Sign(ratio);
+    }
 
     /// <summary>What the unit still has to move from <paramref name="at"/> to its final value, °C of its own scale.</summary>
     public double UnitShiftC(UnitContext unit, DateTimeOffset at)

@@ -48,9 +48,31 @@ internal static class SampleRounds
         approach is null ? references : references.Select((r, i) => r + approach.ReferenceShiftC(times[i])).ToArray();
 
     /// <summary>
-    /// In predictive mode: a unit's samples of a quantity with <paramref name="quantityPerC"/> per °C moved to the unit's
-    /// extrapolated final value along its fitted approach; otherwise the samples as read.
+    /// In predictive mode: a unit's samples of <paramref name="read"/> moved to the unit's extrapolated final value along
+    /// its fitted approach; otherwise the samples as read.
     /// </summary>
-    public static double[] OutputsAtFinal(PredictiveApproach? approach, UnitContext unit, double quantityPerC, double[] values, DateTimeOffset[] times) =>
-        approach?.TrackerOf(unit) is null ? values : values.Select((v, i) => v + (quantityPerC * approach.UnitShiftC(unit, times[i]))).ToArray();
+    public static double[] OutputsAtFinal(
+        StepContext context, PredictiveApproach? approach, UnitContext unit, UnitRead read, double[] values, DateTimeOffset[] times)
+    {
+        if (approach?.TrackerOf(unit) is null)
+        {
+            return values;
+        }
+
+        var perUnitScale = ShiftPerUnitScale(context, approach, unit, read);
+        return values.Select((v, i) => v + (perUnitScale * approach.UnitShiftC(unit, times[i]))).ToArray();
+    }
+
+    /// <summary>
+    /// How much of <paramref name="read"/>'s quantity one °C of the unit's own scale (the fit's) makes: the soak's own
+    /// sensitivity when <paramref name="read"/> is the soak's quantity (the fit's scale is that quantity over it), else
+    /// the quantity per °C over the unit's scale per °C of the well (<see cref="PredictiveApproach.ScaleOf"/>).
+    /// </summary>
+    public static double ShiftPerUnitScale(StepContext context, PredictiveApproach approach, UnitContext unit, UnitRead read)
+    {
+        var soakRead = context.Sequence.Soak.Output == Core.Sequences.UnitOutputs.Link ? UnitRead.Raw : UnitRead.MeterVolts;
+        return read == soakRead
+            ? approach.OutputPerC
+            : (SoakRunner.QuantityPerC(context.Sequence, read) ?? 0) / approach.ScaleOf(unit);
+    }
 }

@@ -34,13 +34,12 @@ internal sealed class VerifyExecutor : StepExecutor<VerifyStep>
         // Predictive mode: the reference and each unit moved to their final values; both extrapolations enter the error's
         // budget as their own components (the unit's through its indicated °C per °C of its own scale).
         var approach = context.Batch.Predictions.GetValueOrDefault(step.Setpoint);
-        var quantityPerC = SoakRunner.QuantityPerC(context.Sequence, read) ?? 0;
         var references = SampleRounds.ReferencesAtFinal(approach, rawReferences, referenceTimes);
         var referenceBudget = instruments.ReferenceBudget(references);
         var now = instruments.Now;
         foreach (var (unit, rawValues, times) in outputs)
         {
-            var values = SampleRounds.OutputsAtFinal(approach, unit, quantityPerC, rawValues, times);
+            var values = SampleRounds.OutputsAtFinal(context, approach, unit, read, rawValues, times);
             // Over the link the unit reports °C itself; from the meter its volts go through the target transfer.
             var errors = new double[values.Length];
             for (var i = 0; i < values.Length; i++)
@@ -55,7 +54,8 @@ internal sealed class VerifyExecutor : StepExecutor<VerifyStep>
             if (approach?.TrackerOf(unit)?.Last?.Fit is { } fit)
             {
                 var referenceExtrapolation = StationBudgets.Extrapolation(approach.Reference.Last!.Fit);
-                var indicatedPerC = overLink ? quantityPerC : quantityPerC / slope;
+                var perUnitScale = SampleRounds.ShiftPerUnitScale(context, approach, unit, read);
+                var indicatedPerC = overLink ? perUnitScale : perUnitScale / slope;
                 budget = StationBudgets.Predicted(budget, referenceExtrapolation with { Name = "reference " + referenceExtrapolation.Name },
                     StationBudgets.Extrapolation(fit, indicatedPerC));
                 referenceReported = StationBudgets.Predicted(referenceBudget, referenceExtrapolation);
