@@ -2,13 +2,14 @@ using System.Globalization;
 using LineTest.Core.Sequences;
 using LineTest.Core.Stability;
 using LineTest.Runtime.Batches;
+using LineTest.Runtime.Instruments;
 
 namespace LineTest.Runtime.Steps;
 
 /// <summary>
 /// The approach to one setpoint in predictive settle mode: one <see cref="PredictiveSettleTracker"/> for the reference
-/// (°C) and one per unit (its soak quantity — meter volts or raw counts — over the soak's signed sensitivity, so in °C
-/// of the unit's own scale). It decides for the whole batch, since the units share one source: the readings are taken
+/// (°C) and one per unit (the quantity its readings at this setpoint are taken in — meter volts, raw counts or the °C it
+/// reports — over the sequence's sensitivity, so in °C of the unit's own scale). It decides for the whole batch, since the units share one source: the readings are taken
 /// when the reference and every unit still in progress say take; the setpoint falls back to the window as soon as one
 /// of them falls back. After the take, the fits are frozen and move later samples to the final value
 /// (<see cref="ReferenceShiftC"/>, <see cref="UnitShiftC"/>). Touched only by the coordinator's loop.
@@ -22,8 +23,9 @@ internal sealed class PredictiveApproach
     private readonly double _fitSpanSeconds;
 
     public PredictiveApproach(SetpointDefinition setpoint, SettleSettings settle, StabilitySettings stability, double fitSpanSeconds, double outputPerC,
-        DateTimeOffset commanded)
+        DateTimeOffset commanded, UnitRead tracked)
     {
+        Tracked = tracked;
         Setpoint = setpoint;
         Commanded = commanded;
         OutputPerC = outputPerC;
@@ -38,8 +40,11 @@ internal sealed class PredictiveApproach
     /// <summary>When the setpoint was commanded: the time origin of every tracker.</summary>
     public DateTimeOffset Commanded { get; }
 
-    /// <summary>The units' soak quantity per °C, signed (volts or counts per °C).</summary>
+    /// <summary>The quantity each unit is followed in (<see cref="Tracked"/>) per °C, as the sequence gives it.</summary>
     public double OutputPerC { get; }
+
+    /// <summary>What is read of each unit while it approaches.</summary>
+    public UnitRead Tracked { get; }
 
     public PredictiveSettleTracker Reference { get; }
 

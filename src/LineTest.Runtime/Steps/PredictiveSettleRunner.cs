@@ -30,9 +30,15 @@ internal static class PredictiveSettleRunner
         var instruments = context.Instruments;
         var sequence = context.Sequence;
         var stability = sequence.Stability;
-        var read = sequence.Soak.Output == UnitOutputs.Link ? UnitRead.Raw : UnitRead.MeterVolts;
+        // Each unit is followed in the quantity its readings at this setpoint are taken in (the verify's reported °C,
+        // the measure's volts or counts), so that moving them to their final values needs no conversion; the soak's
+        // quantity when the steps read different ones.
+        var soakRead = SoakRead(sequence);
+        var reads = ReadsAt(sequence, setpoint.Name).Distinct().ToList();
+        var read = reads.Count == 1 && SoakRunner.QuantityPerC(sequence, reads[0]) is not null ? reads[0] : soakRead;
+        var perC = read == soakRead ? SoakRunner.OutputPerC(sequence) : SoakRunner.QuantityPerC(sequence, read)!.Value;
         var approach = new PredictiveApproach(setpoint, settle, stability, FitSpanTimeConstants * instruments.Fixture.Source.SettlingTimeConstantSeconds,
-            SoakRunner.OutputPerC(sequence), commanded);
+            perC, commanded, read);
         if (Unconvertible(sequence, setpoint.Name) is { } why)
         {
             approach.FallBack(why);
@@ -117,25 +123,23 @@ internal static class PredictiveSettleRunner
         }
     }
 
-    /// <summary>Why a measure or verify step at <paramref name="setpoint"/> could not be moved to its final value, or null.</summary>
-    private static string? Unconvertible(SequenceDefinition sequence, string setpoint)
-    {
-        foreach (var step in sequence.Steps)
-        {
-            var read = step switch
-            {
-                MeasureStep m when m.Setpoint == setpoint => m.Output == UnitOutputs.Link ? UnitRead.Raw : UnitRead.MeterVolts,
-                VerifyStep v when v.Setpoint == setpoint => v.Output == UnitOutputs.Link ? UnitRead.Temperature : UnitRead.MeterVolts,
-                _ => (UnitRead?)null,
-            };
-            if (read is { } r && SoakRunner.QuantityPerC(sequence, r) is null)
-            {
-                return $"step '{step.DisplayName}' reads raw counts, and without soak.outputCountsPerC they cannot be moved to their final value";
-            }
-        }
+    /// <summary>The quantity the soak reads: raw counts over the link, else meter volts.</summary>
+    public static UnitRead SoakRead(SequenceDefinition sequence) => sequence.Soak.Output == UnitOutputs.Link ? UnitRead.Raw : UnitRead.MeterVolts;
 
-        return null;
-    }
+    /// <summary>What the measure and verify steps at <paramref name="setpoint"/> read.</summary>
+    private static IEnumerable<UnitRead> ReadsAt(SequenceDefinition sequence, string setpoint) =>
+        sequence.Steps.Select(step => step switch
+        {
+            MeasureStep m when m.Setpoint == setpoint => m.Output == UnitOutputs.Link ? UnitRead.Raw : UnitRead.MeterVolts,
+            VerifyStep v when v.Setpoint == setpoint => v.Output == UnitOutputs.Link ? UnitRead.Temperature : UnitRead.MeterVolts,
+            _ => (UnitRead?)null,
+        }).OfType<UnitRead>();
+
+    /// <summary>Why a measure or verify step at <paramref name="setpoint"/> could not be moved to its final value, or null.</summary>
+    private static string? Unconvertible(SequenceDefinition sequence, string setpoint) =>
+        ReadsAt(sequence, setpoint).Any(r => SoakRunner.QuantityPerC(sequence, r) is null)
+            ? "a step reads raw counts, and without soak.outputCountsPerC they cannot be moved to their final value"
+            : null;
 
     private static string Pending(PredictiveApproach approach, IReadOnlyList<UnitContext> units)
     {

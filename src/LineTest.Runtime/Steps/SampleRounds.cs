@@ -64,14 +64,13 @@ internal static class SampleRounds
     }
 
     /// <summary>
-    /// How much of <paramref name="read"/>'s quantity one °C of the unit's own scale (the fit's) makes: the soak's own
-    /// sensitivity when <paramref name="read"/> is the soak's quantity (the fit's scale is that quantity over it), else
+    /// How much of <paramref name="read"/>'s quantity one °C of the unit's own scale (the fit's) makes: the tracked
+    /// quantity's own sensitivity when <paramref name="read"/> is it (the fit's scale is that quantity over it), else
     /// the quantity per °C over the unit's scale per °C of the well (<see cref="PredictiveApproach.ScaleOf"/>).
     /// </summary>
     public static double ShiftPerUnitScale(StepContext context, PredictiveApproach approach, UnitContext unit, UnitRead read)
     {
-        var soakRead = context.Sequence.Soak.Output == Core.Sequences.UnitOutputs.Link ? UnitRead.Raw : UnitRead.MeterVolts;
-        return read == soakRead
+        return read == approach.Tracked
             ? approach.OutputPerC
             : (SoakRunner.QuantityPerC(context.Sequence, read) ?? 0) / approach.ScaleOf(unit);
     }
