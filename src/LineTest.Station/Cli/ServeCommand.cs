@@ -3,6 +3,7 @@ using LineTest.Web.Access;
 using LineTest.Web.Data;
 using LineTest.Web.Hosting;
 using Microsoft.Extensions.Configuration;
+using Microsoft.Extensions.Logging;
 
 namespace LineTest.Station.Cli;
 
@@ -49,7 +50,8 @@ public static class ServeCommand
                 return context.BadInput((parse.GetValue(listen) is null ? "Station:Web:Listen " : "--listen ") + listenError);
             }
 
-            var problems = options.Validate(address);
+            var (shifts, shiftError, shiftWarning) = ShiftSettings.Read(context.Configuration);
+            var problems = options.Validate(address).Concat(shiftError is null ? [] : [shiftError]).ToList();
             if (problems.Count > 0)
             {
                 context.Error.WriteLine("linetest: serve cannot start:");
@@ -68,7 +70,12 @@ public static class ServeCommand
                 return context.BadInput($"the results folder '{folder}' does not exist");
             }
 
-            var setup = new WebPageSetup(address, options, new SqliteFolderSource(folders)) { Time = context.Clock, Loggers = context.Loggers };
+            if (shiftWarning is not null)
+            {
+                ShiftSettings.LogDeprecation(context.Loggers.CreateLogger(typeof(ShiftSettings)), shiftWarning);
+            }
+
+            var setup = new WebPageSetup(address, options, new SqliteFolderSource(folders)) { Time = context.Clock, Loggers = context.Loggers, Shifts = shifts! };
             await using var app = WebPageApp.Create(setup);
             try
             {

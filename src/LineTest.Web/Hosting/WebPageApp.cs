@@ -48,7 +48,7 @@ public static class WebPageApp
         builder.Services.AddSingleton(setup.Options);
         builder.Services.AddSingleton(setup.Source);
         builder.Services.AddSingleton(setup.Time);
-        builder.Services.AddSingleton(new ShiftCalendar(setup.Options.ShiftStarts()));
+        builder.Services.AddSingleton(new ShiftCalendar(setup.Shifts.Starts));
         builder.Services.AddSingleton(new WebCredentials(setup.Options));
         builder.Services.AddSingleton<LineMonitor>();
         configure?.Invoke(builder);

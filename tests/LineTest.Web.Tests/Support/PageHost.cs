@@ -1,6 +1,7 @@
 using System.Net;
 using System.Net.Http.Headers;
 using LineTest.Core.Results;
+using LineTest.Reports.Loading;
 using LineTest.Storage.Sqlite;
 using LineTest.TestSupport.Builders;
 using LineTest.Web.Access;
@@ -43,7 +44,7 @@ internal sealed class PageHost : IAsyncDisposable
     public string StationB => Path.Combine(Root, "st02");
 
     /// <summary>ST-01: 20 units from 06:10, three failing verify.error and retested to pass, one error; ST-02: 5 units of lot L-B.</summary>
-    public static async Task<PageHost> StartAsync(WebPageOptions? options = null, string listen = "127.0.0.1:0")
+    public static async Task<PageHost> StartAsync(WebPageOptions? options = null, string listen = "127.0.0.1:0", NamedShifts? shifts = null)
     {
         var root = Directory.CreateTempSubdirectory("linetest-web-").FullName;
         await WriteAsync(Path.Combine(root, "st01"), StationARuns());
@@ -57,6 +58,7 @@ internal sealed class PageHost : IAsyncDisposable
         {
             Time = new FakeTimeProvider(Now),
             Loggers = loggers,
+            Shifts = shifts ?? NamedShifts.Default,
         };
         var app = WebPageApp.Create(setup, b => b.WebHost.UseTestServer());
         await app.StartAsync();
