@@ -45,6 +45,9 @@ public static class DefinitionBounds
     /// <summary>Readings averaged in one measurement (measure, verify, supply-current, iv-sweep).</summary>
     public static readonly NumberBound Samples = NumberBound.Count(1, 1000);
 
+    /// <summary>Old/new code pairs read by a DAC trim's check (each pair: two writes and two meter readings per unit).</summary>
+    public static readonly NumberBound DacCheckPairs = NumberBound.Count(1, 20);
+
     /// <summary>Currents of one I–V sweep: enough for the three-parameter fit, few enough for the cycle time.</summary>
     public static readonly NumberBound SweepPoints = NumberBound.Count(Characterisation.ShockleyFit.MinimumPoints, Sequences.Steps.IvSweepStepKind.MaxPoints);
 
@@ -60,7 +63,7 @@ public static class DefinitionBounds
     /// <summary>The simulated block's temperature noise (1σ), °C.</summary>
     public static readonly NumberBound BlockNoiseC = NumberBound.NonNegative(1, "°C");
 
-    /// <summary>The simulated static offset of one slot from the reference well, °C.</summary>
+    /// <summary>A static offset of one slot's well from the reference well (simulated, or found by the fixture's calibration), °C.</summary>
     public static readonly NumberBound SlotOffsetC = new(-10, 10, "°C");
 
     /// <summary>A source's well-to-well uniformity (half-width), °C: zero up to 10 °C.</summary>
@@ -71,6 +74,9 @@ public static class DefinitionBounds
 
     /// <summary>The spread (1σ) of the unit lag between parts, as a fraction.</summary>
     public static readonly NumberBound LagSpread = NumberBound.NonNegative(0.5, string.Empty);
+
+    /// <summary>A simulated sensor's own response time, seconds; 0 for none.</summary>
+    public static readonly NumberBound SensorLagSeconds = NumberBound.NonNegative(600, "s");
 
     /// <summary>Setpoints of one sequence.</summary>
     public static readonly NumberBound SetpointCount = NumberBound.Count(1, 50);
@@ -191,6 +197,7 @@ public static class DefinitionBounds
         [(typeof(SlotDefinition), nameof(SlotDefinition.SupplyChannel))] = Channel,
         [(typeof(SlotDefinition), nameof(SlotDefinition.SmuChannel))] = Channel,
         [(typeof(SlotDefinition), nameof(SlotDefinition.SupplyShuntOhms))] = Ohms,
+        [(typeof(SlotDefinition), nameof(SlotDefinition.WellOffsetC))] = SlotOffsetC,
         [(typeof(SourceMeterDefinition), nameof(SourceMeterDefinition.ComplianceVolts))] = ComplianceVolts,
         [(typeof(SourceMeterDefinition), nameof(SourceMeterDefinition.MaxCurrentAmps))] = SensorCurrentAmps,
         [(typeof(SourceMeterDefinition), nameof(SourceMeterDefinition.NoiseVolts))] = NoiseVolts,
@@ -205,6 +212,8 @@ public static class DefinitionBounds
         [(typeof(SimulationDefinition), nameof(SimulationDefinition.SlotOffsetsC))] = SlotOffsetC,
         [(typeof(SimulationDefinition), nameof(SimulationDefinition.DefectRate))] = Share,
         [(typeof(SimulationDefinition), nameof(SimulationDefinition.SensorDefectRate))] = Share,
+        [(typeof(SimulationDefinition), nameof(SimulationDefinition.ReferenceLagTimeConstantSeconds))] = SensorLagSeconds,
+        [(typeof(SimulationDefinition), nameof(SimulationDefinition.UnitTipLagFraction))] = Share,
         [(typeof(SequenceDefinition), nameof(SequenceDefinition.Revision))] = Revision,
         [(typeof(SequenceDefinition), nameof(SequenceDefinition.NominalBiasAmps))] = SensorCurrentAmps,
         [(typeof(StabilitySettings), nameof(StabilitySettings.BandC))] = TemperatureBandC,
@@ -233,6 +242,7 @@ public static class DefinitionBounds
         [(typeof(LimitSpec), nameof(LimitSpec.Low))] = LimitValue,
         [(typeof(LimitSpec), nameof(LimitSpec.High))] = LimitValue,
         [(typeof(LimitSpec), nameof(LimitSpec.GuardBandFactor))] = GuardBandFactor,
+        [(typeof(DacTrimSpec), nameof(DacTrimSpec.CheckPairs))] = DacCheckPairs,
         [(typeof(DacChannelSpec), nameof(DacChannelSpec.Min))] = DacCode,
         [(typeof(DacChannelSpec), nameof(DacChannelSpec.Max))] = DacCode,
         [(typeof(DacChannelSpec), nameof(DacChannelSpec.Nominal))] = DacCode,

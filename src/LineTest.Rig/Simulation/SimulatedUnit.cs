@@ -22,6 +22,9 @@ public sealed class SimulatedUnit
     private readonly Dictionary<string, long> _stored;
     private readonly Dictionary<string, double?> _fittedOhms;
 
+    // The probe body's temperature, °C: the die (SensorC) follows it through the tip lag.
+    private double _bodyC;
+
     internal SimulatedUnit(
         string serial,
         SimulatedUnitDesign design,
@@ -57,6 +60,7 @@ public sealed class SimulatedUnit
         }
 
         SensorC = SimulatedRig.DefaultAmbientC;
+        _bodyC = SensorC;
     }
 
     /// <summary>The unit's serial.</summary>
@@ -192,18 +196,32 @@ public sealed class SimulatedUnit
     }
 
     /// <summary>
-    /// Output of a resistor-trimmed unit: <c>V = (1 + Rf/Rg)·u(T) + Vref·Rfo/Ro</c> with the parts now fitted
+    /// Noise-free output of an analog unit as it is while being calibrated, volts: nominal DAC codes (CTP-40A) or the
+    /// design's precision calibration parts (CTP-40R), with the sensor settled at <paramref name="sensorC"/>. Ground truth
+    /// of the curve a gain-and-offset trim maps onto its target; 0 V for a digital unit.
+    /// </summary>
+    public double CalibrationOutputVolts(double sensorC) => Design.Kind switch
+    {
+        SimulatedUnitKind.ResistorTrimmed => ResistorOutputVolts(sensorC, Design.GainFittedOhms, Design.OffsetFittedOhms),
+        SimulatedUnitKind.FirmwareTrimmed => 0.0,
+        _ => TrueOutputVolts(sensorC, Design.CodeNominal, Design.CodeNominal),
+    };
+
+    /// <summary>Output of a resistor-trimmed unit with the parts now fitted.</summary>
+    private double ResistorOutputVolts(double sensorC) =>
+        ResistorOutputVolts(sensorC, _fittedOhms[Design.GainPosition], _fittedOhms[Design.OffsetPosition]);
+
+    /// <summary>
+    /// Output of a resistor-trimmed unit: <c>V = (1 + Rf/Rg)·u(T) + Vref·Rfo/Ro</c> with the given parts
     /// (an open position gives G = 1 or no offset) and <c>u(T) = A·(V_b − V_f(T) + e_in)</c>, clipped to the swing.
     /// </summary>
-    private double ResistorOutputVolts(double sensorC)
+    private double ResistorOutputVolts(double sensorC, double? rg, double? ro)
     {
         if (Defect == UnitDefect.OpenSensor)
         {
             return Parameters.OpenRailVolts;
         }
 
-        var rg = _fittedOhms[Design.GainPosition];
-        var ro = _fittedOhms[Design.OffsetPosition];
         var gain = rg is { } g ? 1.0 + (Design.GainFeedbackOhms / g) : 1.0;
         var offset = ro is { } o ? Design.OffsetNetworkReferenceVolts * Design.OffsetFeedbackOhms / o : 0.0;
         var forward = SensedVolts(sensorC);
@@ -250,6 +268,7 @@ public sealed class SimulatedUnit
     internal void PlaceAt(double sensorC, DateTimeOffset time)
     {
         SensorC = sensorC;
+        _bodyC = sensorC;
         SensorTime = time;
     }
 
@@ -263,7 +282,15 @@ public sealed class SimulatedUnit
 
         // The well is the reference well plus a static offset, so follow the reference well and add the offset back.
         var offset = block.SlotOffsetC(slot);
-        SensorC = block.Follow(SensorC - offset, since, now, Parameters.LagTimeConstantSeconds) + offset;
+        var bodyBefore = _bodyC;
+        _bodyC = block.Follow(_bodyC - offset, since, now, Parameters.LagTimeConstantSeconds) + offset;
+
+        // The die follows the body through its own lag: exact for a body that moves linearly between two updates (the
+        // station reads every few seconds, far shorter than the body's time constant).
+        var seconds = (now - since).TotalSeconds;
+        SensorC = Parameters.TipLagTimeConstantSeconds > 0
+            ? FirstOrderLag.FollowLinear(SensorC, bodyBefore, (_bodyC - bodyBefore) / seconds, seconds, Parameters.TipLagTimeConstantSeconds)
+            : _bodyC;
         SensorTime = now;
     }
 
