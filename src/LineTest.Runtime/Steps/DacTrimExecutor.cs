@@ -40,9 +40,9 @@ internal static class DacTrimExecutor
 
         unit.Trim = trim.ToRecord();
         unit.Add(UnlimitedReading.Create($"{name}.slope", trim.Fit.Slope * 1000, "mV/degC") with { Step = name, At = now });
+        AddCodes(unit, name, spec, trim.GainCode, trim.OffsetCode, now);
         if (!TrimInputs.RecordPrediction(sequence, step, unit, trim, curve, instruments.Fixture, now))
         {
-            AddCodes(unit, name, spec, trim.GainCode, trim.OffsetCode, now);
             return;
         }
 
@@ -57,6 +57,13 @@ internal static class DacTrimExecutor
                 At = instruments.Now,
                 Note = check.Applied ? null : "the output did not move as a DAC step error would explain; codes left as computed for verify to judge",
             });
+            // The code readings say what is stored: the checked codes (in range, as the check keeps them), in place.
+            foreach (var (reading, code) in new[] { ($"{name}.gainCode", gainCode), ($"{name}.offsetCode", offsetCode) })
+            {
+                var index = unit.Readings.FindLastIndex(r => r.Name == reading);
+                unit.Readings[index] = unit.Readings[index] with { Value = code };
+            }
+
             unit.Trim = unit.Trim with
             {
                 Values = new Dictionary<string, double>(unit.Trim.Values, StringComparer.Ordinal) { ["gainCode"] = gainCode, ["offsetCode"] = offsetCode },
@@ -69,7 +76,6 @@ internal static class DacTrimExecutor
             };
         }
 
-        AddCodes(unit, name, spec, gainCode, offsetCode, instruments.Now);
         var values = new Dictionary<string, long>(StringComparer.Ordinal) { [spec.Gain.Register] = gainCode, [spec.Offset.Register] = offsetCode };
         var readBack = await TrimInputs.WriteStoreReadBackAsync(instruments, unit.Slot, values, ct).ConfigureAwait(false);
         foreach (var (register, value) in values)

@@ -80,6 +80,8 @@ public sealed class DacTrimExecutorTests
                 units++;
                 checkedUnits += run.Readings.Any(r => r.Name == "trim.check.residual" && r.Note is null) ? 1 : 0;
                 var trim = run.Trim!;
+                Assert.Equal(trim.Values["gainCode"], run.Readings.Single(r => r.Name == "trim.gainCode").Value);
+                Assert.Equal(trim.Values["offsetCode"], run.Readings.Single(r => r.Name == "trim.offsetCode").Value);
                 var gain = (long)trim.Values["gainCode"];
                 var offset = (long)trim.Values["offsetCode"];
                 var shift = trim.Inputs.TryGetValue("check.residualVolts", out var r) ? r : 0.0;
