@@ -1,4 +1,5 @@
 using LineTest.Core.Fixtures;
+using LineTest.Core.Stability;
 
 namespace LineTest.Core.Decisions;
 
@@ -14,6 +15,39 @@ public static class StationBudgets
     {
         ArgumentNullException.ThrowIfNull(samples);
         return samples.Length < 2 ? [] : [UncertaintyComponent.FromSamples(name, samples, sensitivity)];
+    }
+
+    /// <summary>The name of the extrapolation component in a predictive reading's budget.</summary>
+    public const string ExtrapolationComponent = "extrapolation to the final value";
+
+    /// <summary>
+    /// The extrapolation's own component of a reading taken in predictive settle mode: the standard uncertainty of the
+    /// fitted final value u(y∞) (<see cref="ExponentialApproachFit"/>, Gauss–Newton covariance scaled by the residual
+    /// variance), Type A with ν = n − 3 (JCGM 100:2008 §4.2, §H.3: three parameters fitted to n readings), through
+    /// <paramref name="sensitivity"/> into the reading's unit.
+    /// </summary>
+    public static UncertaintyComponent Extrapolation(ExponentialApproachResult fit, double sensitivity = 1.0)
+    {
+        ArgumentNullException.ThrowIfNull(fit);
+        if (!fit.Converged)
+        {
+            throw new ArgumentException("An extrapolation component needs a converged fit.", nameof(fit));
+        }
+
+        return UncertaintyComponent.FromStandard(
+            ExtrapolationComponent, fit.FinalValueStandardUncertainty, UncertaintyType.A, sensitivity, Math.Max(1, fit.Readings - 3));
+    }
+
+    /// <summary>
+    /// <paramref name="budget"/> for a reading taken in predictive mode, its samples already moved to the final value
+    /// along the fitted approach: the same components plus the <paramref name="extrapolation"/> components, each its own
+    /// line of the budget so that the guard band widens by them (JCGM 100:2008 §5.1.2).
+    /// </summary>
+    public static UncertaintyBudget Predicted(UncertaintyBudget budget, params UncertaintyComponent[] extrapolation)
+    {
+        ArgumentNullException.ThrowIfNull(budget);
+        ArgumentNullException.ThrowIfNull(extrapolation);
+        return new UncertaintyBudget([.. budget.Components, .. extrapolation]);
     }
 
     /// <summary>Half-width of the meter's specification for a reading, volts (± % of reading + offset).</summary>

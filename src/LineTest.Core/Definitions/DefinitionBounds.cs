@@ -75,6 +75,9 @@ public static class DefinitionBounds
     /// <summary>The spread (1σ) of the unit lag between parts, as a fraction.</summary>
     public static readonly NumberBound LagSpread = NumberBound.NonNegative(0.5, string.Empty);
 
+    /// <summary>A simulated sensor's own response time, seconds; 0 for none.</summary>
+    public static readonly NumberBound SensorLagSeconds = NumberBound.NonNegative(600, "s");
+
     /// <summary>Setpoints of one sequence.</summary>
     public static readonly NumberBound SetpointCount = NumberBound.Count(1, 50);
 
@@ -209,6 +212,8 @@ public static class DefinitionBounds
         [(typeof(SimulationDefinition), nameof(SimulationDefinition.SlotOffsetsC))] = SlotOffsetC,
         [(typeof(SimulationDefinition), nameof(SimulationDefinition.DefectRate))] = Share,
         [(typeof(SimulationDefinition), nameof(SimulationDefinition.SensorDefectRate))] = Share,
+        [(typeof(SimulationDefinition), nameof(SimulationDefinition.ReferenceLagTimeConstantSeconds))] = SensorLagSeconds,
+        [(typeof(SimulationDefinition), nameof(SimulationDefinition.UnitTipLagFraction))] = Share,
         [(typeof(SequenceDefinition), nameof(SequenceDefinition.Revision))] = Revision,
         [(typeof(SequenceDefinition), nameof(SequenceDefinition.NominalBiasAmps))] = SensorCurrentAmps,
         [(typeof(StabilitySettings), nameof(StabilitySettings.BandC))] = TemperatureBandC,

@@ -52,6 +52,8 @@ public static class FixtureChecker
         DefinitionBounds.NoiseVolts.Check(sim.UnitOutputNoiseVolts, "$.simulation.unitOutputNoiseVolts", problems);
         DefinitionBounds.Share.Check(sim.DefectRate, "$.simulation.defectRate", problems);
         DefinitionBounds.Share.Check(sim.SensorDefectRate, "$.simulation.sensorDefectRate", problems);
+        DefinitionBounds.SensorLagSeconds.Check(sim.ReferenceLagTimeConstantSeconds, "$.simulation.referenceLagTimeConstantSeconds", problems);
+        DefinitionBounds.Share.Check(sim.UnitTipLagFraction, "$.simulation.unitTipLagFraction", problems);
         problems.AddIf(sim.SlotOffsetsC.Count > slots, "$.simulation.slotOffsetsC", $"more offsets ({sim.SlotOffsetsC.Count}) than slots ({slots})");
         for (var i = 0; i < sim.SlotOffsetsC.Count; i++)
         {

@@ -26,4 +26,17 @@ public sealed record SimulationDefinition
     /// part, chosen evenly): rare, so that yields stay believable. Found by an I–V sweep.
     /// </summary>
     public double SensorDefectRate { get; init; } = 0.006;
+
+    /// <summary>
+    /// Time constant with which the reference sensor follows its well, seconds (its own response time; 0 for none). It
+    /// gives the reference's approach a second, fast time constant that a first-order fit does not have.
+    /// </summary>
+    public double ReferenceLagTimeConstantSeconds { get; init; }
+
+    /// <summary>
+    /// The sensing die's own lag behind the probe body, as a fraction of the unit's lag time constant (0 for none): a
+    /// unit's sensor then follows its well through two lags in series, not the single lag the station's follower fit
+    /// assumes.
+    /// </summary>
+    public double UnitTipLagFraction { get; init; }
 }

@@ -41,25 +41,60 @@ public sealed class PredictiveSettleTracker
     /// <summary>The latest decision, null before the first reading.</summary>
     public PredictiveSettleDecision? Last { get; private set; }
 
+    /// <summary>Time of the first reading of the latest fit, seconds (the fit's t = 0); NaN before the first reading.</summary>
+    public double FitOriginSeconds { get; private set; } = double.NaN;
+
     /// <summary>True once the tracker has fallen back; it then stays so.</summary>
     public bool FellBack => Last?.Outcome == PredictiveSettleOutcome.FallBack;
 
-    /// <summary>Adds a reading (time-ordered seconds, value) and decides again.</summary>
-    public PredictiveSettleDecision Add(double seconds, double value)
+    /// <summary>Adds a reading (time-ordered seconds, value) and decides again with a first-order fit.</summary>
+    public PredictiveSettleDecision Add(double seconds, double value) => Fit(seconds, value, null);
+
+    /// <summary>
+    /// Adds a reading of a follower of a leader's approach (a unit following the block) and decides again with a
+    /// <see cref="FollowerApproachFit"/> on the leader's fitted time constant; with no usable leader fit yet
+    /// (<paramref name="leader"/> null) it keeps waiting.
+    /// </summary>
+    public PredictiveSettleDecision AddFollowing(double seconds, double value, ExponentialApproachResult? leader)
+    {
+        if (leader is { IsUsable: true })
+        {
+            return Fit(seconds, value, leader);
+        }
+
+        if (FellBack)
+        {
+            return Last!;
+        }
+
+        Enqueue(seconds, value);
+        var waiting = ExponentialApproachResult.NotConverged(_readings.Count, "the leader's approach is not fitted yet");
+        Last = new PredictiveSettleDecision(PredictiveSettleOutcome.KeepWaiting, "no fit yet: the reference's approach is not fitted yet", waiting);
+        return Last;
+    }
+
+    private void Enqueue(double seconds, double value)
+    {
+        _readings.Enqueue((seconds, value));
+        while (_readings.Count > FollowerApproachFit.MinimumReadings && seconds - _readings.Peek().Seconds > FitSpanSeconds)
+        {
+            _readings.Dequeue();
+        }
+    }
+
+    private PredictiveSettleDecision Fit(double seconds, double value, ExponentialApproachResult? leader)
     {
         if (FellBack)
         {
             return Last!;
         }
 
-        _readings.Enqueue((seconds, value));
-        while (_readings.Count > ExponentialApproachFit.MinimumReadings && seconds - _readings.Peek().Seconds > FitSpanSeconds)
-        {
-            _readings.Dequeue();
-        }
-
+        Enqueue(seconds, value);
         var readings = _readings.ToArray();
-        var fit = ExponentialApproachFit.Fit(readings, _options);
+        FitOriginSeconds = readings[0].Seconds;
+        var fit = leader is null
+            ? ExponentialApproachFit.Fit(readings, _options)
+            : FollowerApproachFit.Fit(readings, leader.TimeConstantSeconds, leader.TimeConstantStandardUncertainty, _options);
         var span = readings[^1].Seconds - readings[0].Seconds;
         var decision = PredictiveSettle.Decide(fit, span, _setpointC, _maxOffsetFromSetpointC, _maxUncertaintyC);
         if (decision.Outcome == PredictiveSettleOutcome.FallBack && fit.Disturbed && !_sawUsableFit)
@@ -67,8 +102,24 @@ public sealed class PredictiveSettleTracker
             decision = decision with { Outcome = PredictiveSettleOutcome.KeepWaiting, Why = $"not yet a first-order approach ({decision.Why})" };
         }
 
-        _sawUsableFit |= fit.IsUsable;
+        // Only a fit over at least the covered time constants establishes the approach: an early fit over a short
+        // stretch (the end of the ramp) can look usable and then stop fitting without any disturbance.
+        _sawUsableFit |= fit.IsUsable && span >= PredictiveSettle.MinimumTimeConstantsCovered * fit.TimeConstantSeconds;
         Last = decision;
         return decision;
+    }
+
+    /// <summary>
+    /// The latest fit's value at <paramref name="seconds"/> (same time origin as <see cref="Add"/>, see
+    /// <see cref="ExponentialApproachResult.ValueAt"/>). NaN when the latest fit did not converge.
+    /// </summary>
+    public double PredictedAt(double seconds)
+    {
+        if (Last?.Fit is not { Converged: true } fit)
+        {
+            return double.NaN;
+        }
+
+        return fit.ValueAt(seconds - FitOriginSeconds);
     }
 }

@@ -1,6 +1,7 @@
 using LineTest.Core.Fixtures;
 using LineTest.Core.Sequences;
 using LineTest.Core.Sequences.Steps;
+using LineTest.Core.Stability;
 
 namespace LineTest.Core.Throughput;
 
@@ -12,6 +13,12 @@ namespace LineTest.Core.Throughput;
 /// sweeps). No schedule can beat it; the ratio of it to a simulated batch says how much
 /// cycle time is left on the table.
 /// </summary>
+/// <remarks>
+/// At a setpoint whose settle mode is <c>predictive</c> (<see cref="SettleSettings.For"/>) the leg is the predictive
+/// one: no band, window or soak to wait for, but the fit needs the readings to cover at least
+/// <see cref="PredictiveSettle.MinimumTimeConstantsCovered"/> time constants of the first-order approach, which starts
+/// when the ramp ends; so travel is the ramp plus that many τ.
+/// </remarks>
 public static class ThermalBound
 {
     /// <summary>Computes the bound for one batch of <paramref name="units"/> units starting at <paramref name="startC"/>.</summary>
@@ -83,8 +90,29 @@ public static class ThermalBound
             : tau * Math.Log(delta / bandC);
     }
 
+    /// <summary>
+    /// Seconds the source ramps at its rate limit from <paramref name="fromC"/> towards <paramref name="toC"/> before
+    /// its first-order approach begins (|Δ| − rτ)/r, or 0 when the step is within rτ.
+    /// </summary>
+    public static double RampSeconds(SourceDefinition source, double fromC, double toC)
+    {
+        ArgumentNullException.ThrowIfNull(source);
+        var delta = Math.Abs(toC - fromC);
+        var ratePerSecond = (toC > fromC ? source.RampUpCPerMinute : source.RampDownCPerMinute) / 60.0;
+        var knee = ratePerSecond * source.SettlingTimeConstantSeconds;
+        return delta > knee ? (delta - knee) / ratePerSecond : 0;
+    }
+
     private static ThermalBoundLeg Leg(SequenceDefinition sequence, SourceDefinition source, SetpointDefinition setpoint, double fromC, double measureSeconds)
     {
+        if (SettleSettings.For(sequence, setpoint.Name).Mode == SettleModes.Predictive)
+        {
+            var approach = Math.Abs(setpoint.Celsius - fromC) > 0
+                ? PredictiveSettle.MinimumTimeConstantsCovered * source.SettlingTimeConstantSeconds
+                : 0;
+            return new ThermalBoundLeg(setpoint.Name, setpoint.Celsius, RampSeconds(source, fromC, setpoint.Celsius) + approach, 0, 0, measureSeconds);
+        }
+
         var travel = TravelSeconds(source, fromC, setpoint.Celsius, sequence.Stability.BandC);
 
         // Stability can only be declared after a full window of in-band readings; the units then need at least

@@ -23,8 +23,11 @@ public sealed class SimulatedReferenceReadout : IReferenceReadout
     private readonly TimeProvider _timeProvider;
     private readonly Random _rng;
     private readonly FaultGate _faults = new();
+    private readonly double _lagSeconds;
     private double _driftCPerHour;
     private DateTimeOffset _driftStart;
+    private double _sensorC;
+    private DateTimeOffset _sensorTime;
 
     /// <summary>Creates a readout in <paramref name="block"/>'s reference well.</summary>
     /// <param name="block">The block whose reference well the sensor sits in.</param>
@@ -33,7 +36,10 @@ public sealed class SimulatedReferenceReadout : IReferenceReadout
     /// <param name="timeProvider">The (virtual) clock, for drift faults.</param>
     /// <param name="seed">Seed of the readout noise.</param>
     /// <param name="noiseC">Readout noise, °C (1σ).</param>
-    public SimulatedReferenceReadout(SimulatedDryBlock block, Func<double, double> celsiusToRaw, double resolution, TimeProvider timeProvider, int seed, double noiseC = DefaultNoiseC)
+    /// <param name="lagSeconds">The sensor's own response time in its well, seconds (0: it reads the well as it is).</param>
+    public SimulatedReferenceReadout(
+        SimulatedDryBlock block, Func<double, double> celsiusToRaw, double resolution, TimeProvider timeProvider, int seed, double noiseC = DefaultNoiseC,
+        double lagSeconds = 0)
     {
         ArgumentNullException.ThrowIfNull(block);
         ArgumentNullException.ThrowIfNull(celsiusToRaw);
@@ -54,6 +60,14 @@ public sealed class SimulatedReferenceReadout : IReferenceReadout
         _noiseC = noiseC;
         _timeProvider = timeProvider;
         _rng = new Random(seed);
+        if (!double.IsFinite(lagSeconds) || lagSeconds < 0)
+        {
+            throw new ArgumentOutOfRangeException(nameof(lagSeconds), lagSeconds, "simulation.referenceLagTimeConstantSeconds must be zero or positive.");
+        }
+
+        _lagSeconds = lagSeconds;
+        _sensorTime = timeProvider.GetUtcNow();
+        _sensorC = block.TrueTemperatureAt(_sensorTime);
     }
 
     /// <inheritdoc/>
@@ -95,7 +109,7 @@ public sealed class SimulatedReferenceReadout : IReferenceReadout
             }
 
             var drift = _driftCPerHour == 0 ? 0 : _driftCPerHour * (_timeProvider.GetUtcNow() - _driftStart).TotalHours;
-            var celsius = _block.SampleTemperatureC() + drift + (_noiseC > 0 ? _rng.NextNormal(0, _noiseC) : 0);
+            var celsius = SensedLocked() + drift + (_noiseC > 0 ? _rng.NextNormal(0, _noiseC) : 0);
             var raw = _celsiusToRaw(celsius);
             if (!double.IsFinite(raw))
             {
@@ -104,5 +118,23 @@ public sealed class SimulatedReferenceReadout : IReferenceReadout
 
             return _resolution > 0 ? Math.Round(raw / _resolution) * _resolution : raw;
         }
+    }
+
+    /// <summary>
+    /// Under the lock: the well as the sensor senses it now — the block's sample (true value and noise) with, when the
+    /// sensor has a response time, the true value replaced by the sensor's exact first-order lag behind the well.
+    /// </summary>
+    private double SensedLocked()
+    {
+        var sample = _block.SampleTemperatureC();
+        if (_lagSeconds <= 0)
+        {
+            return sample;
+        }
+
+        var now = _timeProvider.GetUtcNow();
+        _sensorC = _block.Follow(_sensorC, _sensorTime, now, _lagSeconds);
+        _sensorTime = now;
+        return sample - _block.TrueTemperatureAt(now) + _sensorC;
     }
 }

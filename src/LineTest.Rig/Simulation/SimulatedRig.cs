@@ -43,7 +43,8 @@ public sealed class SimulatedRig
         TimeProvider = timeProvider;
         var seeds = new Random(seed);
         Block = new SimulatedDryBlock(fixture.Source, Simulation, timeProvider, seeds.Next());
-        Reference = new SimulatedReferenceReadout(Block, celsiusToRaw, fixture.Reference.ReadoutResolution, timeProvider, seeds.Next());
+        Reference = new SimulatedReferenceReadout(Block, celsiusToRaw, fixture.Reference.ReadoutResolution, timeProvider, seeds.Next(),
+            lagSeconds: Simulation.ReferenceLagTimeConstantSeconds);
         _slots = fixture.Slots.ToDictionary(s => s.Slot, s => new SimulatedSlot(s, Block, timeProvider));
         Meter = new SimulatedVoltmeter(fixture.Meter, _slots.Values, seeds.Next());
         _links = _slots.ToDictionary(p => p.Key, p => new SimulatedUnitLink(p.Value));

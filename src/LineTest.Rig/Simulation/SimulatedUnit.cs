@@ -22,6 +22,9 @@ public sealed class SimulatedUnit
     private readonly Dictionary<string, long> _stored;
     private readonly Dictionary<string, double?> _fittedOhms;
 
+    // The probe body's temperature, °C: the die (SensorC) follows it through the tip lag.
+    private double _bodyC;
+
     internal SimulatedUnit(
         string serial,
         SimulatedUnitDesign design,
@@ -57,6 +60,7 @@ public sealed class SimulatedUnit
         }
 
         SensorC = SimulatedRig.DefaultAmbientC;
+        _bodyC = SensorC;
     }
 
     /// <summary>The unit's serial.</summary>
@@ -264,6 +268,7 @@ public sealed class SimulatedUnit
     internal void PlaceAt(double sensorC, DateTimeOffset time)
     {
         SensorC = sensorC;
+        _bodyC = sensorC;
         SensorTime = time;
     }
 
@@ -277,7 +282,15 @@ public sealed class SimulatedUnit
 
         // The well is the reference well plus a static offset, so follow the reference well and add the offset back.
         var offset = block.SlotOffsetC(slot);
-        SensorC = block.Follow(SensorC - offset, since, now, Parameters.LagTimeConstantSeconds) + offset;
+        var bodyBefore = _bodyC;
+        _bodyC = block.Follow(_bodyC - offset, since, now, Parameters.LagTimeConstantSeconds) + offset;
+
+        // The die follows the body through its own lag: exact for a body that moves linearly between two updates (the
+        // station reads every few seconds, far shorter than the body's time constant).
+        var seconds = (now - since).TotalSeconds;
+        SensorC = Parameters.TipLagTimeConstantSeconds > 0
+            ? FirstOrderLag.FollowLinear(SensorC, bodyBefore, (_bodyC - bodyBefore) / seconds, seconds, Parameters.TipLagTimeConstantSeconds)
+            : _bodyC;
         SensorTime = now;
     }
 

@@ -157,7 +157,12 @@ public sealed class SimulatedUnitFactory
             d.BandGapNominalElectronVolts, d.BandGapSpreadElectronVolts, d.BandGapNominalElectronVolts - (2 * d.BandGapSpreadElectronVolts), d.BandGapNominalElectronVolts + (2 * d.BandGapSpreadElectronVolts));
         var beta = part.NextTruncatedNormal(0, d.NonLinearitySpreadPerVolt, -2 * d.NonLinearitySpreadPerVolt, 2 * d.NonLinearitySpreadPerVolt);
         var withLaw = DiodeWithLaw(parameters.Diode, xti, bandGap);
-        parameters = parameters with { Diode = SensorWithDefect(withLaw, defect, part), NonLinearityPerVolt = beta };
+        parameters = parameters with
+        {
+            Diode = SensorWithDefect(withLaw, defect, part),
+            NonLinearityPerVolt = beta,
+            TipLagTimeConstantSeconds = parameters.LagTimeConstantSeconds * _simulation.UnitTipLagFraction,
+        };
         return new SimulatedUnit(serial, d, parameters, defect, _simulation.UnitOutputNoiseVolts, noiseSeed);
     }
 

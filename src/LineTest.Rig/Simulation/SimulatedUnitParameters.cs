@@ -26,4 +26,10 @@ public sealed record SimulatedUnitParameters(
     /// <c>v + β·(v − v_c)²</c> for a diode voltage v (<see cref="SimulatedUnitDesign.NonLinearityCentreVolts"/> is v_c).
     /// </summary>
     public double NonLinearityPerVolt { get; init; }
+
+    /// <summary>
+    /// Time constant with which the sensing die follows the probe body, seconds (0: the die is the body). The body follows
+    /// the well with <see cref="LagTimeConstantSeconds"/>, so the die lags the well through two lags in series.
+    /// </summary>
+    public double TipLagTimeConstantSeconds { get; init; }
 }

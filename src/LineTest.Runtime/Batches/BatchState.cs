@@ -1,4 +1,5 @@
 using LineTest.Core.Results;
+using LineTest.Runtime.Steps;
 
 namespace LineTest.Runtime.Batches;
 
@@ -24,6 +25,12 @@ internal sealed class BatchState
 
     /// <summary>The setpoint commanded ahead of its settle step, and when (see <see cref="BatchPlanner"/>); null once used.</summary>
     public (string Name, DateTimeOffset At)? PreCommanded { get; set; }
+
+    /// <summary>
+    /// Setpoints settled in predictive mode whose readings are taken from the predictions, by setpoint name (replaced at
+    /// each settle; removed when a setpoint falls back to the window).
+    /// </summary>
+    public Dictionary<string, PredictiveApproach> Predictions { get; } = new(StringComparer.Ordinal);
 
     /// <summary>Units still in progress, in slot order (a fresh list each time: callers may end units while iterating).</summary>
     public IReadOnlyList<UnitContext> Active => Units.Where(u => !u.IsFinished).OrderBy(u => u.Slot).ToList();

@@ -40,4 +40,11 @@ internal static partial class RuntimeLog
 
     [LoggerMessage(EventId = 1040, Level = LogLevel.Debug, Message = "Batch {BatchId}: block at {BlockC:F1} °C, setpoints in order {Order}")]
     public static partial void SetpointOrder(ILogger logger, string batchId, double blockC, string order);
+
+    [LoggerMessage(EventId = 1041, Level = LogLevel.Information,
+        Message = "Predictive settle at {Setpoint} ({TargetC} °C): readings taken {Seconds:F0} s after the command, reference predicted {PredictedC:F3} °C, u {UncertaintyC:F4} °C")]
+    public static partial void PredictiveTaken(ILogger logger, string setpoint, double targetC, double seconds, double predictedC, double uncertaintyC);
+
+    [LoggerMessage(EventId = 1042, Level = LogLevel.Information, Message = "Predictive settle at {Setpoint} fell back to the stability window: {Why}")]
+    public static partial void PredictiveFellBack(ILogger logger, string setpoint, string why);
 }

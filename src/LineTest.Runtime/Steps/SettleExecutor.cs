@@ -10,8 +10,10 @@ namespace LineTest.Runtime.Steps;
 /// <summary>
 /// Runs a <see cref="SettleStep"/> for the whole batch (the units share one source): command the setpoint (unless it
 /// was commanded ahead, see <see cref="BatchState.PreCommanded"/>), wait until the reference is stable within the
-/// sequence's band and near the setpoint, then soak the units (<see cref="SoakRunner"/>). The baseline schedule waits
-/// fixed times instead. A source that never settles stops the batch.
+/// sequence's band and near the setpoint, then soak the units (<see cref="SoakRunner"/>). In predictive mode
+/// (<see cref="PredictiveSettleRunner"/>) the readings are taken from the fitted approach as soon as its extrapolation is
+/// certain enough, with no soak; a fallback goes on as in window mode and records why. The baseline schedule waits
+/// fixed times instead (and ignores the settle mode). A source that never settles stops the batch.
 /// </summary>
 internal sealed class SettleExecutor : StepExecutor<SettleStep>
 {
@@ -54,10 +56,55 @@ internal sealed class SettleExecutor : StepExecutor<SettleStep>
 
         var stability = sequence.Stability;
         var window = new StabilityWindow(stability.WindowSeconds, stability.BandC, stability.MaxDriftCPerMinute);
-        StabilityVerdict verdict;
+        batch.Predictions.Remove(setpoint.Name);
+        var settle = SettleSettings.For(sequence, setpoint.Name);
+        PredictiveApproach? approach = null;
+        if (settle.Mode == SettleModes.Predictive)
+        {
+            approach = await PredictiveSettleRunner.ApproachAsync(context, setpoint, settle, commanded, window, ct).ConfigureAwait(false);
+            if (approach.Taken)
+            {
+                var takenAt = instruments.Now;
+                var fit = approach.Reference.Last!.Fit;
+                RuntimeLog.PredictiveTaken(context.Logger, setpoint.Name, setpoint.Celsius, (takenAt - commanded).TotalSeconds, fit.FinalValue,
+                    fit.FinalValueStandardUncertainty);
+                context.Observer.SourceChanged(setpoint.Celsius, fit.FinalValue, "stable");
+                SourceStable(context);
+                batch.Predictions[setpoint.Name] = approach;
+                PredictiveSettleRunner.Record(context, step, approach);
+                Record(batch, new SetpointRecord(setpoint.Name, setpoint.Celsius, fit.FinalValue, (takenAt - commanded).TotalSeconds, 0, takenAt));
+                return;
+            }
+
+            RuntimeLog.PredictiveFellBack(context.Logger, setpoint.Name, approach.FallbackReason ?? "unknown");
+        }
+
+        var verdict = await WaitForWindowAsync(context, setpoint, commanded, window, ct).ConfigureAwait(false);
+        var stableAt = instruments.Now;
+        var secondsToStable = (stableAt - commanded).TotalSeconds;
+        RuntimeLog.SourceStable(context.Logger, setpoint.Name, setpoint.Celsius, verdict.Mean!.Value, secondsToStable);
+        context.Observer.SourceChanged(setpoint.Celsius, verdict.Mean, "stable");
+        SourceStable(context);
+        var soakSeconds = await SoakRunner.SoakAsync(context, ct).ConfigureAwait(false);
+        if (approach is not null)
+        {
+            PredictiveSettleRunner.Record(context, step, approach);
+        }
+
+        Record(batch, new SetpointRecord(setpoint.Name, setpoint.Celsius, verdict.Mean, secondsToStable, soakSeconds, stableAt));
+    }
+
+    /// <summary>
+    /// Window mode: reads the reference every sample interval until the window is stable near the setpoint; a source
+    /// that does not get there within the timeout stops the batch.
+    /// </summary>
+    private static async Task<StabilityVerdict> WaitForWindowAsync(
+        StepContext context, SetpointDefinition setpoint, DateTimeOffset commanded, StabilityWindow window, CancellationToken ct)
+    {
+        var instruments = context.Instruments;
+        var stability = context.Sequence.Stability;
         while (true)
         {
-            var elapsed = (instruments.Now - commanded).TotalSeconds;
             var wait = stability.SampleIntervalSeconds - instruments.Timing.ReferenceReadSeconds;
             if (wait > 0)
             {
@@ -65,13 +112,13 @@ internal sealed class SettleExecutor : StepExecutor<SettleStep>
             }
 
             var celsius = await instruments.ReadReferenceAsync(ct).ConfigureAwait(false);
-            elapsed = (instruments.Now - commanded).TotalSeconds;
+            var elapsed = (instruments.Now - commanded).TotalSeconds;
             window.Add(elapsed, celsius);
-            verdict = window.Evaluate();
+            var verdict = window.Evaluate();
             context.Observer.SourceChanged(setpoint.Celsius, celsius, "settling");
             if (verdict.IsStable && Math.Abs(verdict.Mean!.Value - setpoint.Celsius) <= stability.MaxOffsetFromSetpointC)
             {
-                break;
+                return verdict;
             }
 
             if (elapsed > stability.TimeoutSeconds)
@@ -83,14 +130,6 @@ internal sealed class SettleExecutor : StepExecutor<SettleStep>
                     $"the source did not become stable at '{setpoint.Name}' ({F(setpoint.Celsius)} °C) within {F(stability.TimeoutSeconds)} s ({why})");
             }
         }
-
-        var stableAt = instruments.Now;
-        var secondsToStable = (stableAt - commanded).TotalSeconds;
-        RuntimeLog.SourceStable(context.Logger, setpoint.Name, setpoint.Celsius, verdict.Mean!.Value, secondsToStable);
-        context.Observer.SourceChanged(setpoint.Celsius, verdict.Mean, "stable");
-        SourceStable(context);
-        var soakSeconds = await SoakRunner.SoakAsync(context, ct).ConfigureAwait(false);
-        Record(batch, new SetpointRecord(setpoint.Name, setpoint.Celsius, verdict.Mean, secondsToStable, soakSeconds, stableAt));
     }
 
     /// <summary>

@@ -28,9 +28,7 @@ internal static class SoakRunner
         // Drift is judged in °C: volts from the meter over the output sensitivity, or raw counts from the link over
         // the raw sensitivity (the checker requires outputCountsPerC for a link soak).
         var overLink = soak.Output == UnitOutputs.Link;
-        var sensitivity = overLink
-            ? Math.Abs(soak.OutputCountsPerC ?? throw new InvalidOperationException("Checked sequences soaking over the link give outputCountsPerC."))
-            : Math.Abs(soak.OutputVoltsPerC ?? sequence.Trim?.AnalogTarget?.SlopeVoltsPerC ?? 0.01);
+        var sensitivity = Math.Abs(OutputPerC(sequence));
         var windows = context.Batch.Active.ToDictionary(
             u => u,
             _ => new StabilityWindow(soak.WindowSeconds, double.PositiveInfinity, soak.MaxDriftCPerMinute));
@@ -89,6 +87,30 @@ internal static class SoakRunner
 
         return (instruments.Now - start).TotalSeconds;
     }
+
+    /// <summary>
+    /// The soak quantity per °C, signed: raw counts per °C over the link (<c>outputCountsPerC</c>), else volts per °C
+    /// (<c>outputVoltsPerC</c>, the trim's target slope, or 10 mV/°C).
+    /// </summary>
+    public static double OutputPerC(SequenceDefinition sequence)
+    {
+        var soak = sequence.Soak;
+        return soak.Output == UnitOutputs.Link
+            ? soak.OutputCountsPerC ?? throw new InvalidOperationException("Checked sequences soaking over the link give outputCountsPerC.")
+            : soak.OutputVoltsPerC ?? sequence.Trim?.AnalogTarget?.SlopeVoltsPerC ?? 0.01;
+    }
+
+    /// <summary>
+    /// How much of <paramref name="read"/>'s quantity one °C of the unit's sensor makes, signed, for moving a sample to its
+    /// final value: the soak's own sensitivity for the soak's quantity, 1 for a temperature the unit reports; null
+    /// when the sequence does not say (raw counts without <c>outputCountsPerC</c>).
+    /// </summary>
+    public static double? QuantityPerC(SequenceDefinition sequence, UnitRead read) => read switch
+    {
+        UnitRead.Temperature => 1.0,
+        UnitRead.Raw => sequence.Soak.OutputCountsPerC,
+        _ => sequence.Soak.OutputVoltsPerC ?? sequence.Trim?.AnalogTarget?.SlopeVoltsPerC ?? 0.01,
+    };
 
     private static string F(double value) => value.ToString("0.###", CultureInfo.InvariantCulture);
 }

@@ -37,9 +37,18 @@ public static class BenchCommand
         var lineSeconds = new Option<double>("--page-line-seconds") { Description = "With --page: seconds between fetches of the line page", DefaultValueFactory = _ => 1 };
         var yieldSeconds = new Option<double>("--page-yield-seconds") { Description = "With --page: seconds between fetches of the yield page and a serial search", DefaultValueFactory = _ => 5 };
         var pairs = new Option<int>("--pairs") { Description = "Pairs of shifts (page closed, page open) for --page, after one warm-up pair", DefaultValueFactory = _ => 5 };
+        var settle = new Option<string?>("--settle")
+        {
+            Description = "Settle every setpoint of every sequence in this mode (window or predictive) instead of as the sequence says",
+        };
+        var maxExtrapolation = new Option<double>("--max-extrapolation-uncertainty")
+        {
+            Description = "With --settle predictive: the largest u of the extrapolated final value, degC",
+            DefaultValueFactory = _ => DefaultMaxExtrapolationUncertaintyC,
+        };
         var command = new Command("bench", "Simulated throughput against the baseline and the thermal bound, and the engine's own cost")
         {
-            sequences, fixture, batches, shiftUnits, json, accuracy, accuracyBatches, page, pairs, lineSeconds, yieldSeconds,
+            sequences, fixture, batches, shiftUnits, json, accuracy, accuracyBatches, page, pairs, lineSeconds, yieldSeconds, settle, maxExtrapolation,
         };
         command.SetAction(async (parse, ct) =>
         {
@@ -68,6 +77,12 @@ public static class BenchCommand
                 return context.BadInput($"--shift-units must be 0 or more, not {shiftCount}");
             }
 
+            var settleMode = parse.GetValue(settle);
+            if (settleMode is not null && !Core.Sequences.SettleModes.All.Contains(settleMode, StringComparer.Ordinal))
+            {
+                return context.BadInput($"--settle must be {string.Join(" or ", Core.Sequences.SettleModes.All)}, not '{settleMode}'");
+            }
+
             var files = parse.GetValue(sequences) is { Length: > 0 } given
                 ? given.Select(Path.GetFullPath).ToList()
                 : DemoSequences.Select(s => ContentRoot.Resolve(context.Root, s)).ToList();
@@ -85,7 +100,13 @@ public static class BenchCommand
                     return context.BadInput($"the simulator builds no '{result.Value.Product}' units (sequence {file})");
                 }
 
-                loaded.Add((result.Value, result.Sha256));
+                var forced = ForceSettle(result.Value, settleMode, parse.GetValue(maxExtrapolation));
+                if (forced.Problem is { } problem)
+                {
+                    return context.BadInput(problem);
+                }
+
+                loaded.Add((forced.Sequence!, result.Sha256));
             }
 
             if (parse.GetValue(accuracy))
@@ -144,7 +165,10 @@ public static class BenchCommand
                         batches = t.Batches,
                         baselineUnitsPerHour = Math.Round(t.BaselineUnitsPerHour, 2),
                         unitsPerHour = Math.Round(t.UnitsPerHour, 2),
+                        mode = t.Mode,
                         boundUnitsPerHour = Math.Round(t.BoundUnitsPerHour, 2),
+                        windowBoundUnitsPerHour = Math.Round(t.WindowBoundUnitsPerHour, 2),
+                        ratioToWindowBound = Math.Round(t.RatioToWindowBound, 3),
                         ratioToBound = Math.Round(t.RatioToBound, 3),
                         ratioToBaseline = Math.Round(t.RatioToBaseline, 2),
                         aborted = t.Aborted,
@@ -161,6 +185,34 @@ public static class BenchCommand
             return figures.Any(t => t.Aborted is not null) ? ExitCodes.RuntimeFailure : ExitCodes.Done;
         });
         return command;
+    }
+
+    /// <summary>The largest extrapolation uncertainty <c>--settle predictive</c> accepts unless told, °C (the demo sequences' own value).</summary>
+    public const double DefaultMaxExtrapolationUncertaintyC = 0.01;
+
+    /// <summary>
+    /// <paramref name="sequence"/> with <paramref name="mode"/> in force at every setpoint (as checked as the sequence's own
+    /// <c>settle</c> would be), or the sequence unchanged when no mode is given.
+    /// </summary>
+    public static (Core.Sequences.SequenceDefinition? Sequence, string? Problem) ForceSettle(Core.Sequences.SequenceDefinition sequence, string? mode, double maxUncertaintyC)
+    {
+        ArgumentNullException.ThrowIfNull(sequence);
+        if (mode is null)
+        {
+            return (sequence, null);
+        }
+
+        var settle = new Core.Sequences.SettleSettings
+        {
+            Mode = mode,
+            MaxExtrapolationUncertaintyC = mode == Core.Sequences.SettleModes.Predictive ? maxUncertaintyC : null,
+        };
+        var forced = Core.Sequences.SettleSettings.ForAll(sequence, settle);
+        var problems = new Core.Definitions.ProblemList();
+        Core.Sequences.SettleRules.Check(forced, problems);
+        return problems.Items.Count == 0
+            ? (forced, null)
+            : (null, $"--max-extrapolation-uncertainty for '{sequence.Id}': {string.Join("; ", problems.Items.Select(p => p.Reason))}");
     }
 
     private static object? EngineJson(EngineFigures? engine, string sequenceId) => engine is null ? null : new
@@ -181,11 +233,11 @@ public static class BenchCommand
         var inv = CultureInfo.InvariantCulture;
         o.WriteLine($"Simulated throughput on fixture {fixtureId} (batch time only, loading left out)");
         o.WriteLine();
-        o.WriteLine("sequence           units  baseline u/h  LineTest u/h  bound u/h  LineTest/bound  LineTest/baseline");
+        o.WriteLine("sequence           settle      units  baseline u/h  LineTest u/h  bound u/h  LineTest/bound  LineTest/baseline  window bound u/h  LineTest/window bound");
         foreach (var t in figures)
         {
             o.WriteLine(string.Create(inv,
-                $"{t.SequenceId,-18} {t.Units,5}  {t.BaselineUnitsPerHour,12:F2}  {t.UnitsPerHour,12:F2}  {t.BoundUnitsPerHour,9:F2}  {t.RatioToBound * 100,13:F1}%  {t.RatioToBaseline,16:F2}x"));
+                $"{t.SequenceId,-18} {t.Mode,-10}  {t.Units,5}  {t.BaselineUnitsPerHour,12:F2}  {t.UnitsPerHour,12:F2}  {t.BoundUnitsPerHour,9:F2}  {t.RatioToBound * 100,13:F1}%  {t.RatioToBaseline,16:F2}x  {t.WindowBoundUnitsPerHour,16:F2}  {t.RatioToWindowBound,20:F2}x"));
             if (t.Aborted is not null)
             {
                 o.WriteLine($"  a batch stopped: {t.Aborted}");

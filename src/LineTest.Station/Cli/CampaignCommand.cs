@@ -1,6 +1,7 @@
 using System.CommandLine;
 using System.Globalization;
 using System.Text.Json;
+using LineTest.Core.Sequences;
 using LineTest.Rig.Simulation;
 using LineTest.Runtime.Batches;
 using LineTest.Station.Campaign;
@@ -35,9 +36,13 @@ public static class CampaignCommand
         };
         var sequence = new Option<string?>("--sequence") { Description = "Sequence file (default: the station's)" };
         var fixture = new Option<string?>("--fixture") { Description = "Simulated fixture file (default: the station's)" };
+        var settle = new Option<string?>("--settle")
+        {
+            Description = "Settle every setpoint in this mode (window or predictive, the latter with bench's default extrapolation limit) instead of as the sequence says",
+        };
         var command = new Command("campaign", "Inject instrument and unit faults into simulated batches and audit what was stored")
         {
-            units, rate, seed, results, json, fuzz, fuzzFiles, sequence, fixture,
+            units, rate, seed, results, json, fuzz, fuzzFiles, sequence, fixture, settle,
         };
         command.SetAction(async (parse, ct) =>
         {
@@ -61,7 +66,19 @@ public static class CampaignCommand
                 return ExitCodes.BadInput;
             }
 
-            var seq = sequenceResult.Value!;
+            var settleMode = parse.GetValue(settle);
+            if (settleMode is not null && !SettleModes.All.Contains(settleMode, StringComparer.Ordinal))
+            {
+                return context.BadInput($"--settle must be {string.Join(" or ", SettleModes.All)}, not '{settleMode}'");
+            }
+
+            var forced = BenchCommand.ForceSettle(sequenceResult.Value!, settleMode, BenchCommand.DefaultMaxExtrapolationUncertaintyC);
+            if (forced.Problem is { } problem)
+            {
+                return context.BadInput(problem);
+            }
+
+            var seq = forced.Sequence!;
             if (SimulatedUnitDesign.ForProduct(seq.Product) is null)
             {
                 return context.BadInput($"sequence '{seq.Id}' tests '{seq.Product}', which the simulator does not build");

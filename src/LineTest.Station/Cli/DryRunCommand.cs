@@ -55,6 +55,9 @@ public static class DryRunCommand
                     boundBatchSeconds = Math.Round(report.Bound.BatchSeconds, 1),
                     boundUnitsPerHour = Math.Round(report.Bound.UnitsPerHour, 2),
                     units = report.Units,
+                    mode = SequenceMode(sequenceResult.Value),
+                    windowBoundBatchSeconds = Math.Round(report.WindowBound.BatchSeconds, 1),
+                    windowBoundUnitsPerHour = Math.Round(report.WindowBound.UnitsPerHour, 2),
                     setpoints = report.Setpoints.Select(p => new
                     {
                         name = p.Setpoint,
@@ -63,6 +66,8 @@ public static class DryRunCommand
                         rampAndStableSeconds = Math.Round(p.RampAndStableSeconds, 1),
                         soakSeconds = Math.Round(p.SoakSeconds, 1),
                         measureSeconds = Math.Round(p.MeasureSeconds, 1),
+                        mode = p.Mode,
+                        fallbackReason = p.FallbackReason,
                     }),
                     aborted = report.Aborted,
                 }));
@@ -77,20 +82,39 @@ public static class DryRunCommand
         return command;
     }
 
+    /// <summary>
+    /// The settle mode of <paramref name="sequence"/>: <c>window</c> or <c>predictive</c> when every setpoint has it,
+    /// <c>mixed</c> when setpoints differ.
+    /// </summary>
+    public static string SequenceMode(Core.Sequences.SequenceDefinition sequence)
+    {
+        ArgumentNullException.ThrowIfNull(sequence);
+        var modes = sequence.Setpoints.Select(s => Core.Sequences.SettleSettings.For(sequence, s.Name).Mode).Distinct(StringComparer.Ordinal).ToList();
+        return modes.Count == 1 ? modes[0] : "mixed";
+    }
+
     private static void Write(TextWriter o, DryRunReport r)
     {
         var inv = CultureInfo.InvariantCulture;
         o.WriteLine(string.Create(inv, $"Dry run: {r.Units} units, one batch, simulated"));
         o.WriteLine();
-        o.WriteLine("setpoint        °C   starts at  ramp+stable     soak  measure");
+        o.WriteLine("setpoint        °C   starts at  ramp+stable     soak  measure  settled by");
         foreach (var p in r.Setpoints)
         {
-            o.WriteLine(string.Create(inv, $"{p.Setpoint,-12} {p.Celsius,5:0.#}   {Minutes(p.StartSeconds),9}  {Minutes(p.RampAndStableSeconds),11}  {Minutes(p.SoakSeconds),7}  {Minutes(p.MeasureSeconds),7}"));
+            o.WriteLine(string.Create(inv, $"{p.Setpoint,-12} {p.Celsius,5:0.#}   {Minutes(p.StartSeconds),9}  {Minutes(p.RampAndStableSeconds),11}  {Minutes(p.SoakSeconds),7}  {Minutes(p.MeasureSeconds),7}  {p.Mode}"));
+            if (p.FallbackReason is not null)
+            {
+                o.WriteLine($"  fell back: {p.FallbackReason}");
+            }
         }
 
         o.WriteLine();
         o.WriteLine(string.Create(inv, $"Predicted batch time {Minutes(r.BatchSeconds)} ({r.BatchSeconds:F0} s): {r.UnitsPerHour:F1} units per hour"));
         o.WriteLine(string.Create(inv, $"Thermal lower bound  {Minutes(r.Bound.BatchSeconds)} ({r.Bound.BatchSeconds:F0} s): {r.Bound.UnitsPerHour:F1} units per hour ({(r.Bound.BatchSeconds / r.BatchSeconds * 100):F0} % of it reached)"));
+        if (Math.Abs(r.WindowBound.BatchSeconds - r.Bound.BatchSeconds) > 1e-9)
+        {
+            o.WriteLine(string.Create(inv, $"Wait-for-stability bound {Minutes(r.WindowBound.BatchSeconds)} ({r.WindowBound.BatchSeconds:F0} s): {r.WindowBound.UnitsPerHour:F1} units per hour (the window mode's bound; predictive gives {r.UnitsPerHour / r.WindowBound.UnitsPerHour:F2} × it)"));
+        }
         if (r.Aborted is not null)
         {
             o.WriteLine($"The batch did not complete: {r.Aborted}");

@@ -1,6 +1,7 @@
 using LineTest.Core.Fixtures;
 using LineTest.Core.Results;
 using LineTest.Core.Sequences;
+using LineTest.Core.Stability;
 using LineTest.Core.Throughput;
 using LineTest.Rig.Simulation;
 using LineTest.Runtime.Batches;
@@ -34,7 +35,9 @@ public static class DryRun
         // shortest-travel order also gives the lowest bound, so the bound stays a bound.
         var planned = SetpointPlan.Apply(sequence, perfect.Source, perfect.Source.StandbyC);
         var bound = ThermalBound.Compute(planned, perfect.Source, perfect.Source.StandbyC, loads.Count, timing.ReferenceReadSeconds, timing.MeterReadSeconds);
-        return new DryRunReport(Timeline(outcome), (outcome.Ended - outcome.Started).TotalSeconds, loads.Count, bound, outcome.Runs, outcome.Aborted);
+        var windowBound = ThermalBound.Compute(SettleSettings.ForAll(planned, null), perfect.Source, perfect.Source.StandbyC, loads.Count,
+            timing.ReferenceReadSeconds, timing.MeterReadSeconds);
+        return new DryRunReport(Timeline(outcome), (outcome.Ended - outcome.Started).TotalSeconds, loads.Count, bound, windowBound, outcome.Runs, outcome.Aborted);
     }
 
     private static List<DryRunPhase> Timeline(BatchOutcome outcome)
@@ -49,10 +52,29 @@ public static class DryRun
             var next = i + 1 < records.Count
                 ? records[i + 1].StableAt!.Value - TimeSpan.FromSeconds(records[i + 1].SecondsToStable)
                 : outcome.Ended;
-            phases.Add(new DryRunPhase(r.Name, r.TargetC, (commanded - outcome.Started).TotalSeconds, r.SecondsToStable, r.SoakSeconds, (next - soakEnd).TotalSeconds));
+            var (mode, why) = SettledBy(outcome, r.Name);
+            phases.Add(new DryRunPhase(r.Name, r.TargetC, (commanded - outcome.Started).TotalSeconds, r.SecondsToStable, r.SoakSeconds, (next - soakEnd).TotalSeconds,
+                mode, why));
         }
 
         return phases;
+    }
+
+    /// <summary>
+    /// How <paramref name="setpoint"/> settled, from the first run's <c>settle.&lt;setpoint&gt;.mode</c> reading: its note's
+    /// word and reason; <c>window</c> when the setpoint recorded none (window mode).
+    /// </summary>
+    private static (string Mode, string? Why) SettledBy(BatchOutcome outcome, string setpoint)
+    {
+        var name = SettleModeCodes.ModeReading(setpoint);
+        var note = outcome.Runs.SelectMany(r => r.Readings).FirstOrDefault(r => r.Name == name)?.Note;
+        if (note is null)
+        {
+            return (SettleModes.Window, null);
+        }
+
+        var colon = note.IndexOf(": ", StringComparison.Ordinal);
+        return colon < 0 ? (note, null) : (note[..colon], note[(colon + 2)..]);
     }
 
     private sealed class MemorySink : IRunSink

@@ -3,12 +3,17 @@ using LineTest.Core.Throughput;
 
 namespace LineTest.Station.Demo;
 
-/// <summary>What a dry run predicts.</summary>
+/// <summary>
+/// What a dry run predicts: the timeline, the batch time and the thermal bound of the sequence's own settle modes
+/// (<see cref="Bound"/>), beside the bound of waiting for stability everywhere (<see cref="WindowBound"/>; the same
+/// when the sequence is in window mode).
+/// </summary>
 public sealed record DryRunReport(
     IReadOnlyList<DryRunPhase> Setpoints,
     double BatchSeconds,
     int Units,
     ThermalBoundResult Bound,
+    ThermalBoundResult WindowBound,
     IReadOnlyList<RunRecord> Runs,
     string? Aborted)
 {

@@ -33,6 +33,7 @@ public static class ThroughputBench
         var fast = new BenchRig(fixture, sequence, sha256, seed, timing);
         var fastSeconds = 0.0;
         var boundSeconds = 0.0;
+        var windowBoundSeconds = 0.0;
         string? aborted = null;
         var blockC = fixture.Source.StandbyC;
         for (var b = 0; b < batches && aborted is null; b++)
@@ -41,6 +42,8 @@ public static class ThroughputBench
             fastSeconds += (outcome.Ended - outcome.Started).TotalSeconds;
             var planned = SetpointPlan.Apply(sequence, fixture.Source, blockC);
             boundSeconds += ThermalBound.Compute(planned, fixture.Source, blockC, slots.Count, timing.ReferenceReadSeconds, timing.MeterReadSeconds).BatchSeconds;
+            windowBoundSeconds += ThermalBound.Compute(SettleSettings.ForAll(planned, null), fixture.Source, blockC, slots.Count, timing.ReferenceReadSeconds,
+                timing.MeterReadSeconds).BatchSeconds;
             blockC = outcome.Setpoints.Count > 0 ? outcome.Setpoints[^1].TargetC : blockC;
             aborted = outcome.Aborted;
         }
@@ -55,7 +58,8 @@ public static class ThroughputBench
             aborted = outcome.Aborted;
         }
 
-        return new ThroughputFigures(sequence.Id, units, batches, baselineSeconds, fastSeconds, boundSeconds, aborted);
+        return new ThroughputFigures(sequence.Id, units, batches, baselineSeconds, fastSeconds, boundSeconds, aborted, windowBoundSeconds,
+            Cli.DryRunCommand.SequenceMode(sequence));
     }
 
     /// <summary>

@@ -13,7 +13,14 @@ namespace LineTest.Station.Demo;
 /// <param name="FastSeconds">Sum of the fast schedule's batch times, simulated seconds.</param>
 /// <param name="BoundSeconds">Sum of the thermal bounds of the fast schedule's batches, each from where its block started.</param>
 /// <param name="Aborted">Why a batch stopped, if one did (then the figures are not comparable).</param>
-public sealed record ThroughputFigures(string SequenceId, int Units, int Batches, double BaselineSeconds, double FastSeconds, double BoundSeconds, string? Aborted)
+/// <param name="WindowBoundSeconds">
+/// Sum of the wait-for-stability bounds of the same batches (every setpoint in window mode); equal to
+/// <paramref name="BoundSeconds"/> for a sequence in window mode, the old bound a predictive sequence is compared with.
+/// </param>
+/// <param name="Mode">The sequence's settle mode: <c>window</c>, <c>predictive</c> or <c>mixed</c>.</param>
+public sealed record ThroughputFigures(
+    string SequenceId, int Units, int Batches, double BaselineSeconds, double FastSeconds, double BoundSeconds, string? Aborted, double WindowBoundSeconds,
+    string Mode)
 {
     /// <summary>Baseline units per hour.</summary>
     public double BaselineUnitsPerHour => PerHour(BaselineSeconds);
@@ -23,6 +30,12 @@ public sealed record ThroughputFigures(string SequenceId, int Units, int Batches
 
     /// <summary>Units per hour at the thermal bound.</summary>
     public double BoundUnitsPerHour => PerHour(BoundSeconds);
+
+    /// <summary>Units per hour at the wait-for-stability bound.</summary>
+    public double WindowBoundUnitsPerHour => PerHour(WindowBoundSeconds);
+
+    /// <summary>LineTest's throughput over the wait-for-stability bound's (above 1 only when settling predictively).</summary>
+    public double RatioToWindowBound => WindowBoundUnitsPerHour > 0 ? UnitsPerHour / WindowBoundUnitsPerHour : 0;
 
     /// <summary>LineTest's throughput as a fraction of the bound's.</summary>
     public double RatioToBound => BoundUnitsPerHour > 0 ? UnitsPerHour / BoundUnitsPerHour : 0;

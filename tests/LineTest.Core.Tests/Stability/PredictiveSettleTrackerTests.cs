@@ -48,6 +48,43 @@ public sealed class PredictiveSettleTrackerTests
     }
 
     [Fact]
+    public void AddFollowing_UnitFollowingTheBlock_TakesAndPredictsTheWellTemperature()
+    {
+        // [derived] a unit with τ = 48 s following the block of the test above (closed form of a first-order lag of
+        // the exponential part, the unit starting 3 °C behind the block at the knee), read every 2 s with σ = 0.005 °C;
+        // its tracker waits for the block's fit, then takes with the well's final value inside 3 u.
+        var noise = new Normal(0, 0.005, new Random(77));
+        var block = new PredictiveSettleTracker(SetpointC, 1.0, MaxUncertaintyC, fitSpanSeconds: 160);
+        var unit = new PredictiveSettleTracker(0, double.PositiveInfinity, MaxUncertaintyC, fitSpanSeconds: 160);
+        var first = unit.AddFollowing(0, StartC, leader: null);
+        PredictiveSettleDecision? taken = null;
+        for (var t = KneeSeconds; t <= KneeSeconds + 600 && taken is null; t += 2)
+        {
+            block.Add(t, Block(t) + noise.Sample());
+            var decision = unit.AddFollowing(t, Unit(t - KneeSeconds) + noise.Sample(), block.Last?.Fit);
+            Assert.NotEqual(PredictiveSettleOutcome.FallBack, decision.Outcome);
+            taken = decision.Outcome == PredictiveSettleOutcome.Take ? decision : null;
+        }
+
+        Assert.Equal(PredictiveSettleOutcome.KeepWaiting, first.Outcome);
+        Assert.Contains("reference", first.Why, StringComparison.Ordinal);
+        Assert.NotNull(taken);
+        Assert.NotNull(taken.Fit.LeaderTimeConstantSeconds);
+        var u = taken.Fit.FinalValueStandardUncertainty;
+        Assert.InRange(taken.Fit.FinalValue, SetpointC - (3 * u) - 1e-3, SetpointC + (3 * u) + 1e-3);
+        Assert.Equal(unit.PredictedAt(KneeSeconds + 10000), taken.Fit.FinalValue, 6);
+    }
+
+    private static double Unit(double sinceKnee)
+    {
+        const double tau = 48;
+        var amplitude = -RatePerSecond * TauSeconds;
+        var k = amplitude * TauSeconds / (TauSeconds - tau);
+        var start = SetpointC + amplitude - 3;
+        return SetpointC + (k * Math.Exp(-sinceKnee / TauSeconds)) + ((start - SetpointC - k) * Math.Exp(-sinceKnee / tau));
+    }
+
+    [Fact]
     public void Add_StepAfterAUsableFit_FallsBackAndStaysFallenBack()
     {
         // A tight limit so the tracker is still waiting (on u) when the step comes; the step is 0.3 °C at 60 s into

@@ -2,6 +2,7 @@ using LineTest.Core.Fixtures;
 using LineTest.Core.Results;
 using LineTest.Core.Sequences;
 using LineTest.Core.Thermometry;
+using LineTest.Rig.Instruments;
 using LineTest.Rig.Simulation;
 using LineTest.Runtime.Batches;
 using LineTest.TestSupport;
@@ -24,7 +25,8 @@ internal sealed class CoordinatorHarness
         Func<SequenceDefinition, SequenceDefinition>? editSequence = null,
         IRunSink? sink = null,
         string sequenceFile = DacSequence,
-        Func<FixtureDefinition, FixtureDefinition>? editFixture = null)
+        Func<FixtureDefinition, FixtureDefinition>? editFixture = null,
+        Func<SimulatedRig, RigInstruments>? instruments = null)
     {
         var fixture = DefinitionFile.Fixture(RepoFiles.Path("fixtures/sim-dryblock-4.json"));
         Assert.True(fixture.IsSuccess, string.Join("\n", fixture.Problems));
@@ -42,7 +44,7 @@ internal sealed class CoordinatorHarness
         Design = SimulatedUnitDesign.ForProduct(Sequence.Product)!;
         Factory = new SimulatedUnitFactory(seed, Rig.Simulation, Design);
         Sink = sink ?? new ListSink();
-        Coordinator = new BatchCoordinator(Rig.Instruments, Fixture, raw => sensor.ToCelsius(raw) is { IsSuccess: true } r ? r.Value : double.NaN,
+        Coordinator = new BatchCoordinator(instruments?.Invoke(Rig) ?? Rig.Instruments, Fixture, raw => sensor.ToCelsius(raw) is { IsSuccess: true } r ? r.Value : double.NaN,
             Clock, Sink, Operator, null, NullLogger.Instance, partFitting: new SimulatedPartFitting(Rig));
     }
 

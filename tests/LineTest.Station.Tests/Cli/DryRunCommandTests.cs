@@ -49,6 +49,37 @@ public sealed class DryRunCommandTests
         Assert.Contains("$.simulation.blockNoiseC: must be a number 0 … 1 °C, not -1", error, StringComparison.Ordinal);
     }
 
+    [Fact]
+    public async Task DryRun_Json_ReportsUnitsPerHourTheBoundsAndTheModePerSequenceAndSetpoint()
+    {
+        // The keys the issue names (unitsPerHour, boundUnitsPerHour, the mode) for a sequence in window mode and the same
+        // sequence settling predictively: the predictive bound is above the wait-for-stability bound, which stays the
+        // window sequence's own bound.
+        var windowFile = RepoFiles.Path("sequences/ctp40r-resistor.json");
+        var text = File.ReadAllText(windowFile);
+        var predictiveFile = Path.Combine(Some.TempDirectory(), "ctp40r-predictive.json");
+        File.WriteAllText(predictiveFile, text.Replace("\"soak\": {", "\"settle\": { \"mode\": \"predictive\", \"maxExtrapolationUncertaintyC\": 0.01 },\n  \"soak\": {", StringComparison.Ordinal)
+            .Replace("\"$schema\": \"./sequence.schema.json\",", string.Empty, StringComparison.Ordinal));
+        var fixture = RepoFiles.Path("fixtures/sim-dryblock-4.json");
+
+        var (windowExit, windowOut, windowErr) = await CliRunner.RunAsync("dry-run", windowFile, "--fixture", fixture, "--json");
+        var (predictiveExit, predictiveOut, predictiveErr) = await CliRunner.RunAsync("dry-run", predictiveFile, "--fixture", fixture, "--json");
+
+        Assert.True(windowExit == 0, windowErr);
+        Assert.True(predictiveExit == 0, predictiveErr);
+        using var w = System.Text.Json.JsonDocument.Parse(windowOut);
+        using var p = System.Text.Json.JsonDocument.Parse(predictiveOut);
+        Assert.Equal("window", w.RootElement.GetProperty("mode").GetString());
+        Assert.Equal("predictive", p.RootElement.GetProperty("mode").GetString());
+        Assert.Equal(w.RootElement.GetProperty("boundUnitsPerHour").GetDouble(), w.RootElement.GetProperty("windowBoundUnitsPerHour").GetDouble());
+        Assert.Equal(w.RootElement.GetProperty("boundUnitsPerHour").GetDouble(), p.RootElement.GetProperty("windowBoundUnitsPerHour").GetDouble());
+        Assert.True(p.RootElement.GetProperty("boundUnitsPerHour").GetDouble() > p.RootElement.GetProperty("windowBoundUnitsPerHour").GetDouble());
+        Assert.True(p.RootElement.GetProperty("unitsPerHour").GetDouble() > w.RootElement.GetProperty("unitsPerHour").GetDouble());
+        Assert.All(w.RootElement.GetProperty("setpoints").EnumerateArray(), s => Assert.Equal("window", s.GetProperty("mode").GetString()));
+        Assert.All(p.RootElement.GetProperty("setpoints").EnumerateArray(), s =>
+            Assert.Contains(s.GetProperty("mode").GetString(), new[] { "predictive", "window-fallback" }));
+    }
+
     private static string EditedFile(string original, string find, string replace)
     {
         var text = File.ReadAllText(original);
