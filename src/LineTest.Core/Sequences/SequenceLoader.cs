@@ -13,7 +13,8 @@ public static class SequenceLoader
     /// <summary>
     /// Which top-level keys the checks that report under each key read (<see cref="DependentProblems"/>), from
     /// <see cref="SequenceChecker"/> and the rules it calls: a file with a broken part still gets every problem that
-    /// does not depend on it. The steps read everything (setpoints, trim, settings, the steps before them).
+    /// does not depend on it. The steps read the setpoints, the trim, the sweep bias and (kept on the safe side) every
+    /// setting of the process, and the steps before them; not the header (id, revision, product, serials, dispositions).
     /// </summary>
     internal static readonly IReadOnlyDictionary<string, string[]> Reads = new Dictionary<string, string[]>(StringComparer.Ordinal)
     {
@@ -34,7 +35,7 @@ public static class SequenceLoader
         ["nominalBiasAmps"] = [],
         ["stopOnFail"] = [],
         ["setpointOrder"] = [],
-        ["steps"] = [DependentProblems.Everything],
+        ["steps"] = ["setpoints", "trim", "nominalBiasAmps", "ratedRange", "stability", "soak", "settle", "setpointOrder", "stopOnFail"],
     };
 
     private static LoadResult<SequenceDefinition> Finish(ParsedDefinition<SequenceDefinition> parsed, string file, FixtureDefinition? fixture) =>
