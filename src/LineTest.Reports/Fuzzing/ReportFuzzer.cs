@@ -121,7 +121,9 @@ public static class ReportFuzzer
     }
 
     /// <summary>Runs one CSV text through the report path; never throws.</summary>
-    public static FuzzOutcome RunCsv(string csv, bool skipBadRows, out string? crash)
+    public static FuzzOutcome RunCsv(string csv, bool skipBadRows, out string? crash) => RunCsv(csv, skipBadRows, DefaultHtmlEvery, out crash);
+
+    private static FuzzOutcome RunCsv(string csv, bool skipBadRows, int htmlEvery, out string? crash)
     {
         crash = null;
         try
@@ -132,7 +134,7 @@ public static class ReportFuzzer
                 return FuzzOutcome.Refused;
             }
 
-            WriteEveryFormat(loaded.Data);
+            WriteEveryFormat(loaded.Data, htmlEvery);
             return FuzzOutcome.Reported;
         }
         catch (Exception ex)
@@ -146,13 +148,16 @@ public static class ReportFuzzer
     /// Runs one results folder through the report path; never throws. With <paramref name="skipBadRows"/> damaged runs
     /// are left out (<c>--skip-bad-rows</c>), and each must be named in the report.
     /// </summary>
-    public static FuzzOutcome RunDatabase(string resultsDirectory, bool skipBadRows, out string? crash)
+    public static FuzzOutcome RunDatabase(string resultsDirectory, bool skipBadRows, out string? crash) =>
+        RunDatabase(resultsDirectory, skipBadRows, DefaultHtmlEvery, out crash);
+
+    private static FuzzOutcome RunDatabase(string resultsDirectory, bool skipBadRows, int htmlEvery, out string? crash)
     {
         crash = null;
         try
         {
             var data = ResultsLoader.LoadAsync([resultsDirectory], ReportQuery.All, skipBadRows).GetAwaiter().GetResult();
-            var json = WriteEveryFormat(data);
+            var json = WriteEveryFormat(data, htmlEvery);
             using var document = JsonDocument.Parse(json);
             var named = document.RootElement.GetProperty("skippedRows").EnumerateArray().Select(e => e.GetString()).ToHashSet(StringComparer.Ordinal);
             if (data.SkippedRows.Any(row => !named.Contains(row)))
@@ -175,34 +180,36 @@ public static class ReportFuzzer
     }
 
     /// <summary>Fuzzes <paramref name="iterations"/> mutations of a readings CSV.</summary>
-    public static FuzzSummary FuzzCsv(string csv, int iterations, int seed) => FuzzCsv(csv, iterations, seed, workers: 1);
+    public static FuzzSummary FuzzCsv(string csv, int iterations, int seed) => FuzzCsv(csv, iterations, seed, workers: 1, DefaultHtmlEvery);
 
     /// <summary>
     /// As <see cref="FuzzCsv(string, int, int)"/> on <paramref name="workers"/> threads, each with its own seeded
     /// generator (worker 0 draws what one worker draws), so the inputs depend on the seed and the worker count only.
+    /// The HTML page is made for one input in <paramref name="htmlEvery"/> (0: never).
     /// </summary>
-    public static FuzzSummary FuzzCsv(string csv, int iterations, int seed, int workers) =>
+    public static FuzzSummary FuzzCsv(string csv, int iterations, int seed, int workers, int htmlEvery) =>
         Run("csv", iterations, workers, worker =>
         {
             var random = WorkerRandom(seed, worker);
             return () =>
             {
                 var skip = random.Next(2) == 0;
-                var outcome = RunCsv(MutateCsv(csv, random), skip, out var crash);
+                var outcome = RunCsv(MutateCsv(csv, random), skip, htmlEvery, out var crash);
                 return (outcome, crash);
             };
         });
 
     /// <summary>Fuzzes <paramref name="iterations"/> damaged copies of the results database in <paramref name="resultsDirectory"/>.</summary>
-    public static FuzzSummary FuzzDatabase(string resultsDirectory, int iterations, int seed) => FuzzDatabase(resultsDirectory, iterations, seed, workers: 1);
+    public static FuzzSummary FuzzDatabase(string resultsDirectory, int iterations, int seed) => FuzzDatabase(resultsDirectory, iterations, seed, workers: 1, DefaultHtmlEvery);
 
     /// <summary>
     /// As <see cref="FuzzDatabase(string, int, int)"/> on <paramref name="workers"/> threads: the database is read once
     /// into memory and each input is a fresh copy written to the worker's own scratch folder (under the temporary folder:
     /// set <c>TMPDIR</c> to a memory file system such as /dev/shm to keep the disk out of it), damaged, then reported
-    /// on, half of the inputs with damaged runs skipped.
+    /// on, half of the inputs with damaged runs skipped. The HTML page is made for one input in <paramref name="htmlEvery"/>
+    /// (0: never).
     /// </summary>
-    public static FuzzSummary FuzzDatabase(string resultsDirectory, int iterations, int seed, int workers)
+    public static FuzzSummary FuzzDatabase(string resultsDirectory, int iterations, int seed, int workers, int htmlEvery)
     {
         var original = File.ReadAllBytes(ResultsDatabasePath(resultsDirectory));
         var scratches = Enumerable.Range(0, Math.Max(1, workers)).Select(_ => Directory.CreateTempSubdirectory("linetest-fuzz-db-")).ToList();
@@ -224,7 +231,7 @@ public static class ReportFuzzer
                     MutateDatabase(path, random);
                     var skip = random.Next(2) == 0;
                     SqliteConnection.ClearAllPools();
-                    var outcome = RunDatabase(scratch.FullName, skip, out var crash);
+                    var outcome = RunDatabase(scratch.FullName, skip, htmlEvery, out var crash);
                     return (outcome, crash);
                 };
             });
@@ -263,19 +270,22 @@ public static class ReportFuzzer
             parts.Sum(p => p.Crashed),
             parts.Sum(p => p.OverTenSeconds),
             parts.Max(p => p.SlowestSeconds),
-            parts.Select(p => p.FirstCrash).FirstOrDefault(c => c is not null));
+            parts.Select(p => p.FirstCrash).FirstOrDefault(c => c is not null),
+            parts.Max(p => p.SlowestCpuSeconds));
     }
 
     private static FuzzSummary RunShare(string kind, int iterations, Func<(FuzzOutcome Outcome, string? Crash)> once)
     {
         int reported = 0, refused = 0, crashed = 0, slow = 0;
-        double slowest = 0;
+        double slowest = 0, slowestCpu = 0;
         string? first = null;
         for (var i = 0; i < iterations; i++)
         {
+            var cpu = Environment.CpuUsage.TotalTime;
             var started = Stopwatch.GetTimestamp();
             var (outcome, crash) = once();
             var seconds = Stopwatch.GetElapsedTime(started).TotalSeconds;
+            slowestCpu = Math.Max(slowestCpu, (Environment.CpuUsage.TotalTime - cpu).TotalSeconds);
             slowest = Math.Max(slowest, seconds);
             slow += seconds > Limit.TotalSeconds ? 1 : 0;
             switch (outcome)
@@ -293,22 +303,22 @@ public static class ReportFuzzer
             }
         }
 
-        return new FuzzSummary(kind, iterations, reported, refused, crashed, slow, slowest, first);
+        return new FuzzSummary(kind, iterations, reported, refused, crashed, slow, slowest, first, slowestCpu);
     }
 
-    // Charts cost most of an input's time (PNG rendering), so the HTML page is made for one input in HtmlEvery; the
+    // Charts cost most of an input's time (PNG rendering), so the HTML page is made for one input in DefaultHtmlEvery; the
     // other formats for every input.
-    private const int HtmlEvery = 25;
+    private const int DefaultHtmlEvery = 25;
 
     private static int _written;
 
     /// <summary>Writes every format; returns the JSON.</summary>
-    private static string WriteEveryFormat(ReportData data)
+    private static string WriteEveryFormat(ReportData data, int htmlEvery)
     {
         var report = ReportBuilder.Build(data, ReportQuery.All, TimeProvider.System);
         var json = ReportJsonWriter.ToJson(report);
         ReadingStatisticsCsvWriter.Write(report, TextWriter.Null);
-        if (Interlocked.Increment(ref _written) % HtmlEvery == 1)
+        if (htmlEvery > 0 && Interlocked.Increment(ref _written) % htmlEvery == 1 % htmlEvery)
         {
             _ = HtmlReportWriter.ToHtml(report);
         }

@@ -73,6 +73,12 @@ public sealed partial class SqliteResultReader
                 return (null, "the run has no serial");
             }
 
+            var sequenceId = pool.Get(raw.sqlite3_column_blob(scan, 8));
+            if (string.IsNullOrWhiteSpace(sequenceId))
+            {
+                return (null, "the run has no sequence id");
+            }
+
             if (raw.sqlite3_column_type(scan, 6) != raw.SQLITE_INTEGER || raw.sqlite3_column_type(scan, 9) != raw.SQLITE_INTEGER)
             {
                 return (null, "the slot or the sequence revision is not a whole number");
@@ -87,7 +93,7 @@ public sealed partial class SqliteResultReader
                 pool.Get(raw.sqlite3_column_blob(scan, 5)),
                 raw.sqlite3_column_int(scan, 6),
                 PooledOrNull(pool, scan, 7),
-                pool.Get(raw.sqlite3_column_blob(scan, 8)),
+                sequenceId,
                 raw.sqlite3_column_int(scan, 9),
                 PooledOrNull(pool, scan, 10),
                 PooledOrNull(pool, scan, 11)), null);
@@ -116,7 +122,9 @@ public sealed partial class SqliteResultReader
         {
             parameter.Value = seq;
             await using var reader = await ExecuteAsync(command, ct).ConfigureAwait(false);
-            if (Read(reader) && reader.GetValue(0) is string sequence && reader.GetValue(1) is string product && product.Length > 0)
+            // A damaged product or sequence cell only costs the product's name in the report.
+            if (Read(reader) && reader.GetValue(0) is string sequence && reader.GetValue(1) is string product
+                && !string.IsNullOrWhiteSpace(sequence) && !string.IsNullOrWhiteSpace(product))
             {
                 products[sequence] = product;
             }
