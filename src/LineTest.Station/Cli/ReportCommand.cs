@@ -35,6 +35,7 @@ public static class ReportCommand
         var fuzz = new Option<int?>("--fuzz") { Description = "Fuzz the report: N damaged copies of the --results database (or mutations of the --readings CSV); prints the figures" };
         var fuzzWorkers = new Option<int>("--fuzz-workers") { Description = "Threads for --fuzz (each with its own seeded inputs and scratch folder)", DefaultValueFactory = _ => 1 };
         var fuzzHtmlEvery = new Option<int>("--fuzz-html-every") { Description = "With --fuzz, write the HTML page (its charts take most of the time) for one input in N; 0 never", DefaultValueFactory = _ => 25 };
+        var fuzzSeed = new Option<int>("--fuzz-seed") { Description = "Seed of the --fuzz inputs (the same seed and worker count give the same inputs)", DefaultValueFactory = _ => 1 };
         var firstRuns = new Option<bool>("--first-runs") { Description = "Capability and failure Pareto from each unit's first run only" };
         var json = new Option<bool>("--json") { Description = "Print the report as one JSON object instead of tables" };
         var csv = new Option<string?>("--csv") { Description = "Write the per-reading statistics to this CSV file" };
@@ -43,7 +44,7 @@ public static class ReportCommand
         var filters = new ReportFilterOptions();
         var command = new Command("report", "Quality report: yield, failures, capability, control charts and slot bias")
         {
-            results, readings, skipBadRows, by, firstRuns, json, csv, html, factory, fuzz, fuzzWorkers, fuzzHtmlEvery,
+            results, readings, skipBadRows, by, firstRuns, json, csv, html, factory, fuzz, fuzzWorkers, fuzzHtmlEvery, fuzzSeed,
         };
         filters.AddTo(command);
         command.SetAction(async (parse, ct) =>
@@ -78,7 +79,7 @@ public static class ReportCommand
 
             if (parse.GetValue(fuzz) is { } iterations)
             {
-                return Fuzz(context, iterations, (parse.GetValue(fuzzWorkers), parse.GetValue(fuzzHtmlEvery)), csvInput, folders);
+                return Fuzz(context, iterations, (parse.GetValue(fuzzWorkers), parse.GetValue(fuzzHtmlEvery), parse.GetValue(fuzzSeed)), csvInput, folders);
             }
 
             var factoryConnection = parse.GetValue(factory);
@@ -214,9 +215,9 @@ public static class ReportCommand
     /// <c>report --fuzz N</c>: damaged inputs through loading, building and every format; exit 1 when any crashed or
     /// took more than 10 s. The figures in docs/reliability.md come from this.
     /// </summary>
-    private static int Fuzz(CliContext context, int iterations, (int Workers, int HtmlEvery) how, string? csvInput, string[] folders)
+    private static int Fuzz(CliContext context, int iterations, (int Workers, int HtmlEvery, int Seed) how, string? csvInput, string[] folders)
     {
-        var (workers, htmlEvery) = how;
+        var (workers, htmlEvery, seed) = how;
         if (htmlEvery < 0)
         {
             return context.BadInput($"--fuzz-html-every must be 0 or more, not {htmlEvery}");
@@ -240,7 +241,7 @@ public static class ReportCommand
                 return context.BadInput($"'{csvInput}' does not exist");
             }
 
-            summary = ReportFuzzer.FuzzCsv(File.ReadAllText(csvInput), iterations, seed: 1, workers, htmlEvery);
+            summary = ReportFuzzer.FuzzCsv(File.ReadAllText(csvInput), iterations, seed, workers, htmlEvery);
         }
         else
         {
@@ -250,7 +251,7 @@ public static class ReportCommand
                 return context.BadInput($"'{folder}' holds no results.db to fuzz");
             }
 
-            summary = ReportFuzzer.FuzzDatabase(folder, iterations, seed: 1, workers, htmlEvery);
+            summary = ReportFuzzer.FuzzDatabase(folder, iterations, seed, workers, htmlEvery);
         }
 
         context.Output.WriteLine(string.Create(
