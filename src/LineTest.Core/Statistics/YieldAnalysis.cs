@@ -21,9 +21,7 @@ public static class YieldAnalysis
 
         // Per serial: input index of the first and of the last run.
         var units = new Dictionary<string, (int First, int Last)>(StringComparer.Ordinal);
-        var failures = new Dictionary<string, int>(StringComparer.Ordinal);
-        var errors = new Dictionary<string, int>(StringComparer.Ordinal);
-        int pass = 0, fail = 0, error = 0;
+        var counts = new YieldCounts();
         for (var i = 0; i < runs.Count; i++)
         {
             var run = runs[i] ?? throw new ArgumentException($"runs[{i}] is null.", nameof(runs));
@@ -35,15 +33,13 @@ public static class YieldAnalysis
             switch (run.Verdict)
             {
                 case Verdict.Pass:
-                    pass++;
+                    counts.AddRuns(Verdict.Pass, null);
                     break;
                 case Verdict.Fail:
-                    fail++;
-                    Increment(failures, string.IsNullOrWhiteSpace(run.FailureName) ? UnnamedFailure : run.FailureName.Trim());
+                    counts.AddRuns(Verdict.Fail, run.FailureName);
                     break;
                 case Verdict.Error:
-                    error++;
-                    Increment(errors, string.IsNullOrWhiteSpace(run.ErrorReason) ? UnspecifiedError : run.ErrorReason.Trim());
+                    counts.AddRuns(Verdict.Error, run.ErrorReason);
                     break;
                 default:
                     throw new ArgumentException($"runs[{i}] has an unknown verdict {(int)run.Verdict}.", nameof(runs));
@@ -75,22 +71,34 @@ public static class YieldAnalysis
             }
         }
 
-        var unitCount = units.Count;
+        counts.AddUnits(units.Count, firstPassed, lastPassed);
+        return Summarize(counts);
+    }
+
+    /// <summary>
+    /// The summary of counts made elsewhere (e.g. by an SQL <c>GROUP BY</c> that applied the same first- and last-run
+    /// rule): the same rates and Pareto bars <see cref="Summarize(IReadOnlyList{RunOutcome})"/> gives for the runs counted.
+    /// </summary>
+    public static YieldSummary Summarize(YieldCounts counts)
+    {
+        ArgumentNullException.ThrowIfNull(counts);
+        var runs = counts.Runs;
+        var unitCount = counts.Units;
         return new YieldSummary
         {
-            Runs = runs.Count,
+            Runs = runs,
             Units = unitCount,
-            PassRuns = pass,
-            FailRuns = fail,
-            ErrorRuns = error,
-            UnitsPassedFirstRun = firstPassed,
-            UnitsPassedLastRun = lastPassed,
-            FirstPassYield = unitCount == 0 ? null : (double)firstPassed / unitCount,
-            FinalYield = unitCount == 0 ? null : (double)lastPassed / unitCount,
-            RetestRate = unitCount == 0 ? null : (double)(runs.Count - unitCount) / unitCount,
-            ErrorRate = runs.Count == 0 ? null : (double)error / runs.Count,
-            FailurePareto = Pareto(failures),
-            ErrorReasons = Pareto(errors),
+            PassRuns = counts.PassRuns,
+            FailRuns = counts.FailRuns,
+            ErrorRuns = counts.ErrorRuns,
+            UnitsPassedFirstRun = counts.UnitsPassedFirstRun,
+            UnitsPassedLastRun = counts.UnitsPassedLastRun,
+            FirstPassYield = unitCount == 0 ? null : (double)counts.UnitsPassedFirstRun / unitCount,
+            FinalYield = unitCount == 0 ? null : (double)counts.UnitsPassedLastRun / unitCount,
+            RetestRate = unitCount == 0 ? null : (double)(runs - unitCount) / unitCount,
+            ErrorRate = runs == 0 ? null : (double)counts.ErrorRuns / runs,
+            FailurePareto = Pareto(counts.Failures),
+            ErrorReasons = Pareto(counts.Errors),
         };
     }
 
@@ -124,10 +132,5 @@ public static class YieldAnalysis
         }
 
         return result;
-    }
-
-    private static void Increment(Dictionary<string, int> counts, string key)
-    {
-        counts[key] = counts.TryGetValue(key, out var c) ? c + 1 : 1;
     }
 }

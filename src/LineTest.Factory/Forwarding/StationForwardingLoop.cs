@@ -58,7 +58,7 @@ public sealed partial class StationForwardingLoop : IFactoryBacklog, IAsyncDispo
                 {
                     var problem = args.Outcome.Exception?.Message ?? "unknown failure";
                     await RefreshAsync(problem, args.AttemptNumber + 1, args.Context.CancellationToken).ConfigureAwait(false);
-                    LogRetrying(args.AttemptNumber + 1, args.RetryDelay.TotalSeconds, _status.Count, problem);
+                    LogRetrying(args.AttemptNumber + 1, args.RetryDelay.TotalSeconds, _status.Count, Oldest(_status), problem);
                 },
             })
             .Build();
@@ -158,8 +158,11 @@ public sealed partial class StationForwardingLoop : IFactoryBacklog, IAsyncDispo
         }
     }
 
-    [LoggerMessage(EventId = 3010, Level = LogLevel.Warning, Message = "Factory database unavailable (attempt {Attempt}, next in {DelaySeconds:F1} s): {Backlog} run(s) waiting, testing goes on. {Problem}")]
-    private partial void LogRetrying(int attempt, double delaySeconds, long backlog, string problem);
+    private static string Oldest(FactoryBacklogStatus status) =>
+        status.OldestEndedUtc is { } oldest ? oldest.UtcDateTime.ToString("yyyy-MM-dd HH:mm:ss", System.Globalization.CultureInfo.InvariantCulture) + " UTC" : "none";
+
+    [LoggerMessage(EventId = 3010, Level = LogLevel.Warning, Message = "Factory database unavailable (attempt {Attempt}, next in {DelaySeconds:F1} s): {Backlog} run(s) waiting, the oldest ended {OldestEnded}; testing goes on. {Problem}")]
+    private partial void LogRetrying(int attempt, double delaySeconds, long backlog, string oldestEnded, string problem);
 
     [LoggerMessage(EventId = 3011, Level = LogLevel.Information, Message = "Factory database reachable again: {Stored} run(s) forwarded, {Backlog} waiting")]
     private partial void LogResumed(int stored, long backlog);

@@ -1,4 +1,3 @@
-using LineTest.Core.Results;
 using LineTest.Factory.Schema;
 using LineTest.Reports.Loading;
 using Npgsql;
@@ -13,114 +12,215 @@ namespace LineTest.Factory.Reporting;
 /// </summary>
 public static class FactoryReportLoader
 {
-    private const string RunOrder = "ended_ticks, station, chain_id, station_seq";
-
-    /// <summary>Loads the runs and readings matching <paramref name="query"/>.</summary>
+    /// <summary>
+    /// Loads the runs (with their serials and outcomes) and readings matching <paramref name="query"/>; the report
+    /// counts yield from the runs.
+    /// </summary>
     /// <exception cref="NpgsqlException">The database cannot be reached or read.</exception>
-    public static async Task<ReportData> LoadAsync(NpgsqlDataSource dataSource, ReportQuery query, CancellationToken ct = default)
+    public static Task<ReportData> LoadAsync(NpgsqlDataSource dataSource, ReportQuery query, CancellationToken ct = default) =>
+        LoadAsync(dataSource, query, countYield: false, ct);
+
+    /// <summary>
+    /// Loads the data for a report with the yield counted in SQL (<see cref="ReportData.Tally"/>: yield, first-pass
+    /// yield and Pareto per group and day), and the runs without serials or outcomes: only what places each reading
+    /// (time, station, slot, lot, sequence) and the reading values, which the statistics that SQL cannot do (moving
+    /// ranges in run order, normality, percentiles) need one by one. The report is the same as from
+    /// <see cref="LoadAsync(NpgsqlDataSource, ReportQuery, CancellationToken)"/>, with far less read.
+    /// </summary>
+    /// <exception cref="NpgsqlException">The database cannot be reached or read.</exception>
+    public static Task<ReportData> LoadCountedAsync(NpgsqlDataSource dataSource, ReportQuery query, CancellationToken ct = default) =>
+        LoadAsync(dataSource, query, countYield: true, ct);
+
+    private static async Task<ReportData> LoadAsync(NpgsqlDataSource dataSource, ReportQuery query, bool countYield, CancellationToken ct)
     {
         ArgumentNullException.ThrowIfNull(dataSource);
         ArgumentNullException.ThrowIfNull(query);
         var data = new ReportData();
         data.AddSource(FactoryConnection.Describe(dataSource));
 
-        // Both scans in one repeatable-read snapshot: stations forwarding meanwhile do not make runs and readings disagree.
-        await using var connection = await dataSource.OpenConnectionAsync(ct).ConfigureAwait(false);
-        await using var transaction = await connection.BeginTransactionAsync(System.Data.IsolationLevel.RepeatableRead, ct).ConfigureAwait(false);
-        var index = await LoadRunsAsync(connection, transaction, query, data, ct).ConfigureAwait(false);
-        if (index.Count == 0)
+        // Every scan in one repeatable-read snapshot: stations forwarding meanwhile do not make runs, readings and
+        // counts disagree. Other connections import the snapshot, so the yield is counted while the runs stream, and
+        // the months of readings stream on several connections at once; where a snapshot cannot be shared (a server
+        // in recovery), everything runs on the one connection, one after the other.
+        await using var session = await SharedSnapshot.OpenAsync(dataSource, ct).ConfigureAwait(false);
+        Task<YieldTally>? counting = null;
+        try
         {
+            if (countYield && session.Shared)
+            {
+                counting = Task.Run(
+                    async () =>
+                    {
+                        var (connection, transaction) = await session.JoinAsync(ct).ConfigureAwait(false);
+                        return await FactoryYieldCounter.CountAsync(connection, transaction, query, ct).ConfigureAwait(false);
+                    },
+                    ct);
+            }
+
+            var others = session.Shared
+                ? await Task.WhenAll(Enumerable.Range(1, Math.Max(2, Environment.ProcessorCount) - 1).Select(_ => session.JoinAsync(ct))).ConfigureAwait(false)
+                : [];
+            var connections = others.Prepend((session.Connection, session.Transaction)).ToList();
+            var keys = await LoadRunsAsync(connections, query, data, countYield, ct).ConfigureAwait(false);
+            if (keys.Count > 0)
+            {
+                await FactoryReadingStream.ReadAsync(connections, query, keys, data, ct).ConfigureAwait(false);
+            }
+
+            if (countYield)
+            {
+                data.Tally = counting is null
+                    ? await FactoryYieldCounter.CountAsync(session.Connection, session.Transaction, query, ct).ConfigureAwait(false)
+                    : await counting.ConfigureAwait(false);
+                if (query.FirstRunsOnly)
+                {
+                    data.Tally.FirstRunFlags = keys.FirstRunFlags;
+                }
+            }
+
             return data;
         }
-
-        await using var command = new NpgsqlCommand(string.Empty, connection, transaction);
-        var where = FactoryFilterSql.Where(query, "g", command, runConditions: false);
-        command.CommandText = $"SELECT g.chain_id, g.station_seq, g.name, g.value, g.unit, g.low, g.high FROM readings g{where} ORDER BY g.{RunOrder.Replace(", ", ", g.", StringComparison.Ordinal)}, g.ordinal;";
-        await using var reader = await command.ExecuteReaderAsync(ct).ConfigureAwait(false);
-        // Readings are analysed per (sequence, name), never pooled across products, as for station folders.
-        var names = new Dictionary<(string Sequence, string Name), ReadingSeries>();
-        var units = new Dictionary<string, string>(StringComparer.Ordinal);
-        var lastKey = (Guid.Empty, -1L);
-        var run = -1;
-        var sequence = string.Empty;
-        while (await reader.ReadAsync(ct).ConfigureAwait(false))
+        finally
         {
-            var key = (reader.GetGuid(0), reader.GetInt64(1));
-            if (key != lastKey)
+            if (counting is not null)
             {
-                lastKey = key;
-                (run, sequence) = index.TryGetValue(key, out var found) ? found : (-1, string.Empty);
+                // Waited for even when the stream failed first: its connection is closed with the session.
+                await Task.WhenAny(counting).ConfigureAwait(false);
             }
-
-            if (run < 0)
-            {
-                // A reading of a run the run conditions (slot, lot, sequence) left out.
-                continue;
-            }
-
-            var name = reader.GetString(2);
-            var unitText = reader.GetString(4);
-            var unit = units.TryGetValue(unitText, out var shared) ? shared : units[unitText] = unitText;
-            if (!names.TryGetValue((sequence, name), out var series))
-            {
-                series = data.Series(sequence, name, unit);
-                names.Add((sequence, name), series);
-            }
-
-            series.Add(run, reader.IsDBNull(3) ? null : reader.GetDouble(3), unit, NullableDouble(reader, 5), NullableDouble(reader, 6));
         }
-
-        return data;
     }
 
-    private static async Task<Dictionary<(Guid, long), (int Run, string Sequence)>> LoadRunsAsync(
-        NpgsqlConnection connection, NpgsqlTransaction transaction, ReportQuery query, ReportData data, CancellationToken ct)
+    /// <summary>
+    /// Loads the runs into <paramref name="data"/> and returns their index: month by month on all
+    /// <paramref name="connections"/> at once, appended in month order (the run order), or in one query when first runs
+    /// are marked (a unit's first run may lie in an earlier month).
+    /// </summary>
+    private static async Task<RunIndex> LoadRunsAsync(
+        IReadOnlyList<(NpgsqlConnection Connection, NpgsqlTransaction Transaction)> connections,
+        ReportQuery query,
+        ReportData data,
+        bool countYield,
+        CancellationToken ct)
     {
-        await using var command = new NpgsqlCommand(string.Empty, connection, transaction);
-        var where = FactoryFilterSql.Where(query, "r", command, runConditions: true);
-        command.CommandText = $"""
-            SELECT r.chain_id, r.station_seq, r.ended_ticks, r.serial, r.verdict, r.station, r.slot, r.lot, r.sequence_id,
-                   r.sequence_revision, r.first_failing_reading, r.reason, r.product
-              FROM runs r{where} ORDER BY r.{RunOrder.Replace(", ", ", r.", StringComparison.Ordinal)};
-            """;
-        await using var reader = await command.ExecuteReaderAsync(ct).ConfigureAwait(false);
-        var index = new Dictionary<(Guid, long), (int, string)>();
-        var runs = data.Runs;
-        while (await reader.ReadAsync(ct).ConfigureAwait(false))
+        var index = new RunIndex(countYield && query.FirstRunsOnly);
+        if (await BoundsAsync(connections[0].Connection, connections[0].Transaction, query, ct).ConfigureAwait(false) is not { } bounds)
         {
-            var sequenceId = reader.GetString(8);
-            if (!data.Products.ContainsKey(sequenceId))
+            return index;
+        }
+
+        IReadOnlyList<(DateTime From, DateTime To)?> months = query.FirstRunsOnly || connections.Count == 1
+            ? [null]
+            : [.. FactoryReadingStream.Months(bounds.First, bounds.Last).Select(m => ((DateTime, DateTime)?)m)];
+        var parts = new List<RunRow>[months.Count];
+        await Task.WhenAll(connections.Select((c, k) => Task.Run(
+            async () =>
             {
-                // The product of a sequence's first run, as the folder loader takes it.
-                data.AddProduct(sequenceId, reader.GetString(12));
+                for (var m = k; m < months.Count; m += connections.Count)
+                {
+                    parts[m] = await ReadRunsAsync(c.Connection, c.Transaction, query, countYield, months[m], ct).ConfigureAwait(false);
+                }
+            },
+            ct))).ConfigureAwait(false);
+
+        var runs = data.Runs;
+        for (var m = 0; m < parts.Length; m++)
+        {
+            foreach (var row in parts[m])
+            {
+                if (row.Product is { } product && !data.Products.ContainsKey(row.SequenceId))
+                {
+                    // The product of a sequence's first run, as the folder loader takes it.
+                    data.AddProduct(row.SequenceId, product);
+                }
+
+                var ended = new DateTimeOffset(row.EndedTicks, TimeSpan.Zero);
+                var run = countYield
+                    ? runs.AddWithoutOutcome(ended, row.Station, row.Slot, row.Lot, row.SequenceId, row.Revision)
+                    : runs.Add(row.Serial!, ended, row.Verdict, row.Station, row.Slot, row.Lot, row.SequenceId, row.Revision, row.Failure, row.Reason);
+                if (query.GroupBy == ReportGrouping.Operator)
+                {
+                    runs.SetOperator(run, row.Operator);
+                }
+
+                index.Add(row.EndedTicks, row.Chain, row.Seq, row.FirstRun);
             }
 
-            var at = runs.Add(
-                reader.GetString(3),
-                new DateTimeOffset(reader.GetInt64(2), TimeSpan.Zero),
-                ParseVerdict(reader.GetString(4)),
-                reader.GetString(5),
-                reader.GetInt32(6),
-                NullableString(reader, 7),
-                reader.GetString(8),
-                reader.GetInt32(9),
-                NullableString(reader, 10),
-                NullableString(reader, 11));
-            index.Add((reader.GetGuid(0), reader.GetInt64(1)), (at, sequenceId));
+            parts[m] = [];
         }
 
         return index;
     }
 
-    private static Verdict ParseVerdict(string word) => word switch
+    /// <summary>The first and last end (ticks) of the runs matching <paramref name="query"/>; null when none match.</summary>
+    private static async Task<(long First, long Last)?> BoundsAsync(NpgsqlConnection connection, NpgsqlTransaction transaction, ReportQuery query, CancellationToken ct)
     {
-        "pass" => Verdict.Pass,
-        "fail" => Verdict.Fail,
-        "error" => Verdict.Error,
-        _ => throw new InvalidDataException($"Column verdict holds '{word}', which is not pass, fail or error."),
-    };
+        await using var command = new NpgsqlCommand(string.Empty, connection, transaction) { CommandTimeout = 0 };
+        var where = FactoryFilterSql.Where(query, "r", command, runConditions: true);
+        command.CommandText = $"SELECT min(r.ended_ticks), max(r.ended_ticks) FROM runs r{where};";
+        await using var reader = await command.ExecuteReaderAsync(ct).ConfigureAwait(false);
+        return await reader.ReadAsync(ct).ConfigureAwait(false) && !reader.IsDBNull(0) ? (reader.GetInt64(0), reader.GetInt64(1)) : null;
+    }
+
+    private static async Task<List<RunRow>> ReadRunsAsync(
+        NpgsqlConnection connection, NpgsqlTransaction transaction, ReportQuery query, bool countYield, (DateTime From, DateTime To)? month, CancellationToken ct)
+    {
+        await using var command = new NpgsqlCommand(string.Empty, connection, transaction) { CommandTimeout = 0 };
+        var where = FactoryFilterSql.Where(query, "r", command, runConditions: true);
+        if (month is { } range)
+        {
+            command.Parameters.Add(new NpgsqlParameter("month_from", NpgsqlTypes.NpgsqlDbType.TimestampTz) { Value = range.From });
+            command.Parameters.Add(new NpgsqlParameter("month_to", NpgsqlTypes.NpgsqlDbType.TimestampTz) { Value = range.To });
+            where = (where.Length == 0 ? " WHERE " : where + " AND ") + "r.ended_utc >= @month_from AND r.ended_utc < @month_to";
+        }
+
+        var operators = query.GroupBy == ReportGrouping.Operator;
+        var firstRuns = countYield && query.FirstRunsOnly;
+        var outcome = countYield
+            ? firstRuns ? $", row_number() OVER (PARTITION BY r.serial ORDER BY {FactoryYieldCounter.RunOrder("r")}) = 1" : string.Empty
+            : ", r.serial, r.verdict, r.first_failing_reading, r.reason";
+        command.CommandText = $"""
+            SELECT r.chain_id, r.station_seq, r.ended_ticks, r.station, r.slot, r.lot, r.sequence_id, r.sequence_revision,
+                   r.product, {(operators ? "r.operator" : "NULL::text")}{outcome}
+              FROM runs r{where} ORDER BY {FactoryYieldCounter.RunOrder("r")};
+            """;
+        await using var reader = await command.ExecuteReaderAsync(ct).ConfigureAwait(false);
+
+        // Stations, lots and sequences repeat: one string each, not one per run.
+        var texts = new Dictionary<string, string>(StringComparer.Ordinal);
+        string Shared(string text) => texts.TryGetValue(text, out var same) ? same : texts[text] = text;
+        var rows = new List<RunRow>();
+        string? lastSequence = null;
+        while (await reader.ReadAsync(ct).ConfigureAwait(false))
+        {
+            var sequenceId = Shared(reader.GetString(6));
+            string? product = null;
+            if (!ReferenceEquals(sequenceId, lastSequence))
+            {
+                product = reader.GetString(8);
+                lastSequence = sequenceId;
+            }
+
+            var lot = NullableString(reader, 5);
+            rows.Add(new RunRow(
+                reader.GetInt64(2),
+                reader.GetGuid(0),
+                reader.GetInt64(1),
+                Shared(reader.GetString(3)),
+                reader.GetInt32(4),
+                lot is null ? null : Shared(lot),
+                sequenceId,
+                reader.GetInt32(7),
+                product,
+                operators ? NullableString(reader, 9) : null,
+                countYield ? null : reader.GetString(10),
+                countYield ? default : FactoryYieldCounter.ParseVerdict(reader.GetString(11)),
+                countYield ? null : NullableString(reader, 12),
+                countYield ? null : NullableString(reader, 13),
+                firstRuns && reader.GetBoolean(10)));
+        }
+
+        return rows;
+    }
 
     private static string? NullableString(NpgsqlDataReader reader, int ordinal) => reader.IsDBNull(ordinal) ? null : reader.GetString(ordinal);
-
-    private static double? NullableDouble(NpgsqlDataReader reader, int ordinal) => reader.IsDBNull(ordinal) ? null : reader.GetDouble(ordinal);
 }

@@ -23,7 +23,10 @@ public static class ReportBuilder
         ArgumentNullException.ThrowIfNull(query);
         ArgumentNullException.ThrowIfNull(time);
 
-        var firstRuns = query.FirstRunsOnly ? data.Runs.FirstRuns() : null;
+        var tally = data.Tally;
+        var firstRuns = !query.FirstRunsOnly ? null
+            : tally is null ? data.Runs.FirstRuns()
+            : tally.FirstRunFlags ?? throw new ArgumentException("The source counted yield but did not mark each unit's first run, which --first-runs needs.", nameof(data));
 
         // Series are independent and their analysis only reads the loaded data, so a large report uses every core;
         // results go into their series' position, so the order stays the load order.
@@ -38,11 +41,11 @@ public static class ReportBuilder
             slots[i] = SlotBiasOf(series[i], values, runs, data.Runs);
         });
 
-        var yield = YieldAnalysis.Summarize(data.Runs.Outcomes());
+        var yield = tally is null ? YieldAnalysis.Summarize(data.Runs.Outcomes()) : YieldAnalysis.Summarize(tally.Overall);
         if (firstRuns is not null)
         {
             // First-pass figures are already about first runs; the Pareto of failures is narrowed to them.
-            var first = YieldAnalysis.Summarize(data.Runs.Outcomes(Indices(firstRuns)));
+            var first = tally is null ? YieldAnalysis.Summarize(data.Runs.Outcomes(Indices(firstRuns))) : YieldAnalysis.Summarize(tally.FirstRuns);
             yield = yield with { FailurePareto = first.FailurePareto, ErrorReasons = first.ErrorReasons };
         }
 
@@ -55,7 +58,7 @@ public static class ReportBuilder
             Readings = readings,
             Slots = slots,
             Groups = query.GroupBy == ReportGrouping.None ? [] : Groups(data, query, firstRuns),
-            DailyYield = data.Runs.HasTimes ? Daily(data.Runs) : [],
+            DailyYield = data.Runs.HasTimes ? Daily(data.Runs, tally) : [],
             SkippedRows = data.SkippedRows,
         };
     }
@@ -238,7 +241,7 @@ public static class ReportBuilder
     private static List<GroupReport> Groups(ReportData data, ReportQuery query, bool[]? firstRuns)
     {
         var (keys, groupOfRun) = Partition(data.Runs, query.GroupBy, query.Shifts);
-        var runsOf = RunsByGroup(keys.Count, UnitGroups(data.Runs, groupOfRun));
+        var runsOf = data.Tally is null ? RunsByGroup(keys.Count, UnitGroups(data.Runs, groupOfRun)) : null;
 
         // Per group and reading, the values in run order: one pass over each series.
         var perGroup = new List<GroupReadingStatistics>[keys.Count];
@@ -278,21 +281,35 @@ public static class ReportBuilder
         for (var g = 0; g < keys.Count; g++)
         {
             // A group whose units all started in another group has no runs of its own for yield.
-            groups.Add(new GroupReport(keys[g], YieldAnalysis.Summarize(data.Runs.Outcomes(runsOf[g])), perGroup[g]));
+            groups.Add(new GroupReport(keys[g], GroupYield(data.Runs, runsOf, g, data.Tally?.Groups, keys[g]), perGroup[g]));
         }
 
         groups.Sort((a, b) => RunTable.CompareGroupKeys(query.GroupBy, a.Key, b.Key));
         return groups;
     }
 
-    private static List<DailyYield> Daily(RunTable runs)
+    /// <summary>
+    /// Yield of group <paramref name="g"/>: from its runs' outcomes, or from the source's counts when it counted them
+    /// (a group that none of its units started in has no counts: the summary of no runs).
+    /// </summary>
+    private static YieldSummary GroupYield(RunTable runs, List<int>[]? runsOf, int g, IReadOnlyDictionary<string, YieldCounts>? counted, string key)
+    {
+        if (runsOf is not null)
+        {
+            return YieldAnalysis.Summarize(runs.Outcomes(runsOf[g]));
+        }
+
+        return YieldAnalysis.Summarize(counted!.TryGetValue(key, out var counts) ? counts : new YieldCounts());
+    }
+
+    private static List<DailyYield> Daily(RunTable runs, YieldTally? tally)
     {
         var (keys, groupOfRun) = Partition(runs, ReportGrouping.Day, null);
-        var runsOf = RunsByGroup(keys.Count, UnitGroups(runs, groupOfRun));
+        var runsOf = tally is null ? RunsByGroup(keys.Count, UnitGroups(runs, groupOfRun)) : null;
         var days = new List<DailyYield>(keys.Count);
         for (var g = 0; g < keys.Count; g++)
         {
-            var y = YieldAnalysis.Summarize(runs.Outcomes(runsOf[g]));
+            var y = GroupYield(runs, runsOf, g, tally?.Days, keys[g]);
             days.Add(new DailyYield(keys[g], y.Runs, y.FirstPassYield, y.FinalYield));
         }
 

@@ -33,6 +33,9 @@ public static class ParetoChart
         plot.Axes.Bottom.TickLabelStyle.Rotation = shown.Count > 4 ? -30 : 0;
         plot.Axes.Bottom.TickLabelStyle.Alignment = shown.Count > 4 ? Alignment.MiddleRight : Alignment.UpperCenter;
         plot.Axes.Left.Label.Text = "Failed runs";
+
+        // Counts of runs are whole numbers: no 0.5 tick with a handful of failures.
+        plot.Axes.Left.TickGenerator = new ScottPlot.TickGenerators.NumericAutomatic { IntegerTicksOnly = true };
         plot.Axes.Margins(bottom: 0);
 
         var cumulative = plot.Add.Scatter(

@@ -75,9 +75,12 @@ public static class HtmlReportWriter
         .tile .v { font-size: 22px; font-weight: 700; }
         .tile .k { color: var(--muted); font-size: 12px; text-transform: uppercase; letter-spacing: .04em; }
         table { border-collapse: collapse; width: 100%; margin: 8px 0 4px; font-size: 12.5px; }
-        th, td { padding: 4px 6px; border-bottom: 1px solid var(--line); text-align: right; white-space: nowrap; }
+        th, td { padding: 4px 5px; border-bottom: 1px solid var(--line); text-align: right; white-space: nowrap; }
         th:first-child, td:first-child { text-align: left; white-space: normal; }
-        th { background: #eef2f6; font-weight: 600; }
+        th { background: #eef2f6; font-weight: 600; white-space: normal; vertical-align: bottom; }
+        td.covers { white-space: normal; font-size: 11px; min-width: 9.5em; }
+        .covers, th.sig { text-align: left; }
+        .wide { max-width: 100%; overflow-x: auto; }
         td.low { color: var(--bad); font-weight: 600; }
         .bad { color: var(--bad); }
         td.sig { white-space: normal; text-align: left; font-size: 11px; min-width: 9em; }
@@ -96,6 +99,9 @@ public static class HtmlReportWriter
           main { max-width: none; padding: 0; }
           h2 { break-after: avoid; page-break-after: avoid; }
           table { font-size: 9pt; }
+          th, td { padding: 3px 3px; }
+          td.covers, td.sig { font-size: 7.5pt; }
+          .wide { overflow: visible; }
           figure img { max-width: 100%; border: none; }
           .reading, .tiles, figure, table { break-inside: avoid; page-break-inside: avoid; }
         }
@@ -183,14 +189,16 @@ public static class HtmlReportWriter
         }
 
         var label = ReportText.Labeller(report);
-        h.Append("<table>\n<tr><th>Reading</th><th>Covers</th><th>n</th><th>Mean</th><th>SD overall</th><th>Cpk</th><th>Cpk 95 %</th><th>Ppk</th><th>Ppk pct</th><th>ppm obs</th><th>ppm exp</th><th>Signals</th></tr>\n");
+        // Twelve columns in a 960 px column (186 mm in print): headings and the text columns wrap, reading names break
+        // after their dots, numbers never; on a narrower screen the table scrolls inside its box, not the page.
+        h.Append("<div class=\"wide\"><table>\n<tr><th>Reading</th><th class=\"covers\">Covers</th><th>n</th><th>Mean</th><th>SD overall</th><th>Cpk</th><th>Cpk 95 %</th><th>Ppk</th><th>Ppk pct</th><th>ppm obs</th><th>ppm exp</th><th class=\"sig\">Signals</th></tr>\n");
         foreach (var r in report.Readings)
         {
             var c = r.Capability;
             var format = ReportText.ValueFormat(r);
-            h.Append("<tr><td>").Append(E(label(r))).Append(string.IsNullOrEmpty(r.Unit) ? string.Empty : $" <small>({E(r.Unit)})</small>")
+            h.Append("<tr><td>").Append(Breakable(label(r))).Append(string.IsNullOrEmpty(r.Unit) ? string.Empty : $" <small>({E(r.Unit)})</small>")
                 .Append(r.NonNormal ? " <b class=\"bad\" title=\"not normal: Anderson–Darling p &lt; 0.05\">!</b>" : string.Empty).Append("</td>");
-            h.Append("<td><small>").Append(E(r.Covers)).Append("</small></td>");
+            h.Append("<td class=\"covers\">").Append(E(r.Covers)).Append("</td>");
             Cell(h, NumberText.Count(r.Count));
             Cell(h, format(c.Mean));
             Cell(h, format(c.StdDevOverall));
@@ -204,7 +212,7 @@ public static class HtmlReportWriter
             h.Append("</tr>\n");
         }
 
-        h.Append("</table>\n<p class=\"meta\">Indices below 1.33, a usual minimum for an established process, are shown in red. ");
+        h.Append("</table></div>\n<p class=\"meta\">Indices below 1.33, a usual minimum for an established process, are shown in red. ");
         foreach (var note in ReportText.CapabilityNotes(report))
         {
             h.Append(E(note)).Append(' ');
@@ -346,4 +354,7 @@ public static class HtmlReportWriter
         h.Append(low ? "<td class=\"low\">" : "<td>").Append(E(text)).Append("</td>");
 
     private static string E(string text) => WebUtility.HtmlEncode(text);
+
+    /// <summary>Encoded text that may break after each dot (reading names such as cal.reference.offset), not elsewhere.</summary>
+    private static string Breakable(string text) => E(text).Replace(".", ".<wbr>", StringComparison.Ordinal);
 }

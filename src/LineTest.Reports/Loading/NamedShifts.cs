@@ -5,7 +5,7 @@ namespace LineTest.Reports.Loading;
 /// <summary>
 /// The factory's shifts by their start times of day (UTC), e.g. early 06:00, late 14:00, night 22:00: a shift runs
 /// from its start to the next shift's start, the last one past midnight to the first. From the station settings
-/// (<c>Station:Shifts</c>).
+/// (<c>Station:Shifts</c>, the one shift setting of the reports and the live page).
 /// </summary>
 public sealed class NamedShifts
 {
@@ -34,6 +34,9 @@ public sealed class NamedShifts
 
     /// <summary>Three eight-hour shifts starting 06:00, 14:00 and 22:00 UTC, used when the settings name none.</summary>
     public static NamedShifts Default { get; } = new([("early", new TimeOnly(6, 0)), ("late", new TimeOnly(14, 0)), ("night", new TimeOnly(22, 0))]);
+
+    /// <summary>The start times of day (UTC) in order.</summary>
+    public IReadOnlyList<TimeOnly> Starts => [.. _shifts.Select(s => s.Start)];
 
     /// <summary>The shifts in start order, as "name from HH:mm".</summary>
     public string Describe() =>

@@ -14,6 +14,12 @@ public sealed class ReportData
     /// <summary>The runs.</summary>
     public RunTable Runs { get; } = new();
 
+    /// <summary>
+    /// Yield counted by the source (null: the report counts it from <see cref="Runs"/>, which then need their
+    /// outcomes).
+    /// </summary>
+    public YieldTally? Tally { get; set; }
+
     /// <summary>Reading series in order of first appearance.</summary>
     public IReadOnlyList<ReadingSeries> Readings => _readings;
 

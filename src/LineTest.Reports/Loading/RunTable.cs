@@ -10,7 +10,7 @@ namespace LineTest.Reports.Loading;
 /// </summary>
 public sealed class RunTable
 {
-    private readonly List<string> _serials = [];
+    private readonly List<string?> _serials = [];
     private readonly List<long> _endedTicks = [];
     private readonly List<Verdict> _verdicts = [];
     private readonly List<int> _slots = [];
@@ -25,6 +25,12 @@ public sealed class RunTable
 
     /// <summary>Number of runs.</summary>
     public int Count => _serials.Count;
+
+    /// <summary>
+    /// False when runs were added without their outcome (<see cref="AddWithoutOutcome"/>): yield then comes from the
+    /// source's <see cref="YieldTally"/>, and serials, verdicts and outcomes cannot be asked for.
+    /// </summary>
+    public bool HasOutcomes { get; private set; } = true;
 
     /// <summary>False when the source gave no run times (a CSV without a time column).</summary>
     public bool HasTimes { get; internal set; } = true;
@@ -53,6 +59,41 @@ public sealed class RunTable
         string? reason)
     {
         ArgumentException.ThrowIfNullOrWhiteSpace(serial);
+        if (!HasOutcomes)
+        {
+            throw new InvalidOperationException("This table holds runs without outcomes; a run with its outcome cannot join them.");
+        }
+
+        return Append(serial, endedUtc, verdict, station, slot, lot, sequenceId, revision, failureName, reason);
+    }
+
+    /// <summary>
+    /// Adds a run without its unit and outcome, for a source that counts yield itself (<see cref="YieldTally"/>): the
+    /// report needs only what places the run's readings (time, station, slot, lot, sequence). Returns its index.
+    /// </summary>
+    public int AddWithoutOutcome(DateTimeOffset endedUtc, string station, int slot, string? lot, string? sequenceId, int? revision)
+    {
+        if (HasOutcomes && Count > 0)
+        {
+            throw new InvalidOperationException("This table holds runs with outcomes; a run without one cannot join them.");
+        }
+
+        HasOutcomes = false;
+        return Append(null, endedUtc, Core.Results.Verdict.Pass, station, slot, lot, sequenceId, revision, null, null);
+    }
+
+    private int Append(
+        string? serial,
+        DateTimeOffset endedUtc,
+        Verdict verdict,
+        string station,
+        int slot,
+        string? lot,
+        string? sequenceId,
+        int? revision,
+        string? failureName,
+        string? reason)
+    {
         ArgumentNullException.ThrowIfNull(station);
         _serials.Add(serial);
         _endedTicks.Add(endedUtc.UtcTicks);
@@ -89,12 +130,14 @@ public sealed class RunTable
     /// </summary>
     public bool[] FirstRuns()
     {
+        RequireOutcomes();
         var first = new Dictionary<string, int>(StringComparer.Ordinal);
         for (var r = 0; r < Count; r++)
         {
-            if (!first.TryGetValue(_serials[r], out var f) || _endedTicks[r] < _endedTicks[f])
+            var serial = _serials[r]!;
+            if (!first.TryGetValue(serial, out var f) || _endedTicks[r] < _endedTicks[f])
             {
-                first[_serials[r]] = r;
+                first[serial] = r;
             }
         }
 
@@ -108,13 +151,17 @@ public sealed class RunTable
     }
 
     /// <summary>Serial of run <paramref name="run"/>.</summary>
-    public string Serial(int run) => _serials[run];
+    public string Serial(int run) => _serials[run] ?? throw NoOutcomes();
 
     /// <summary>End of run <paramref name="run"/> (UTC).</summary>
     public DateTimeOffset EndedUtc(int run) => new(_endedTicks[run], TimeSpan.Zero);
 
     /// <summary>Verdict of run <paramref name="run"/>.</summary>
-    public Verdict Verdict(int run) => _verdicts[run];
+    public Verdict Verdict(int run)
+    {
+        RequireOutcomes();
+        return _verdicts[run];
+    }
 
     /// <summary>Slot of run <paramref name="run"/>.</summary>
     public int Slot(int run) => _slots[run];
@@ -128,10 +175,11 @@ public sealed class RunTable
     /// <summary>The run's outcome as yield statistics need it.</summary>
     public RunOutcome Outcome(int run)
     {
+        RequireOutcomes();
         var verdict = _verdicts[run];
         var reason = _pool.Text(_reasons[run]);
         return new RunOutcome(
-            _serials[run],
+            _serials[run]!,
             EndedUtc(run),
             verdict,
             verdict == Core.Results.Verdict.Fail ? _pool.Text(_failures[run]) : null,
@@ -142,16 +190,40 @@ public sealed class RunTable
     public IReadOnlyList<RunOutcome> Outcomes(IReadOnlyList<int>? runs = null) => new OutcomeView(this, runs);
 
     /// <summary>The group that run <paramref name="run"/> falls in under <paramref name="grouping"/>.</summary>
-    public string GroupKey(int run, ReportGrouping grouping, NamedShifts? shifts = null) => grouping switch
+    public string GroupKey(int run, ReportGrouping grouping, NamedShifts? shifts = null) => GroupKeyOf(
+        grouping,
+        Station(run),
+        _slots[run],
+        Lot(run),
+        HasTimes ? EndedUtc(run) : null,
+        SequenceId(run),
+        Revision(run),
+        grouping == ReportGrouping.Operator ? Operator(run) : null,
+        shifts);
+
+    /// <summary>
+    /// The group of a run with these fields under <paramref name="grouping"/> (<paramref name="endedUtc"/> null: the
+    /// source has no times). A source that groups runs itself names its groups with this, so the keys are the same.
+    /// </summary>
+    public static string GroupKeyOf(
+        ReportGrouping grouping,
+        string station,
+        int slot,
+        string? lot,
+        DateTimeOffset? endedUtc,
+        string? sequenceId,
+        int? revision,
+        string? operatorName,
+        NamedShifts? shifts = null) => grouping switch
     {
-        ReportGrouping.Operator => Operator(run) ?? "(no operator)",
-        ReportGrouping.Shift => HasTimes ? (shifts ?? NamedShifts.Default).ShiftOf(EndedUtc(run)) : "(no time)",
+        ReportGrouping.Operator => string.IsNullOrWhiteSpace(operatorName) ? "(no operator)" : operatorName,
+        ReportGrouping.Shift => endedUtc is { } shiftTime ? (shifts ?? NamedShifts.Default).ShiftOf(shiftTime) : "(no time)",
         ReportGrouping.None => "all",
-        ReportGrouping.Station => Station(run),
-        ReportGrouping.Slot => _slots[run].ToString(CultureInfo.InvariantCulture),
-        ReportGrouping.Lot => Lot(run) ?? "(no lot)",
-        ReportGrouping.Day => HasTimes ? EndedUtc(run).UtcDateTime.ToString("yyyy-MM-dd", CultureInfo.InvariantCulture) : "(no time)",
-        ReportGrouping.Revision => RevisionKey(run),
+        ReportGrouping.Station => station,
+        ReportGrouping.Slot => slot.ToString(CultureInfo.InvariantCulture),
+        ReportGrouping.Lot => lot ?? "(no lot)",
+        ReportGrouping.Day => endedUtc is { } day ? day.UtcDateTime.ToString("yyyy-MM-dd", CultureInfo.InvariantCulture) : "(no time)",
+        ReportGrouping.Revision => RevisionKey(sequenceId, revision),
         _ => throw new ArgumentOutOfRangeException(nameof(grouping), grouping, "Unknown grouping."),
     };
 
@@ -170,12 +242,22 @@ public sealed class RunTable
         return string.CompareOrdinal(a, b);
     }
 
-    private string RevisionKey(int run)
+    private static string RevisionKey(string? sequenceId, int? revision)
     {
-        var sequence = _pool.Text(_sequences[run]) ?? "(no sequence)";
-        var revision = _revisions[run];
-        return revision == int.MinValue ? sequence : string.Create(CultureInfo.InvariantCulture, $"{sequence} rev {revision}");
+        var sequence = sequenceId ?? "(no sequence)";
+        return revision is { } r ? string.Create(CultureInfo.InvariantCulture, $"{sequence} rev {r}") : sequence;
     }
+
+    private void RequireOutcomes()
+    {
+        if (!HasOutcomes)
+        {
+            throw NoOutcomes();
+        }
+    }
+
+    private static InvalidOperationException NoOutcomes() =>
+        new("The runs were loaded without their outcomes; the source counted their yield (ReportData.Tally).");
 
     private sealed class OutcomeView(RunTable table, IReadOnlyList<int>? runs) : IReadOnlyList<RunOutcome>
     {

@@ -162,6 +162,11 @@ public static class DemoCommand
                 return context.BadInput($"production mode refuses the sequence: {refusal}");
             }
 
+            if (shift.Stopped is { } stopped)
+            {
+                context.Error.WriteLine($"linetest: the shift {stopped}; the runs before the stop are stored");
+            }
+
             summary = summary with { Head = Storage.Proof.HeadFile.Read(resultsFolder).Head?.Current.Anchor };
             if (asJson)
             {
@@ -173,7 +178,7 @@ public static class DemoCommand
                 context.Output.WriteLine(ResultsHeadLine.For(resultsFolder));
             }
 
-            return ExitCodes.Done;
+            return shift.Stopped is null ? ExitCodes.Done : ExitCodes.RuntimeFailure;
         });
         return command;
     }

@@ -27,7 +27,11 @@ public static class FactoryBenchCommand
         var stations = new Option<int>("--stations") { Description = "forward: stations forwarding at once", DefaultValueFactory = _ => 10 };
         var runs = new Option<int>("--runs") { Description = "forward: runs per station; report: runs in the database", DefaultValueFactory = _ => 1000 };
         var readings = new Option<int>("--readings") { Description = "forward: readings per run", DefaultValueFactory = _ => 20 };
-        var command = new Command("bench-factory", "Factory database benchmarks: forwarding throughput, report against the SQL floor") { factory, mode, stations, runs, readings };
+        var existing = new Option<bool>("--existing")
+        {
+            Description = "report: measure over the runs already in the database (filled by an earlier report benchmark) instead of filling an empty one",
+        };
+        var command = new Command("bench-factory", "Factory database benchmarks: forwarding throughput, report against the SQL floor") { factory, mode, stations, runs, readings, existing };
         command.SetAction(async (parse, ct) =>
         {
             await using var dataSource = FactoryConnection.Create(parse.GetValue(factory)!);
@@ -38,7 +42,8 @@ public static class FactoryBenchCommand
                 await using (var count = dataSource.CreateCommand("SELECT count(*) FROM run_ids;"))
                 await using (var count2 = dataSource.CreateCommand("SELECT count(*) FROM runs;"))
                 {
-                    if ((long)(await count.ExecuteScalarAsync(ct).ConfigureAwait(false))! + (long)(await count2.ExecuteScalarAsync(ct).ConfigureAwait(false))! > 0)
+                    var reuse = parse.GetValue(existing) && parse.GetValue(mode) == "report";
+                    if (!reuse && (long)(await count.ExecuteScalarAsync(ct).ConfigureAwait(false))! + (long)(await count2.ExecuteScalarAsync(ct).ConfigureAwait(false))! > 0)
                     {
                         return context.BadInput($"{FactoryConnection.Describe(dataSource)} already holds runs; the benchmark needs an empty database");
                     }
@@ -54,21 +59,25 @@ public static class FactoryBenchCommand
                     return ExitCodes.Done;
                 }
 
-                var total = parse.GetValue(runs);
-                var fill = await FactoryBench.FillAsync(dataSource, total, ct).ConfigureAwait(false);
-                context.Output.WriteLine(string.Create(inv, $"filled {total} runs x 5 readings in {fill:F1} s"));
+                if (!parse.GetValue(existing))
+                {
+                    var total = parse.GetValue(runs);
+                    var fill = await FactoryBench.FillAsync(dataSource, total, ct).ConfigureAwait(false);
+                    context.Output.WriteLine(string.Create(inv, $"filled {total} runs x 5 readings in {fill:F1} s"));
+                }
+
                 var floor = await FactoryBench.FloorAsync(dataSource, ct).ConfigureAwait(false);
                 context.Output.WriteLine(string.Create(inv, $"floor (plain SQL aggregate: yield counts, per-reading count/mean/sd/min/max): {floor:F2} s"));
                 await FactoryBench.FloorAsync(dataSource, ct).ConfigureAwait(false);
                 var watch = Stopwatch.StartNew();
-                var data = await FactoryReportLoader.LoadAsync(dataSource, ReportQuery.All, ct).ConfigureAwait(false);
+                var data = await FactoryReportLoader.LoadCountedAsync(dataSource, ReportQuery.All, ct).ConfigureAwait(false);
                 var loaded = watch.Elapsed.TotalSeconds;
                 var json = ReportJsonWriter.ToJson(ReportBuilder.Build(data, ReportQuery.All, context.Clock));
                 watch.Stop();
                 using var process = Process.GetCurrentProcess();
                 context.Output.WriteLine(string.Create(
                     inv,
-                    $"report --factory --json: {watch.Elapsed.TotalSeconds:F2} s (load {loaded:F2} s), {json.Length / 1024} KiB of JSON, peak working set {process.PeakWorkingSet64 / (1024 * 1024)} MB; {watch.Elapsed.TotalSeconds / floor:F1} x the floor"));
+                    $"report --factory --json over {data.Runs.Count} runs: {watch.Elapsed.TotalSeconds:F2} s (load {loaded:F2} s), {json.Length / 1024} KiB of JSON, peak working set {process.PeakWorkingSet64 / (1024 * 1024)} MB; {watch.Elapsed.TotalSeconds / floor:F1} x the floor"));
                 return ExitCodes.Done;
             }
             catch (NpgsqlException ex)

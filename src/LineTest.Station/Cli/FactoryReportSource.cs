@@ -25,7 +25,7 @@ internal static class FactoryReportSource
         {
             try
             {
-                return (await FactoryReportLoader.LoadAsync(dataSource, query, ct).ConfigureAwait(false), ExitCodes.Done);
+                return (await FactoryReportLoader.LoadCountedAsync(dataSource, query, ct).ConfigureAwait(false), ExitCodes.Done);
             }
             catch (PostgresException ex) when (ex.SqlState == PostgresErrorCodes.UndefinedTable)
             {

@@ -104,6 +104,16 @@ internal static class MultiStationDemo
             return context.BadInput($"production mode refuses the sequence: {refusal}");
         }
 
+        if (shifts.Select(s => s.Unplaced).FirstOrDefault(r => r is not null) is { } unplaced)
+        {
+            return context.BadInput($"the shift does not fit before now: {unplaced}");
+        }
+
+        foreach (var stopped in shifts.Select(s => s.Stopped).OfType<string>())
+        {
+            context.Error.WriteLine($"linetest: the shift {stopped}; the runs before the stop are stored");
+        }
+
         for (var k = 0; k < loops.Count; k++)
         {
             if (loops[k].Current.Count > 0 || loops[k].Current.Problem is not null)

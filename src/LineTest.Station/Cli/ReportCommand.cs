@@ -9,6 +9,8 @@ using LineTest.Reports.Html;
 using LineTest.Reports.Json;
 using LineTest.Reports.Loading;
 using LineTest.Storage.Store;
+using LineTest.Web.Hosting;
+using Microsoft.Extensions.Logging;
 using Spectre.Console;
 
 namespace LineTest.Station.Cli;
@@ -56,16 +58,16 @@ public static class ReportCommand
                 return context.BadInput(error!);
             }
 
-            var shifts = NamedShifts.Default;
-            if (context.Options.Shifts.Count > 0)
+            // The one shift setting, Station:Shifts, as the live page reads it.
+            var (shifts, shiftError, shiftWarning) = ShiftSettings.Read(context.Configuration);
+            if (shifts is null)
             {
-                var (calendar, shiftError) = NamedShifts.Parse(context.Options.Shifts.Select(kv => $"{kv.Key}={kv.Value}"));
-                if (calendar is null)
-                {
-                    return context.BadInput($"Station:Shifts in the settings: {shiftError}");
-                }
+                return context.BadInput($"the settings: {shiftError}");
+            }
 
-                shifts = calendar;
+            if (shiftWarning is not null)
+            {
+                ShiftSettings.LogDeprecation(context.Loggers.CreateLogger(typeof(ShiftSettings)), shiftWarning);
             }
 
             query = query with { FirstRunsOnly = parse.GetValue(firstRuns), Shifts = shifts };

@@ -39,7 +39,8 @@ public sealed class StationOptions
     /// <summary>
     /// The factory's shifts for <c>linetest report --by shift</c>: name → start time of day in UTC (HH:mm), e.g.
     /// <c>{"early": "06:00", "late": "14:00", "night": "22:00"}</c> (the default when empty). A shift lasts until the
-    /// next one starts.
+    /// next one starts. The one shift setting: the live page's "this shift" uses it too (read by
+    /// <c>LineTest.Web.Hosting.ShiftSettings</c>, which also accepts the older <c>Station:Web:ShiftStartsUtc</c>).
     /// </summary>
     public Dictionary<string, string> Shifts { get; set; } = [];
 

@@ -4,6 +4,7 @@ using LineTest.Core.Scanning;
 using LineTest.Core.Sequences;
 using LineTest.Core.Sequences.Steps;
 using LineTest.Core.Throughput;
+using LineTest.Factory.Forwarding;
 using LineTest.Rig.Serial.Scanner;
 using LineTest.Runtime.Batches;
 using LineTest.Station.Cli;
@@ -33,10 +34,12 @@ public sealed partial class StationService : BackgroundService
     private readonly ILoggerFactory _loggers;
     private readonly IHostApplicationLifetime _lifetime;
     private readonly ILogger<StationService> _logger;
+    private readonly IFactoryBacklog? _factory;
 
-    /// <summary>Creates the service.</summary>
-    public StationService(StationServiceContext context, ILoggerFactory loggers, IHostApplicationLifetime lifetime)
+    /// <summary>Creates the service; <paramref name="factory"/> is the forwarding backlog when runs go to a factory database.</summary>
+    public StationService(StationServiceContext context, ILoggerFactory loggers, IHostApplicationLifetime lifetime, IFactoryBacklog? factory = null)
     {
+        _factory = factory;
         ArgumentNullException.ThrowIfNull(context);
         _context = context;
         _options = context.Options;
@@ -139,7 +142,7 @@ public sealed partial class StationService : BackgroundService
             new ScreenHeader(_options.Id, fixture.Name ?? fixture.Id, sequence.Id, sequence.Revision, _options.Lot, _options.Operator, _options.Mode),
             fixture.Slots.Select(s => s.Slot),
             ExpectedStepSeconds(sequence, fixture),
-            rig.Clock) { Words = new StepWords(sequence) };
+            rig.Clock) { Words = new StepWords(sequence), Factory = _factory };
         var interactive = ReferenceEquals(_context.Input, Console.In) && !Console.IsInputRedirected && !Console.IsOutputRedirected;
         if (interactive)
         {

@@ -1,5 +1,6 @@
 using System.Globalization;
 using LineTest.Core.Results;
+using LineTest.Factory.Forwarding;
 using Spectre.Console;
 using Spectre.Console.Rendering;
 
@@ -36,6 +37,7 @@ public static class ScreenRenderer
         var colour = caution.StartsWith("HOT", StringComparison.Ordinal) ? "red" : caution.StartsWith("COLD", StringComparison.Ordinal) ? "deepskyblue1" : "yellow";
         rows.Add(new Markup($"[bold {colour}]{E(caution)}[/]"));
         var used = 4;
+        var factoryAt = rows.Count;
         if (s.Alarm is { } alarm)
         {
             rows.Add(new Markup($"[bold white on red]{E(alarm)}[/]"));
@@ -75,6 +77,16 @@ public static class ScreenRenderer
         rows.AddRange(below.Select(b => new Markup(b.Markup)));
         rows.AddRange(info.Select(i => new Markup($"[grey]{E(i)}[/]")));
         rows.AddRange(tail.Select(t => new Markup(t.Markup)));
+        if (s.Factory is { } factory && used < Height)
+        {
+            // The forwarding backlog, one line below the caution. Waiting runs are safe in the station's own database,
+            // so the line is yellow while any wait, never an alarm, and it is the first to give way on a full screen
+            // (the log has it too); it comes back at the next redraw with room.
+            var text = factory.Describe();
+            text = text.Length > Width ? text[..(Width - 1)] + "…" : text;
+            rows.Insert(factoryAt, new Markup($"[{(factory.Count == 0 && factory.Problem is null ? "grey" : "yellow")}]{E(text)}[/]"));
+        }
+
         return new Rows(rows);
     }
 
@@ -83,6 +95,11 @@ public static class ScreenRenderer
     {
         ArgumentNullException.ThrowIfNull(s);
         var lines = new List<string> { Markup.Remove(SourceLine(s)) };
+        if (s.Factory is { } factory)
+        {
+            lines.Add(factory.Describe());
+        }
+
         if (s.Caution is { } caution)
         {
             lines.Add(caution);

@@ -1,5 +1,6 @@
 using LineTest.Core.Results;
 using LineTest.Core.Units;
+using LineTest.Factory.Forwarding;
 using LineTest.Runtime.Batches;
 
 namespace LineTest.Station.Screen;
@@ -70,12 +71,17 @@ public sealed class StationScreenModel : IBatchObserver
     /// <summary>The words for what a unit is doing; null: the state's words.</summary>
     public StepWords? Words { get; init; }
 
+    /// <summary>The forwarding backlog to show (count, oldest, why it waits); null when the station forwards nowhere.</summary>
+    public IFactoryBacklog? Factory { get; init; }
+
     /// <summary>A consistent copy of everything on screen.</summary>
     public ScreenSnapshot Snapshot()
     {
+        // The backlog is replaced whole by the forwarding loop, so it is read outside the lock.
+        var factory = Factory?.Current;
         lock (_gate)
         {
-            return new ScreenSnapshot(_header, _slots.Values.OrderBy(s => s.Slot).Select(WithTimeLeft).ToList(), _setpointC, _referenceC, _phase, _prompt, Caution(), _alarm, _notice, _info);
+            return new ScreenSnapshot(_header, _slots.Values.OrderBy(s => s.Slot).Select(WithTimeLeft).ToList(), _setpointC, _referenceC, _phase, _prompt, Caution(), _alarm, _notice, _info, factory);
         }
     }
 

@@ -30,19 +30,30 @@ public static class StationWebPageExtensions
 
         var listen = ListenAddress.Parse(options.Listen, out var error)
             ?? throw new InvalidOperationException("Station:Web:Listen " + error);
-        var problems = options.Validate(listen);
+        var (shifts, shiftError, shiftWarning) = ShiftSettings.Read(configuration);
+        var problems = options.Validate(listen).Concat(shiftError is null ? [] : [shiftError]).ToList();
         if (problems.Count > 0)
         {
             throw new InvalidOperationException("The live page cannot start: " + string.Join("; ", problems));
         }
 
         var folder = Path.GetFullPath(resultsDirectory);
-        services.AddSingleton<IHostedService>(provider => new StationWebPageService(StationWebPageService.Setup(
-            listen,
-            options,
-            folder,
-            provider.GetService<TimeProvider>() ?? TimeProvider.System,
-            provider.GetRequiredService<ILoggerFactory>())));
+        services.AddSingleton<IHostedService>(provider =>
+        {
+            var loggers = provider.GetRequiredService<ILoggerFactory>();
+            if (shiftWarning is not null)
+            {
+                ShiftSettings.LogDeprecation(loggers.CreateLogger(typeof(ShiftSettings)), shiftWarning);
+            }
+
+            return new StationWebPageService(StationWebPageService.Setup(
+                listen,
+                options,
+                folder,
+                provider.GetService<TimeProvider>() ?? TimeProvider.System,
+                loggers,
+                provider.GetService<Factory.Forwarding.IFactoryBacklog>()) with { Shifts = shifts! });
+        });
         return true;
     }
 }

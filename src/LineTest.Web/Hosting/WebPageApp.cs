@@ -48,9 +48,10 @@ public static class WebPageApp
         builder.Services.AddSingleton(setup.Options);
         builder.Services.AddSingleton(setup.Source);
         builder.Services.AddSingleton(setup.Time);
-        builder.Services.AddSingleton(new ShiftCalendar(setup.Options.ShiftStarts()));
+        builder.Services.AddSingleton(new ShiftCalendar(setup.Shifts.Starts));
         builder.Services.AddSingleton(new WebCredentials(setup.Options));
         builder.Services.AddSingleton<LineMonitor>();
+        builder.Services.AddSingleton<PageSnapshots>();
         configure?.Invoke(builder);
 
         var app = builder.Build();

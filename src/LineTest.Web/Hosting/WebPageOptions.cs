@@ -28,18 +28,17 @@ public sealed class WebPageOptions
     /// <summary>The user's password as <c>pbkdf2-sha256$ITERATIONS$SALT$HASH</c> (<c>linetest serve --hash-password</c>).</summary>
     public string? PasswordHash { get; set; }
 
-    /// <summary>Start of each shift, UTC, HH:mm. Default 06:00, 14:00 and 22:00: three shifts of eight hours.</summary>
-    public IList<string> ShiftStartsUtc { get; set; } = ["06:00", "14:00", "22:00"];
+    /// <summary>
+    /// Deprecated: the shifts are <c>Station:Shifts</c> now, for the page and the reports alike (<see cref="ShiftSettings"/>
+    /// reads this list, with a warning, only when <c>Station:Shifts</c> is not set). Start of each shift, UTC, HH:mm.
+    /// </summary>
+    public IList<string> ShiftStartsUtc { get; set; } = [];
 
     /// <summary>Seconds between looks at the results for the live line page. Default 2.</summary>
     public double RefreshSeconds { get; set; } = 2;
 
     /// <summary>True when a token or a user with a password is configured.</summary>
     public bool HasCredential => !string.IsNullOrWhiteSpace(TokenSha256) || (!string.IsNullOrWhiteSpace(User) && !string.IsNullOrWhiteSpace(PasswordHash));
-
-    /// <summary>The shift starts as times of day; call after <see cref="Validate"/> found no problem.</summary>
-    public IReadOnlyList<TimeOnly> ShiftStarts() =>
-        [.. ShiftStartsUtc.Select(s => TimeOnly.ParseExact(s.Trim(), "HH:mm", CultureInfo.InvariantCulture)).Order()];
 
     /// <summary>Every problem with these options for a page listening on <paramref name="listen"/>, in one list.</summary>
     public IReadOnlyList<string> Validate(ListenAddress listen)
@@ -65,11 +64,6 @@ public sealed class WebPageOptions
             problems.Add(
                 $"listening on {listen} lets other computers connect, so a credential is needed: set Station:Web:TokenSha256 "
                 + "(or Station:Web:User and Station:Web:PasswordHash) in appsettings.json, or listen on 127.0.0.1");
-        }
-
-        if (ShiftStartsUtc.Count == 0)
-        {
-            problems.Add("Station:Web:ShiftStartsUtc needs at least one shift start (HH:mm, UTC)");
         }
 
         foreach (var start in ShiftStartsUtc)

@@ -1,3 +1,4 @@
+using LineTest.Reports.Loading;
 using LineTest.Web.Access;
 using LineTest.Web.Data;
 using Microsoft.Extensions.Logging;
@@ -12,6 +13,9 @@ public sealed record WebPageSetup(ListenAddress Listen, WebPageOptions Options, 
 {
     /// <summary>The clock for shifts, days and "updated at". Default: the system clock.</summary>
     public TimeProvider Time { get; init; } = TimeProvider.System;
+
+    /// <summary>The factory's shifts (<c>Station:Shifts</c>, read by <see cref="ShiftSettings.Read"/>). Default: 06:00, 14:00, 22:00 UTC.</summary>
+    public NamedShifts Shifts { get; init; } = NamedShifts.Default;
 
     /// <summary>The loggers (Serilog's in the station); null keeps ASP.NET Core's console logging.</summary>
     public ILoggerFactory? Loggers { get; init; }

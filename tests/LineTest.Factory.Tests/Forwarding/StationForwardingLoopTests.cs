@@ -80,6 +80,37 @@ public sealed class StationForwardingLoopTests
         }
     }
 
+    [Fact]
+    public async Task RunAsync_ServerUnreachable_LogsTheBacklogCountAndOldestRunAndTheScreenSeesThem()
+    {
+        // Nothing listens on port 1 of the loopback: every attempt is refused at once.
+        await using var dataSource = Schema.FactoryConnection.Create("Host=127.0.0.1;Port=1;Username=postgres;Database=none;Timeout=2");
+        await using var station = new StationFolder("ST-07", Start);
+        await station.AddRunsAsync(4);
+        var logger = new RecordingLogger<StationForwardingLoop>();
+        var forwarder = new FactoryForwarder(dataSource, TimeProvider.System, NullLogger<FactoryForwarder>.Instance, Quick.BatchSize);
+        await using var loop = new StationForwardingLoop(station.Directory, forwarder, Quick, TimeProvider.System, logger);
+        using var stop = new CancellationTokenSource();
+        var running = Task.Run(() => loop.RunAsync(stop.Token));
+        try
+        {
+            await WaitUntil(() => logger.Events.Any(e => e.Id.Id == 3010), "the outage to be logged");
+        }
+        finally
+        {
+            await stop.CancelAsync();
+            await running;
+        }
+
+        var logged = logger.Events.First(e => e.Id.Id == 3010);
+        Assert.Equal(Microsoft.Extensions.Logging.LogLevel.Warning, logged.Level);
+        var oldest = station.Stored[0].EndedUtc.UtcDateTime.ToString("yyyy-MM-dd HH:mm:ss", System.Globalization.CultureInfo.InvariantCulture);
+        Assert.Contains($"4 run(s) waiting, the oldest ended {oldest} UTC", logged.Message, StringComparison.Ordinal);
+        Assert.Equal(4, loop.Current.Count);
+        Assert.Equal(station.Stored[0].EndedUtc, loop.Current.OldestEndedUtc);
+        Assert.NotNull(loop.Current.Problem);
+    }
+
     private static async Task WaitUntil(Func<bool> condition, string what)
     {
         // Waits on a real server process, so real time; bounded so a regression fails instead of hanging.

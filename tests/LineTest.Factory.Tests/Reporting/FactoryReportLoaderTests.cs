@@ -28,27 +28,79 @@ public sealed class FactoryReportLoaderTests
         },
     };
 
+    public static TheoryData<string, ReportQuery> RetestQueries => new()
+    {
+        { "all runs", ReportQuery.All },
+        { "first runs only", new ReportQuery { FirstRunsOnly = true } },
+        { "by station, first runs only", new ReportQuery { GroupBy = ReportGrouping.Station, FirstRunsOnly = true } },
+        { "by day", new ReportQuery { GroupBy = ReportGrouping.Day } },
+        { "by shift", new ReportQuery { GroupBy = ReportGrouping.Shift } },
+        { "by named shifts", new ReportQuery { GroupBy = ReportGrouping.Shift, Shifts = new NamedShifts([("day", new TimeOnly(7, 30)), ("evening", new TimeOnly(19, 10))]) } },
+        { "by revision", new ReportQuery { GroupBy = ReportGrouping.Revision } },
+        { "by operator", new ReportQuery { GroupBy = ReportGrouping.Operator } },
+        { "by lot, slot filter", new ReportQuery { Slot = 3, GroupBy = ReportGrouping.Lot } },
+        { "by slot, revision filter, time window", new ReportQuery { SequenceRevision = 3, FromUtc = Start.AddHours(2), ToUtc = Start.AddHours(9), GroupBy = ReportGrouping.Slot } },
+    };
+
     [PostgresTheory]
     [MemberData(nameof(Queries))]
-    public async Task LoadAsync_SameRunsAsTheStationFolders_SameJsonReport(string what, ReportQuery query)
+    public async Task LoadAsync_SameRunsAsTheStationFolders_SameJsonReport(string what, ReportQuery query) =>
+        await AssertSameReportsAsync(what, query, retests: false, apart: TimeSpan.FromMinutes(7));
+
+    /// <summary>
+    /// Units tested twice in a row at each of three stations whose runs end at the same instants: each unit's first and
+    /// last run are decided by the end time and then the run order, the same in SQL as in the report builder.
+    /// </summary>
+    [PostgresTheory]
+    [MemberData(nameof(RetestQueries))]
+    public async Task LoadCountedAsync_RetestsAtThreeStationsEndingTogether_SameJsonReportAsFolders(string what, ReportQuery query) =>
+        await AssertSameReportsAsync(what, query, retests: true, apart: TimeSpan.Zero);
+
+    [PostgresTheory]
+    [MemberData(nameof(RetestQueries))]
+    public async Task LoadCountedAsync_RetestsAtStationsMinutesApart_SameJsonReportAsFolders(string what, ReportQuery query) =>
+        await AssertSameReportsAsync(what, query, retests: true, apart: TimeSpan.FromMinutes(7));
+
+    [PostgresFact]
+    public async Task LoadCountedAsync_YieldCountedInSql_RunsLoadedWithoutOutcomes()
     {
         await using var database = await TestDatabase.CreateAsync();
-        var stations = new[] { "ST-01", "ST-02", "ST-03" }.Select((s, i) => new StationFolder(s, Start.AddMinutes(i * 7))).ToList();
+        await using var station = new StationFolder("ST-01", Start);
+        await station.AddRunsAsync(12, retests: true);
+        await Support.Factory.ForwardAsync(Support.Factory.Forwarder(database), station.Directory);
+
+        var data = await FactoryReportLoader.LoadCountedAsync(database.DataSource, new ReportQuery { FirstRunsOnly = true });
+
+        Assert.False(data.Runs.HasOutcomes);
+        Assert.NotNull(data.Tally);
+        // 12 runs of 6 units [derived: serials (n + 1) / 2 for n = 1..12].
+        Assert.Equal(12, data.Tally.Overall.Runs);
+        Assert.Equal(6, data.Tally.Overall.Units);
+        Assert.Equal([true, false, true, false, true, false, true, false, true, false, true, false], data.Tally.FirstRunFlags!);
+    }
+
+    private static async Task AssertSameReportsAsync(string what, ReportQuery query, bool retests, TimeSpan apart)
+    {
+        await using var database = await TestDatabase.CreateAsync();
+        var stations = new[] { "ST-01", "ST-02", "ST-03" }.Select((s, i) => new StationFolder(s, Start + (i * apart))).ToList();
         try
         {
             var forwarder = Support.Factory.Forwarder(database);
             foreach (var station in stations)
             {
-                await station.AddRunsAsync(40);
+                await station.AddRunsAsync(40, retests: retests);
                 await Support.Factory.ForwardAsync(forwarder, station.Directory);
             }
 
             // Folders listed in station order: a folder report orders merged stations by end time, then by folder.
             var fromFolders = await ResultsLoader.LoadAsync(stations.Select(s => s.Directory).ToList(), query);
             var fromFactory = await FactoryReportLoader.LoadAsync(database.DataSource, query);
+            var counted = await FactoryReportLoader.LoadCountedAsync(database.DataSource, query);
 
             Assert.True(fromFolders.Runs.Count > 0, what);
-            Assert.Equal(Json(fromFolders, query), Json(fromFactory, query));
+            var expected = Json(fromFolders, query);
+            Assert.Equal(expected, Json(fromFactory, query));
+            Assert.Equal(expected, Json(counted, query));
         }
         finally
         {

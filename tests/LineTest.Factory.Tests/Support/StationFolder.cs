@@ -27,18 +27,30 @@ public sealed class StationFolder : IAsyncDisposable
 
     public List<RunRecord> Stored { get; } = [];
 
-    /// <summary>Stores <paramref name="count"/> runs, 20 minutes apart, every seventh failing and every eleventh an error.</summary>
-    public async Task AddRunsAsync(int count, TimeSpan? step = null)
+    /// <summary>
+    /// Stores <paramref name="count"/> runs, 20 minutes apart, every seventh failing and every eleventh an error. With
+    /// <paramref name="retests"/>, serials do not name the station and each is tested twice in a row, so a unit has runs
+    /// at every station (in the same order at each); runs then name one of two operators (or none, or a blank one) and
+    /// every fifth run tests another sequence revision.
+    /// </summary>
+    public async Task AddRunsAsync(int count, TimeSpan? step = null, bool retests = false)
     {
         for (var i = 0; i < count; i++)
         {
             _count++;
             var builder = new RunRecordBuilder()
                 .WithStation(Station)
-                .WithSerial($"CTP40-{Station}-{_count:D5}")
+                .WithSerial(retests ? $"CTP40-{(_count + 1) / 2:D5}" : $"CTP40-{Station}-{_count:D5}")
                 .WithSlot(1 + (_count % 4))
                 .WithLot(_count % 3 == 0 ? "LOT-B" : "LOT-A")
                 .StartedAt(_next, TimeSpan.FromMinutes(14.5));
+            if (retests)
+            {
+                builder = builder
+                    .WithOperator((_count % 4) switch { 0 => null, 1 => "  ", _ => $"OP-{_count % 2}" })
+                    .WithSequence("ctp40a-eol", _count % 5 == 0 ? 4 : 3);
+            }
+
             if (_count % 7 == 0)
             {
                 builder = builder.Failing("verify.error", "verify.error outside limits");

@@ -69,29 +69,8 @@ public sealed partial class HtmlReportWriterTests
         var shot = Path.Combine(folder, "report.png");
         await File.WriteAllTextAsync(page, html);
 
-        var start = new ProcessStartInfo(ChromiumFactAttribute.ChromiumPath)
-        {
-            RedirectStandardError = true,
-            RedirectStandardOutput = true,
-        };
-        foreach (var argument in new[]
-        {
-            "--headless", "--no-sandbox", "--disable-gpu", "--no-first-run", "--disable-background-networking",
-            "--disable-component-update", "--disable-sync", $"--user-data-dir={Path.Combine(folder, "profile")}",
-            $"--screenshot={shot}", "--window-size=1280,4000", "file://" + page,
-        })
-        {
-            start.ArgumentList.Add(argument);
-        }
-
-        using (var browser = Process.Start(start)!)
-        {
-            var stderr = browser.StandardError.ReadToEndAsync();
-            _ = browser.StandardOutput.ReadToEndAsync();
-            using var cancel = new CancellationTokenSource(TimeSpan.FromSeconds(90));
-            await browser.WaitForExitAsync(cancel.Token);
-            Assert.True(File.Exists(shot), "no screenshot; chromium said: " + await stderr);
-        }
+        var (_, stderr) = await ChromiumAsync(folder, $"--screenshot={shot}", "--window-size=1280,4000", "file://" + page);
+        Assert.True(File.Exists(shot), "no screenshot; chromium said: " + stderr);
 
         using var bitmap = SKBitmap.Decode(shot);
         Assert.Equal((1280, 4000), (bitmap.Width, bitmap.Height));
@@ -121,6 +100,100 @@ public sealed partial class HtmlReportWriterTests
         Assert.True(variance > 100, $"screenshot looks blank (luminance variance {variance:F1})");
         Assert.True(inked > samples / 100, $"only {inked} of {samples} sampled pixels are dark");
     }
+
+    // Regression: the readings table (twelve columns, long reading names, the products each figure covers) ran past
+    // the page column on screen and off the paper in print. Laid out by the browser itself: every table must sit inside
+    // the column of main, on a 1280 px screen (a 960 px column) and with the print rules on a sheet of A4 less the
+    // 12 mm side margins of the page's @page rule (186 mm = 703 CSS px), with cells no smaller than 9 px.
+    [ChromiumFact]
+    public async Task Write_WideReadingsTable_FitsThePageColumnOnScreenAndInPrint()
+    {
+        var directory = await Synthetic.CreateAsync(120, seed: 5, mixedProducts: true);
+        var query = ReportQuery.All with { GroupBy = ReportGrouping.Lot };
+        var report = ReportBuilder.Build(await ResultsLoader.LoadAsync([directory], query), query, new FakeTimeProvider(new DateTimeOffset(2025, 3, 5, 8, 0, 0, TimeSpan.Zero)));
+        Assert.True(report.Readings.Select(r => r.SequenceId).Distinct().Count() > 1, "the page should show two products' readings");
+        var html = HtmlReportWriter.ToHtml(report);
+        var folder = Some.TempDirectory();
+
+        foreach (var (print, width) in new[] { (false, 1280), (true, 703) })
+        {
+            var page = Path.Combine(folder, print ? "print.html" : "screen.html");
+            await File.WriteAllTextAsync(page, html.Replace("</body>", LayoutProbe(print) + "</body>", StringComparison.Ordinal));
+            var (dom, stderr) = await ChromiumAsync(folder, "--dump-dom", $"--window-size={width},2000", "file://" + page);
+            var verdict = LayoutVerdict().Match(dom);
+            Assert.True(verdict.Success, "the layout probe did not run; chromium said: " + stderr);
+            Assert.Equal((print ? "print: " : "screen: ") + "fits", System.Net.WebUtility.HtmlDecode(verdict.Groups[1].Value));
+        }
+    }
+
+    /// <summary>
+    /// A script (for the test copy only; the report itself has none) that measures the laid-out page and writes what
+    /// does not fit into body's data-layout attribute. For print it turns the page's print rules on for the screen.
+    /// </summary>
+    private static string LayoutProbe(bool print) => $$"""
+        <script>
+        (function () {
+          var print = {{(print ? "true" : "false")}};
+          if (print) {
+            for (var s = 0; s < document.styleSheets.length; s++) {
+              var rules = document.styleSheets[s].cssRules;
+              for (var r = 0; r < rules.length; r++) {
+                if (rules[r].media && rules[r].media.mediaText.indexOf('print') >= 0) { rules[r].media.mediaText = 'all'; }
+              }
+            }
+          }
+          var main = document.querySelector('main');
+          var box = main.getBoundingClientRect();
+          var style = getComputedStyle(main);
+          var left = box.left + parseFloat(style.paddingLeft), right = box.right - parseFloat(style.paddingRight);
+          var problems = [];
+          var tables = document.querySelectorAll('table');
+          for (var i = 0; i < tables.length; i++) {
+            var t = tables[i].getBoundingClientRect();
+            if (t.right > right + 0.5 || t.left < left - 0.5) {
+              problems.push('table ' + (i + 1) + ' (' + tables[i].rows[0].cells[0].textContent + ') spans ' + Math.round(t.left) + '-' + Math.round(t.right) + ' px, the column ' + Math.round(left) + '-' + Math.round(right) + ' px');
+            }
+          }
+          var cells = document.querySelectorAll('td, th');
+          for (var c = 0; c < cells.length; c++) {
+            var size = parseFloat(getComputedStyle(cells[c]).fontSize);
+            if (size < 9) { problems.push('cell "' + cells[c].textContent + '" in ' + size + ' px type'); break; }
+          }
+          if (document.documentElement.scrollWidth > document.documentElement.clientWidth) {
+            problems.push('the page scrolls sideways (' + document.documentElement.scrollWidth + ' px)');
+          }
+          document.body.setAttribute('data-layout', (print ? 'print: ' : 'screen: ') + (problems.length ? problems.join('; ') : 'fits'));
+        })();
+        </script>
+
+        """;
+
+    private static async Task<(string Stdout, string Stderr)> ChromiumAsync(string folder, params string[] arguments)
+    {
+        var start = new ProcessStartInfo(ChromiumFactAttribute.ChromiumPath)
+        {
+            RedirectStandardError = true,
+            RedirectStandardOutput = true,
+        };
+        foreach (var argument in new[]
+        {
+            "--headless", "--no-sandbox", "--disable-gpu", "--no-first-run", "--disable-background-networking",
+            "--disable-component-update", "--disable-sync", $"--user-data-dir={Path.Combine(folder, "profile")}",
+        }.Concat(arguments))
+        {
+            start.ArgumentList.Add(argument);
+        }
+
+        using var browser = Process.Start(start)!;
+        var stderr = browser.StandardError.ReadToEndAsync();
+        var stdout = browser.StandardOutput.ReadToEndAsync();
+        using var cancel = new CancellationTokenSource(TimeSpan.FromSeconds(90));
+        await browser.WaitForExitAsync(cancel.Token);
+        return (await stdout, await stderr);
+    }
+
+    [GeneratedRegex("data-layout=\"([^\"]*)\"")]
+    private static partial Regex LayoutVerdict();
 
     [GeneratedRegex("data:image/png;base64,([A-Za-z0-9+/=]+)")]
     private static partial Regex PngImage();

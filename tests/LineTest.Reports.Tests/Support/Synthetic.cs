@@ -5,10 +5,13 @@ using LineTest.TestSupport.Builders;
 
 namespace LineTest.Reports.Tests.Support;
 
-/// <summary>A larger seeded database (normal values, a slot offset, a few failures) for page and layout tests.</summary>
+/// <summary>
+/// A larger seeded database (normal values, a slot offset, a few failures) for page and layout tests; with
+/// <c>mixedProducts</c> every third run is of a second product (another sequence), so readings are labelled per product.
+/// </summary>
 internal static class Synthetic
 {
-    public static async Task<string> CreateAsync(int runs, int seed)
+    public static async Task<string> CreateAsync(int runs, int seed, bool mixedProducts = false)
     {
         var directory = Some.TempDirectory();
         var random = new Random(seed);
@@ -29,6 +32,7 @@ internal static class Synthetic
                 .WithSlot(slot)
                 .WithStation(i % 2 == 0 ? "ST-01" : "ST-02")
                 .WithLot(i < runs / 2 ? "LOT-A" : "LOT-B")
+                .WithSequence(mixedProducts && i % 3 == 2 ? "ctp40r-resistor" : "ctp40a-eol", mixedProducts && i % 3 == 2 ? 1 : 3)
                 .StartedAt(start.AddMinutes(i * 9), TimeSpan.FromMinutes(8))
                 .WithReadings(
                     new Reading("cold.output", output, "V", 0.70, 0.75, fails ? Verdict.Fail : Verdict.Pass),

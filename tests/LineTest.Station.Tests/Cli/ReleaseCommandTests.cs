@@ -89,7 +89,7 @@ public sealed class ReleaseCommandTests
         var (exit, output, error) = await CliRunner.RunAsync("release", sequence, "--by", "engineer two", "--results", results);
 
         Assert.True(exit == 0, error);
-        Assert.Contains($"revision 2 of ctp40a-dac ({Sha256Of(sequence)}) is already released, by engineer one", output, StringComparison.Ordinal);
+        Assert.Contains($"revision 3 of ctp40a-dac ({Sha256Of(sequence)}) is already released, by engineer one", output, StringComparison.Ordinal);
         Assert.Contains("nothing changed", output, StringComparison.Ordinal);
         Assert.Equal(1L, Scalar(results, "SELECT count(*) FROM releases"));
     }
@@ -106,7 +106,7 @@ public sealed class ReleaseCommandTests
         var (exit, _, error) = await CliRunner.RunAsync("release", changed, "--by", "engineer", "--results", results);
 
         Assert.Equal(1, exit);
-        Assert.Contains($"revision 2 of ctp40a-dac is already released as {Sha256Of(released)}", error, StringComparison.Ordinal);
+        Assert.Contains($"revision 3 of ctp40a-dac is already released as {Sha256Of(released)}", error, StringComparison.Ordinal);
         Assert.Contains("raise the revision", error, StringComparison.Ordinal);
         Assert.Equal(1L, Scalar(results, "SELECT count(*) FROM releases"));
     }

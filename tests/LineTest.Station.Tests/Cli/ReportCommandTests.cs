@@ -16,11 +16,16 @@ public sealed class ReportCommandTests
         "A3,offset,6,V,0,10,1\n" +
         "A4,offset,4.5,V,0,10,2\n";
 
-    private static async Task<(int ExitCode, string Stdout, string Stderr)> RunAsync(params string[] args)
+    private static Task<(int ExitCode, string Stdout, string Stderr)> RunAsync(params string[] args) => RunWithSettingsAsync([], args);
+
+    private static async Task<(int ExitCode, string Stdout, string Stderr)> RunWithSettingsAsync(Dictionary<string, string?> settings, params string[] args)
     {
         var stdout = new StringWriter();
         var stderr = new StringWriter();
-        var context = new CliContext(Some.TempDirectory(), new ConfigurationBuilder().Build(), new StationOptions(), stdout, stderr, NullLoggerFactory.Instance);
+        var configuration = new ConfigurationBuilder().AddInMemoryCollection(settings).Build();
+        var options = new StationOptions();
+        configuration.GetSection("Station").Bind(options);
+        var context = new CliContext(Some.TempDirectory(), configuration, options, stdout, stderr, NullLoggerFactory.Instance);
         var code = await StationCommandLine.InvokeAsync(context, args, CancellationToken.None);
         return (code, stdout.ToString(), stderr.ToString());
     }
@@ -102,5 +107,64 @@ public sealed class ReportCommandTests
     {
         Assert.True(ReportFilterOptions.TryInstant(text, endOfDay, out var instant, out _));
         Assert.Equal(DateTimeOffset.Parse(expected, System.Globalization.CultureInfo.InvariantCulture), instant);
+    }
+
+    /// <summary>Three runs at 07:00, 13:00 and 19:00 UTC of one day.</summary>
+    private static async Task<string> ThreeRunsOfADayAsync()
+    {
+        var folder = Some.TempDirectory();
+        await using var store = LineTest.Storage.Sqlite.SqliteResultStore.Open(folder);
+        foreach (var hour in new[] { 7, 13, 19 })
+        {
+            await store.AppendAsync(
+                new LineTest.TestSupport.Builders.RunRecordBuilder().WithSerial($"CTP40A-2612-0000{hour:D2}")
+                    .StartedAt(new DateTimeOffset(2026, 12, 1, hour, 0, 0, TimeSpan.Zero).AddMinutes(-10), TimeSpan.FromMinutes(10)).Build(),
+                CancellationToken.None);
+        }
+
+        return folder;
+    }
+
+    private static List<string> GroupKeys(string json)
+    {
+        using var document = JsonDocument.Parse(json);
+        return [.. document.RootElement.GetProperty("groups").GetProperty("items").EnumerateArray().Select(g => g.GetProperty("key").GetString()!)];
+    }
+
+    // Regression: report --by shift read Station:Shifts while the live page read Station:Web:ShiftStartsUtc; both read
+    // Station:Shifts now (the page's side is tested in LineTest.Web.Tests, ShiftSettingsTests).
+    [Fact]
+    public async Task Report_ByShift_ShiftsFromStationShifts()
+    {
+        var folder = await ThreeRunsOfADayAsync();
+
+        var (code, stdout, stderr) = await RunWithSettingsAsync(
+            new() { ["Station:Shifts:day"] = "06:00", ["Station:Shifts:swing"] = "18:00" }, "report", "--results", folder, "--by", "shift", "--json");
+
+        Assert.True(code == 0, stderr);
+        Assert.Equal(["day", "swing"], GroupKeys(stdout).Order(StringComparer.Ordinal));
+    }
+
+    [Fact]
+    public async Task Report_ByShift_OldPageSettingAloneStillNamesTheShifts()
+    {
+        var folder = await ThreeRunsOfADayAsync();
+
+        var (code, stdout, stderr) = await RunWithSettingsAsync(
+            new() { ["Station:Web:ShiftStartsUtc:0"] = "12:00", ["Station:Web:ShiftStartsUtc:1"] = "00:00" }, "report", "--results", folder, "--by", "shift", "--json");
+
+        Assert.True(code == 0, stderr);
+        Assert.Equal(["00:00", "12:00"], GroupKeys(stdout).Order(StringComparer.Ordinal));
+    }
+
+    [Fact]
+    public async Task Report_ByShift_BadShiftSetting_Exit2NamingIt()
+    {
+        var folder = await ThreeRunsOfADayAsync();
+
+        var (code, _, stderr) = await RunWithSettingsAsync(new() { ["Station:Shifts:day"] = "6am" }, "report", "--results", folder, "--by", "shift");
+
+        Assert.Equal(2, code);
+        Assert.Contains("Station:Shifts: shift 'day=6am' is not name=HH:mm", stderr, StringComparison.Ordinal);
     }
 }

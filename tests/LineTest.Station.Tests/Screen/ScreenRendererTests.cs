@@ -1,5 +1,6 @@
 using LineTest.Core.Results;
 using LineTest.Core.Units;
+using LineTest.Factory.Forwarding;
 using LineTest.Station.Screen;
 using Spectre.Console;
 
@@ -86,6 +87,83 @@ public sealed class ScreenRendererTests
 
         Assert.Contains("slot 2 FAIL → red reject bin", text, StringComparison.Ordinal);
         Assert.Contains("slot 4 ERROR → yellow retest rack", text, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Build_FullEndScreenWithFactoryBacklog_BacklogGivesWaySoCautionAndReasonsStillFit()
+    {
+        // The tallest end screen of the test above (24 lines), with a backlog to show.
+        var reasons = new[]
+        {
+            "verify.error: -5.58 degC is below the acceptance limit -0.478 degC (guarded by the expanded uncertainty 0.022 degC)",
+            "iv-high.tempco: -2.61 mV/degC is below the limit -2.4 mV/degC",
+            "cancelled by the operator",
+            "the unit does not answer on its link (slot 4): no reply within 500 ms after 3 tries",
+        };
+        var slots = Enumerable.Range(1, 4).Select(i => new SlotView(i)
+        {
+            Serial = $"CTP40A-2612-00000{i}",
+            State = i == 2 ? UnitState.Failed : UnitState.Errored,
+            Verdict = i == 2 ? Verdict.Fail : Verdict.Error,
+            Progress = i == 3 ? 0.4 : 1,
+            Reason = reasons[i - 1],
+            Cancelled = i == 3,
+            Disposition = i == 2 ? "red reject bin" : "yellow retest rack",
+            IsRetest = true,
+        }).ToList();
+        var backlog = new FactoryBacklogStatus(
+            12, new DateTimeOffset(2026, 12, 2, 6, 41, 0, TimeSpan.Zero), null, "Failed to connect to 10.0.0.5:5432", 4);
+        var snapshot = new ScreenSnapshot(
+            new ScreenHeader("ST-01", "Simulated four-well dry block", "ctp40a-dac", 1, "L-2612-07", "badge-0412", "production"),
+            slots, 5, 5.01, "stable", "Batch done: 0 pass, 1 fail, 3 error. Put each unit where its slot line says (inserts may be hot or cold), then scan the next.",
+            null, null, "Refused: CTP40A-2612-000009 was scanned while a batch runs; scan it again when the batch is done.", Factory: backlog);
+
+        var lines = Render(snapshot, "CTP40A-26");
+
+        Assert.True(lines.Count <= 24, $"{lines.Count} lines do not fit an 80×24 terminal:\n{string.Join("\n", lines)}");
+        Assert.All(lines, l => Assert.True(l.Length <= 80, $"too wide: '{l}'"));
+        Assert.Contains(lines, l => l.StartsWith("CAUTION", StringComparison.Ordinal));
+        var text = string.Join(" ", lines.Select(l => l.Trim()));
+        foreach (var reason in reasons)
+        {
+            Assert.Contains(reason, text, StringComparison.Ordinal);
+        }
+
+        Assert.DoesNotContain("factory:", text, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Build_BatchRunningWithFactoryBacklog_OneLineBelowTheCautionWithCountAndOldest()
+    {
+        var slots = Enumerable.Range(1, 4).Select(i => new SlotView(i)
+        {
+            Serial = $"CTP40A-2612-00000{i}",
+            State = UnitState.Soaking,
+            Step = "settle",
+            Progress = 0.4,
+            TimeLeft = TimeSpan.FromMinutes(17),
+        }).ToList();
+        var backlog = new FactoryBacklogStatus(
+            12, new DateTimeOffset(2026, 12, 2, 6, 41, 0, TimeSpan.Zero), null, "Failed to connect to 10.0.0.5:5432: connection refused", 4);
+        var snapshot = new ScreenSnapshot(
+            new ScreenHeader("ST-01", "Simulated four-well dry block", "ctp40a-dac", 1, "L-2612-07", "badge-0412", "production"),
+            slots, 5, 5.01, "stable", "Batch running.", null, null, Factory: backlog);
+
+        var lines = Render(snapshot, string.Empty);
+
+        Assert.True(lines.Count <= 24, $"{lines.Count} lines do not fit an 80×24 terminal");
+        var caution = lines.FindIndex(l => l.StartsWith("CAUTION", StringComparison.Ordinal));
+        Assert.StartsWith("factory: 12 run(s) waiting since 2026-12-02 06:41 UTC (Failed to connect", lines[caution + 1], StringComparison.Ordinal);
+        Assert.True(lines[caution + 1].Length <= 80);
+        Assert.StartsWith("╭", lines[caution + 2], StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Build_NoFactory_NoFactoryLine()
+    {
+        var lines = Render(Snapshot([new SlotView(1)]), string.Empty);
+
+        Assert.DoesNotContain(lines, l => l.Contains("factory", StringComparison.Ordinal));
     }
 
     [Fact]

@@ -1,5 +1,6 @@
 using LineTest.Core.Results;
 using LineTest.Core.Units;
+using LineTest.Factory.Forwarding;
 using LineTest.Station.Screen;
 using Microsoft.Extensions.Time.Testing;
 
@@ -162,4 +163,37 @@ public sealed class StationScreenModelTests
         Verdict = verdict,
         Reason = reason,
     };
+
+    [Fact]
+    public void Snapshot_FactoryBacklog_ShowsTheForwardersLatestCountAndOldest()
+    {
+        var backlog = new SettableBacklog();
+        var model = new StationScreenModel(new ScreenHeader("ST-01", "DB4", "ctp40a-dac", 1, null, null, "engineering"), [1, 2], [10.0], _time)
+        {
+            Factory = backlog,
+        };
+
+        Assert.Equal("factory: up to date", ScreenRenderer.PlainLines(model.Snapshot())[1]);
+
+        backlog.Current = new FactoryBacklogStatus(3, new DateTimeOffset(2026, 12, 2, 7, 12, 0, TimeSpan.Zero), null, "connection refused", 2);
+
+        Assert.Equal(3, model.Snapshot().Factory!.Count);
+        Assert.Equal(
+            "factory: 3 run(s) waiting since 2026-12-02 07:12 UTC (connection refused; attempt 2)",
+            ScreenRenderer.PlainLines(model.Snapshot())[1]);
+    }
+
+    [Fact]
+    public void Snapshot_NoFactory_NoBacklog()
+    {
+        var model = new StationScreenModel(new ScreenHeader("ST-01", "DB4", "ctp40a-dac", 1, null, null, "engineering"), [1], [10.0], _time);
+
+        Assert.Null(model.Snapshot().Factory);
+    }
+
+    /// <summary>A backlog whose state the test sets, as the forwarding loop replaces it.</summary>
+    private sealed class SettableBacklog : IFactoryBacklog
+    {
+        public FactoryBacklogStatus Current { get; set; } = FactoryBacklogStatus.Unknown;
+    }
 }

@@ -2,6 +2,7 @@ using System.Globalization;
 using LineTest.Station.Composition;
 using LineTest.Station.Demo;
 using LineTest.TestSupport;
+using LineTest.Reports.Loading;
 using LineTest.Web.Access;
 using LineTest.Web.Data;
 using LineTest.Web.Hosting;
@@ -36,11 +37,12 @@ public sealed class LinePageBrowserTests(ITestOutputHelper output)
         var wallNow = TimeProvider.System.GetUtcNow();
         var demoStart = new DateTimeOffset((wallNow - TimeSpan.FromDays(7)).UtcDateTime.Date.AddHours(6), TimeSpan.Zero);
         var pageClock = new ShiftedClock(demoStart + TimeSpan.FromHours(10) - wallNow);
-        var options = new WebPageOptions { ShiftStartsUtc = ["06:00"], RefreshSeconds = 0.25 };
+        var options = new WebPageOptions { RefreshSeconds = 0.25 };
         var setup = new WebPageSetup(ListenAddress.Parse("127.0.0.1:0", out _)!, options, new SqliteFolderSource([results]))
         {
             Loggers = NullLoggerFactory.Instance,
             Time = pageClock,
+            Shifts = new NamedShifts([("day", new TimeOnly(6, 0))]),
         };
         await using var app = WebPageApp.Create(setup);
         await app.StartAsync();

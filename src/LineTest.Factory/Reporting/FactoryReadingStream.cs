@@ -1,0 +1,131 @@
+using LineTest.Reports.Loading;
+using Npgsql;
+using NpgsqlTypes;
+
+namespace LineTest.Factory.Reporting;
+
+/// <summary>
+/// Streams the readings of the loaded runs into their series. The readings are read unordered (a plain scan, month
+/// partitions on several connections at once), which costs the server a fraction of a scan in run order; each reading
+/// finds its run in the <see cref="RunIndex"/>, and the client puts each series into run and reading order with one
+/// sort. The series are then filled reading by reading in that order, exactly as a stream in run order would fill
+/// them, so unit and limit changes, missing values and the series' order of first appearance are the same.
+/// </summary>
+internal static class FactoryReadingStream
+{
+    /// <summary>Readings per run are numbered below this (the sort key keeps the run above it).</summary>
+    private const int OrdinalBits = 24;
+
+    /// <summary>
+    /// Adds every reading of the runs in <paramref name="runs"/> to <paramref name="data"/>'s series, reading the
+    /// months on the given connections (each in a transaction on the same snapshot) at once.
+    /// </summary>
+    public static async Task ReadAsync(
+        IReadOnlyList<(NpgsqlConnection Connection, NpgsqlTransaction Transaction)> connections,
+        ReportQuery query,
+        RunIndex runs,
+        ReportData data,
+        CancellationToken ct)
+    {
+        var months = Months(runs.FirstTicks, runs.LastTicks);
+        var parts = await Task.WhenAll(connections.Select((c, k) => Task.Run(
+            async () =>
+            {
+                var part = new ReadingPart();
+                for (var m = k; m < months.Count; m += connections.Count)
+                {
+                    await ReadMonthAsync(c.Connection, c.Transaction, query, months[m], runs, part, ct).ConfigureAwait(false);
+                }
+
+                return part;
+            },
+            ct))).ConfigureAwait(false);
+        Fill(parts, data);
+    }
+
+    /// <summary>UTC month starts covering [first, last] ticks: each month is one partition of <c>readings</c>.</summary>
+    public static List<(DateTime From, DateTime To)> Months(long firstTicks, long lastTicks)
+    {
+        var months = new List<(DateTime, DateTime)>();
+        var last = new DateTime(lastTicks, DateTimeKind.Utc);
+        for (var from = new DateTime(new DateTime(firstTicks, DateTimeKind.Utc).Year, new DateTime(firstTicks, DateTimeKind.Utc).Month, 1, 0, 0, 0, DateTimeKind.Utc);
+             from <= last;
+             from = from.AddMonths(1))
+        {
+            months.Add((from, from.AddMonths(1)));
+        }
+
+        return months;
+    }
+
+    private static async Task ReadMonthAsync(
+        NpgsqlConnection connection, NpgsqlTransaction transaction, ReportQuery query, (DateTime From, DateTime To) month, RunIndex runs, ReadingPart part, CancellationToken ct)
+    {
+        await using var command = new NpgsqlCommand(string.Empty, connection, transaction) { CommandTimeout = 0 };
+        var where = FactoryFilterSql.Where(query, "g", command, runConditions: false);
+        command.Parameters.Add(new NpgsqlParameter("month_from", NpgsqlDbType.TimestampTz) { Value = month.From });
+        command.Parameters.Add(new NpgsqlParameter("month_to", NpgsqlDbType.TimestampTz) { Value = month.To });
+        var monthCondition = "g.ended_utc >= @month_from AND g.ended_utc < @month_to";
+        command.CommandText = $"""
+            SELECT g.chain_id, g.station_seq, g.ordinal, g.name, g.value, g.unit, g.low, g.high
+              FROM readings g{(where.Length == 0 ? " WHERE " + monthCondition : where + " AND " + monthCondition)};
+            """;
+        await using var reader = await command.ExecuteReaderAsync(System.Data.CommandBehavior.SequentialAccess, ct).ConfigureAwait(false);
+        while (await reader.ReadAsync(ct).ConfigureAwait(false))
+        {
+            var run = runs.Find(reader.GetGuid(0), reader.GetInt64(1));
+            if (run < 0)
+            {
+                // A reading of a run the run conditions (slot, lot, sequence) left out.
+                continue;
+            }
+
+            var ordinal = reader.GetInt32(2);
+            if (ordinal < 0 || ordinal >= 1 << OrdinalBits)
+            {
+                throw new InvalidDataException($"Reading ordinal {ordinal} of run {run} is outside 0…2^{OrdinalBits}.");
+            }
+
+            var name = reader.GetString(3);
+            var value = reader.IsDBNull(4) ? double.NaN : reader.GetDouble(4);
+            var unit = reader.GetString(5);
+            double? low = reader.IsDBNull(6) ? null : reader.GetDouble(6);
+            double? high = reader.IsDBNull(7) ? null : reader.GetDouble(7);
+            part.Add(((long)run << OrdinalBits) | (uint)ordinal, value, new ReadingShape(name, unit, low, high));
+        }
+    }
+
+    /// <summary>Sorts the parts' readings per (sequence, name) into run and reading order and fills the series.</summary>
+    private static void Fill(ReadingPart[] parts, ReportData data)
+    {
+        // Readings are analysed per (sequence, name), never pooled across products, as for station folders.
+        var buckets = new Dictionary<(string Sequence, string Name), SeriesBucket>();
+        foreach (var part in parts)
+        {
+            for (var i = 0; i < part.Count; i++)
+            {
+                var key = part.Keys[i];
+                var shape = part.Shapes[part.ShapeOf[i]];
+                var sequence = data.Runs.SequenceId((int)(key >> OrdinalBits))!;
+                if (!buckets.TryGetValue((sequence, shape.Name), out var bucket))
+                {
+                    bucket = new SeriesBucket(sequence);
+                    buckets.Add((sequence, shape.Name), bucket);
+                }
+
+                bucket.Add(key, part.Values[i], shape);
+            }
+
+            part.Clear();
+        }
+
+        // Series in order of their first reading, as a stream in run order creates them.
+        var sorted = buckets.Values.ToArray();
+        Parallel.ForEach(sorted, bucket => bucket.Sorted());
+        foreach (var bucket in sorted.OrderBy(b => b.FirstKey))
+        {
+            var series = data.Series(bucket.Sequence, bucket.FirstShape.Name, bucket.FirstShape.Unit);
+            bucket.FillInto(series, OrdinalBits);
+        }
+    }
+}
