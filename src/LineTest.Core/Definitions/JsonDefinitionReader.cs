@@ -6,7 +6,9 @@ namespace LineTest.Core.Definitions;
 /// <summary>
 /// Reads a definition file's bytes (sequence or fixture) into typed records. The caller reads the file (Core does no
 /// I/O); the text is scanned once (<see cref="JsonScan"/>: document, line map, strict JSON), the document is checked
-/// against the model's shape (<see cref="ShapeCheck"/>), and only a document with no problem is turned into records.
+/// against the model's shape (<see cref="ShapeCheck"/>), and a document with no problem is turned into records; one with
+/// problems is repaired where it broke and read as <see cref="ParsedDefinition{T}.Salvaged"/>, so the parts that parsed
+/// can still be checked for sense.
 /// Every problem has the file, a line and a JSON path from the reader's own positions, and a plain reason.
 /// </summary>
 public static class JsonDefinitionReader
@@ -41,26 +43,46 @@ public static class JsonDefinitionReader
         }
 
         var shape = new ProblemList();
-        ShapeCheck.Check(scan.Root, typeof(T), LineTestJson.Definitions, shape);
+        var repair = new ShapeRepair();
+        ShapeCheck.Check(scan.Root, typeof(T), LineTestJson.Definitions, shape, repair);
         if (scan.Problems.Count > 0 || shape.Items.Count > 0)
         {
+            // The document is now repaired (placeholders and defaults where it was broken): read it for the semantic
+            // checks of the parts that parsed; a document that still cannot be read gives its own problems only.
             var located = scan.Problems.Select(p => new DefinitionProblem(file, p.Line, p.Path, p.Reason)).Concat(shape.Locate(file, scan.Locator));
-            return new ParsedDefinition<T>(null, [.. located.OrderBy(p => p.Line ?? 0)], sha, scan.Locator);
+            return new ParsedDefinition<T>(null, [.. located.OrderBy(p => p.Line ?? 0)], sha, scan.Locator)
+            {
+                Salvaged = repair.BrokenPaths.Contains("$") ? null : TryRead<T>(scan.Root, out _),
+                BrokenPaths = repair.BrokenPaths,
+            };
         }
 
-        try
-        {
-            var value = scan.Root.Deserialize<T>(LineTestJson.Definitions);
-            return value is null
-                ? Failed<T>(file, sha, scan.Locator, [("$", 1, "the file holds null instead of an object")])
-                : new ParsedDefinition<T>(value, [], sha, scan.Locator);
-        }
-        catch (Exception ex) when (ex is JsonException or NotSupportedException or InvalidOperationException or FormatException)
+        var value = TryRead<T>(scan.Root, out var failure);
+        if (failure is { } ex)
         {
             // The shape check mirrors the model, so this is a gap in it: still a located problem, never a crash. The
             // serialiser's message is for developers and is not shown.
             var path = ex is JsonException { Path: { Length: > 0 } p } ? p : "$";
             return Failed<T>(file, sha, scan.Locator, [(path, scan.Locator.LineOf(path) ?? 1, "this value cannot be read here (check its type against the schema)")]);
+        }
+
+        return value is null
+            ? Failed<T>(file, sha, scan.Locator, [("$", 1, "the file holds null instead of an object")])
+            : new ParsedDefinition<T>(value, [], sha, scan.Locator);
+    }
+
+    private static T? TryRead<T>(System.Text.Json.Nodes.JsonNode root, out Exception? failure)
+        where T : class
+    {
+        failure = null;
+        try
+        {
+            return root.Deserialize<T>(LineTestJson.Definitions);
+        }
+        catch (Exception ex) when (ex is JsonException or NotSupportedException or InvalidOperationException or FormatException)
+        {
+            failure = ex;
+            return null;
         }
     }
 

@@ -10,18 +10,28 @@ namespace LineTest.Core.Definitions;
 /// Checks a scanned document against the model's own serialisation metadata (<see cref="JsonTypeInfo"/>) before it is
 /// deserialised: every unknown key, missing required key, value of the wrong type, null where none is allowed, and
 /// step without a known <c>kind</c>, across the whole file — a bad step does not hide the steps after it. Each
-/// problem is a JSON path and a reason; nothing is read back from the serialiser's messages.
+/// problem is a JSON path and a reason; nothing is read back from the serialiser's messages. While it checks, it
+/// repairs the document in place (<see cref="ShapeRepair"/>): an unknown key is removed, a bad optional value is
+/// removed (its default applies), a bad required value or list entry is replaced by a placeholder, so the parts that
+/// parsed can still be checked for sense; the repair records what it touched.
 /// </summary>
 internal static class ShapeCheck
 {
     /// <summary>Adds every shape problem of <paramref name="node"/> read as <paramref name="type"/>.</summary>
-    public static void Check(JsonNode node, Type type, JsonSerializerOptions options, ProblemList problems) =>
-        Visit(node, type, "$", options, problems);
+    public static void Check(JsonNode node, Type type, JsonSerializerOptions options, ProblemList problems, ShapeRepair repair)
+    {
+        if (!Visit(node, type, "$", options, problems, repair))
+        {
+            repair.Broken("$");
+        }
+    }
 
-    private static void Visit(JsonNode node, Type type, string path, JsonSerializerOptions options, ProblemList problems)
+    /// <summary>Checks one value; false when it has a problem of its own and must be replaced by its parent.</summary>
+    private static bool Visit(JsonNode node, Type type, string path, JsonSerializerOptions options, ProblemList problems, ShapeRepair repair)
     {
         var underlying = Nullable.GetUnderlyingType(type) ?? type;
         var kind = node.GetValueKind();
+        var before = problems.Items.Count;
         if (underlying == typeof(string))
         {
             problems.AddIf(kind != JsonValueKind.String, path, $"expected a string, not {Describe(kind)}");
@@ -51,11 +61,13 @@ internal static class ShapeCheck
         }
         else
         {
-            Structured(node, kind, options.GetTypeInfo(underlying), path, options, problems);
+            return Structured(node, kind, options.GetTypeInfo(underlying), path, options, problems, repair);
         }
+
+        return problems.Items.Count == before;
     }
 
-    private static void Structured(JsonNode node, JsonValueKind kind, JsonTypeInfo info, string path, JsonSerializerOptions options, ProblemList problems)
+    private static bool Structured(JsonNode node, JsonValueKind kind, JsonTypeInfo info, string path, JsonSerializerOptions options, ProblemList problems, ShapeRepair repair)
     {
         switch (info.Kind)
         {
@@ -63,36 +75,42 @@ internal static class ShapeCheck
                 if (node is not JsonArray array)
                 {
                     problems.Add(path, $"expected an array, not {Describe(kind)}");
-                    return;
+                    return false;
                 }
 
                 var elementType = info.ElementType ?? typeof(object);
                 for (var i = 0; i < array.Count; i++)
                 {
+                    var itemPath = $"{path}[{i}]";
                     if (array[i] is { } item)
                     {
-                        Visit(item, elementType, $"{path}[{i}]", options, problems);
+                        if (!Visit(item, elementType, itemPath, options, problems, repair))
+                        {
+                            array[i] = repair.Replace(itemPath, elementType, options);
+                        }
                     }
                     else
                     {
-                        problems.Add($"{path}[{i}]", "the list entry is null; give a value");
+                        problems.Add(itemPath, "the list entry is null; give a value");
+                        array[i] = repair.Replace(itemPath, elementType, options);
                     }
                 }
 
-                break;
+                return true;
             case JsonTypeInfoKind.Object:
                 if (node is not JsonObject obj)
                 {
                     problems.Add(path, $"expected an object, not {Describe(kind)}");
-                    return;
+                    return false;
                 }
 
-                Properties(obj, info, path, options, problems);
-                break;
+                return Properties(obj, info, path, options, problems, repair);
+            default:
+                return true;
         }
     }
 
-    private static void Properties(JsonObject obj, JsonTypeInfo info, string path, JsonSerializerOptions options, ProblemList problems)
+    private static bool Properties(JsonObject obj, JsonTypeInfo info, string path, JsonSerializerOptions options, ProblemList problems, ShapeRepair repair)
     {
         string? discriminator = null;
         if (info.PolymorphismOptions is { } polymorphism)
@@ -103,7 +121,7 @@ internal static class ShapeCheck
             if (!obj.TryGetPropertyValue(discriminator, out var kindNode))
             {
                 problems.Add(path, $"the object needs a '{discriminator}' key naming its kind {known}");
-                return;
+                return false;
             }
 
             var word = kindNode?.GetValueKind() == JsonValueKind.String ? kindNode.GetValue<string>() : null;
@@ -111,7 +129,7 @@ internal static class ShapeCheck
             if (derived.DerivedType is null)
             {
                 problems.Add(path, word is null ? $"'{discriminator}' must be a string naming the kind {known}" : $"unknown kind '{word}' {known}");
-                return;
+                return false;
             }
 
             info = options.GetTypeInfo(derived.DerivedType);
@@ -119,6 +137,9 @@ internal static class ShapeCheck
 
         var byName = info.Properties.Where(p => p.Set is not null || p.IsRequired || p.AssociatedParameter is not null)
             .ToDictionary(p => p.Name, StringComparer.Ordinal);
+        // Repairs wait until the walk over the object's keys is over (an object cannot change while it is enumerated).
+        var unknown = new List<(string Key, string Path)>();
+        var bad = new List<(string Key, string Path, JsonPropertyInfo Property)>();
         foreach (var (key, value) in obj)
         {
             if (key == discriminator)
@@ -130,22 +151,53 @@ internal static class ShapeCheck
             if (!byName.TryGetValue(key, out var property))
             {
                 problems.Add(childPath, $"unknown property '{key}' (check the spelling; keys are camelCase)");
+                unknown.Add((key, childPath));
             }
             else if (value is null)
             {
-                problems.AddIf(!property.IsSetNullable, childPath, "a value is required here, not null");
+                if (!property.IsSetNullable)
+                {
+                    problems.Add(childPath, "a value is required here, not null");
+                    bad.Add((key, childPath, property));
+                }
             }
-            else
+            else if (!Visit(value, property.PropertyType, childPath, options, problems, repair))
             {
-                Visit(value, property.PropertyType, childPath, options, problems);
+                bad.Add((key, childPath, property));
             }
         }
 
-        var missing = byName.Values.Where(p => p.IsRequired && !obj.ContainsKey(p.Name)).Select(p => $"'{p.Name}'").ToList();
+        foreach (var (key, childPath) in unknown)
+        {
+            obj.Remove(key);
+            repair.Broken(childPath);
+        }
+
+        foreach (var (key, childPath, property) in bad)
+        {
+            if (property.IsRequired)
+            {
+                obj[key] = repair.Replace(childPath, property.PropertyType, options);
+            }
+            else
+            {
+                obj.Remove(key);
+                repair.Broken(childPath);
+            }
+        }
+
+        var missing = byName.Values.Where(p => p.IsRequired && !obj.ContainsKey(p.Name)).ToList();
         if (missing.Count > 0)
         {
-            problems.Add(path, missing.Count == 1 ? $"missing required property {missing[0]}" : $"missing required properties {string.Join(", ", missing)}");
+            var names = missing.Select(p => $"'{p.Name}'").ToList();
+            problems.Add(path, names.Count == 1 ? $"missing required property {names[0]}" : $"missing required properties {string.Join(", ", names)}");
+            foreach (var property in missing)
+            {
+                obj[property.Name] = repair.Replace(JsonLocator.Combine(path, property.Name), property.PropertyType, options);
+            }
         }
+
+        return true;
     }
 
     private static void WholeNumber(JsonNode node, JsonValueKind kind, bool int32, string path, ProblemList problems)

@@ -12,18 +12,34 @@ public static class FixtureLoader
     public static LoadResult<FixtureDefinition> Load(string file, byte[] utf8, ExtraCheck? extra = null) =>
         Finish(JsonDefinitionReader.Parse<FixtureDefinition>(file, utf8), file, extra);
 
-    private static LoadResult<FixtureDefinition> Finish(ParsedDefinition<FixtureDefinition> parsed, string file, ExtraCheck? extra)
+    /// <summary>
+    /// Which top-level keys the checks that report under each key read (<see cref="DependentProblems"/>), from
+    /// <see cref="FixtureChecker"/>: the rig decides which ports are needed, slots and the source-measure unit are checked
+    /// against each other, the simulation's offsets against the slots.
+    /// </summary>
+    internal static readonly IReadOnlyDictionary<string, string[]> Reads = new Dictionary<string, string[]>(StringComparer.Ordinal)
     {
-        if (parsed.Value is null || parsed.Problems.Count > 0)
-        {
-            return LoadResult<FixtureDefinition>.Failure(parsed.Problems, parsed.Sha256);
-        }
+        ["$schema"] = [],
+        ["id"] = [],
+        ["name"] = [],
+        ["rig"] = [],
+        ["source"] = ["rig"],
+        ["reference"] = ["rig"],
+        ["meter"] = ["rig"],
+        ["slots"] = ["rig", "sourceMeter"],
+        ["sourceMeter"] = ["rig", "slots"],
+        ["scanner"] = [],
+        ["simulation"] = ["slots"],
+    };
 
-        var problems = FixtureChecker.Check(parsed.Value);
-        extra?.Invoke(parsed.Value, problems);
-        var located = problems.Locate(file, parsed.Locator);
-        return located.Count == 0
-            ? LoadResult<FixtureDefinition>.Success(parsed.Value, parsed.Sha256!)
-            : LoadResult<FixtureDefinition>.Failure(located, parsed.Sha256);
-    }
+    private static LoadResult<FixtureDefinition> Finish(ParsedDefinition<FixtureDefinition> parsed, string file, ExtraCheck? extra) =>
+        parsed.Finish(
+            file,
+            fixture =>
+            {
+                var problems = FixtureChecker.Check(fixture);
+                extra?.Invoke(fixture, problems);
+                return problems;
+            },
+            Reads);
 }

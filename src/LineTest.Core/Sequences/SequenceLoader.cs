@@ -10,16 +10,34 @@ public static class SequenceLoader
     public static LoadResult<SequenceDefinition> Load(string file, byte[] utf8, FixtureDefinition? fixture = null) =>
         Finish(JsonDefinitionReader.Parse<SequenceDefinition>(file, utf8), file, fixture);
 
-    private static LoadResult<SequenceDefinition> Finish(ParsedDefinition<SequenceDefinition> parsed, string file, FixtureDefinition? fixture)
+    /// <summary>
+    /// Which top-level keys the checks that report under each key read (<see cref="DependentProblems"/>), from
+    /// <see cref="SequenceChecker"/> and the rules it calls: a file with a broken part still gets every problem that
+    /// does not depend on it. The steps read the setpoints, the trim, the sweep bias and (kept on the safe side) every
+    /// setting of the process, and the steps before them; not the header (id, revision, product, serials, dispositions).
+    /// </summary>
+    internal static readonly IReadOnlyDictionary<string, string[]> Reads = new Dictionary<string, string[]>(StringComparer.Ordinal)
     {
-        if (parsed.Value is null || parsed.Problems.Count > 0)
-        {
-            return LoadResult<SequenceDefinition>.Failure(parsed.Problems, parsed.Sha256);
-        }
+        ["$schema"] = [],
+        ["id"] = [],
+        ["revision"] = [],
+        ["product"] = [],
+        ["description"] = [],
+        ["serialPattern"] = [],
+        ["serialExample"] = ["serialPattern"],
+        ["dispositions"] = [],
+        ["stability"] = [],
+        ["soak"] = ["trim"],
+        ["settle"] = ["stability"],
+        ["setpoints"] = ["stability"],
+        ["trim"] = ["ratedRange"],
+        ["ratedRange"] = [],
+        ["nominalBiasAmps"] = [],
+        ["stopOnFail"] = [],
+        ["setpointOrder"] = [],
+        ["steps"] = ["setpoints", "trim", "nominalBiasAmps", "ratedRange", "stability", "soak", "settle", "setpointOrder", "stopOnFail"],
+    };
 
-        var problems = SequenceChecker.Check(parsed.Value, fixture).Locate(file, parsed.Locator);
-        return problems.Count == 0
-            ? LoadResult<SequenceDefinition>.Success(parsed.Value, parsed.Sha256!)
-            : LoadResult<SequenceDefinition>.Failure(problems, parsed.Sha256);
-    }
+    private static LoadResult<SequenceDefinition> Finish(ParsedDefinition<SequenceDefinition> parsed, string file, FixtureDefinition? fixture) =>
+        parsed.Finish(file, sequence => SequenceChecker.Check(sequence, fixture), Reads);
 }

@@ -95,6 +95,11 @@ public static class HistogramChart
         // The axis spans the bins and the limits, so a capable process shows its distance to the limits.
         var left = Math.Min(from, reading.Low ?? from);
         var right = Math.Max(to, reading.High ?? to);
+        if (!double.IsFinite((right - left) * 1.1) || !double.IsFinite(left * 1.1) || !double.IsFinite(right * 1.1))
+        {
+            // A limit so far out (near ±1.8e308) that the axis with its margin would overflow: the axis spans the bins.
+            (left, right) = (from, to);
+        }
         var margin = (right - left) * 0.04;
         plot.Axes.Left.Label.Text = "Count";
         plot.Axes.Bottom.Label.Text = string.IsNullOrEmpty(reading.Unit) ? reading.Name : $"{reading.Name} ({reading.Unit})";

@@ -1,6 +1,7 @@
 using System.Diagnostics;
 using System.Globalization;
 using System.Text;
+using System.Text.Json;
 using LineTest.Reports.Building;
 using LineTest.Reports.Console;
 using LineTest.Reports.Csv;
@@ -120,7 +121,9 @@ public static class ReportFuzzer
     }
 
     /// <summary>Runs one CSV text through the report path; never throws.</summary>
-    public static FuzzOutcome RunCsv(string csv, bool skipBadRows, out string? crash)
+    public static FuzzOutcome RunCsv(string csv, bool skipBadRows, out string? crash) => RunCsv(csv, skipBadRows, DefaultHtmlEvery, out crash);
+
+    private static FuzzOutcome RunCsv(string csv, bool skipBadRows, int htmlEvery, out string? crash)
     {
         crash = null;
         try
@@ -131,7 +134,7 @@ public static class ReportFuzzer
                 return FuzzOutcome.Refused;
             }
 
-            WriteEveryFormat(loaded.Data);
+            WriteEveryFormat(loaded.Data, htmlEvery);
             return FuzzOutcome.Reported;
         }
         catch (Exception ex)
@@ -141,14 +144,28 @@ public static class ReportFuzzer
         }
     }
 
-    /// <summary>Runs one results folder through the report path; never throws.</summary>
-    public static FuzzOutcome RunDatabase(string resultsDirectory, out string? crash)
+    /// <summary>
+    /// Runs one results folder through the report path; never throws. With <paramref name="skipBadRows"/> damaged runs
+    /// are left out (<c>--skip-bad-rows</c>), and each must be named in the report.
+    /// </summary>
+    public static FuzzOutcome RunDatabase(string resultsDirectory, bool skipBadRows, out string? crash) =>
+        RunDatabase(resultsDirectory, skipBadRows, DefaultHtmlEvery, out crash);
+
+    private static FuzzOutcome RunDatabase(string resultsDirectory, bool skipBadRows, int htmlEvery, out string? crash)
     {
         crash = null;
         try
         {
-            var data = ResultsLoader.LoadAsync([resultsDirectory], ReportQuery.All).GetAwaiter().GetResult();
-            WriteEveryFormat(data);
+            var data = ResultsLoader.LoadAsync([resultsDirectory], ReportQuery.All, skipBadRows).GetAwaiter().GetResult();
+            var json = WriteEveryFormat(data, htmlEvery);
+            using var document = JsonDocument.Parse(json);
+            var named = document.RootElement.GetProperty("skippedRows").EnumerateArray().Select(e => e.GetString()).ToHashSet(StringComparer.Ordinal);
+            if (data.SkippedRows.Any(row => !named.Contains(row)))
+            {
+                crash = "a skipped damaged run is not named in the JSON report";
+                return FuzzOutcome.Crashed;
+            }
+
             return FuzzOutcome.Reported;
         }
         catch (ResultStoreException)
@@ -163,60 +180,112 @@ public static class ReportFuzzer
     }
 
     /// <summary>Fuzzes <paramref name="iterations"/> mutations of a readings CSV.</summary>
-    public static FuzzSummary FuzzCsv(string csv, int iterations, int seed)
-    {
-        var random = new Random(seed);
-        return Run("csv", iterations, () =>
+    public static FuzzSummary FuzzCsv(string csv, int iterations, int seed) => FuzzCsv(csv, iterations, seed, workers: 1, DefaultHtmlEvery);
+
+    /// <summary>
+    /// As <see cref="FuzzCsv(string, int, int)"/> on <paramref name="workers"/> threads, each with its own seeded
+    /// generator (worker 0 draws what one worker draws), so the inputs depend on the seed and the worker count only.
+    /// The HTML page is made for one input in <paramref name="htmlEvery"/> (0: never).
+    /// </summary>
+    public static FuzzSummary FuzzCsv(string csv, int iterations, int seed, int workers, int htmlEvery) =>
+        Run("csv", iterations, workers, worker =>
         {
-            var skip = random.Next(2) == 0;
-            var outcome = RunCsv(MutateCsv(csv, random), skip, out var crash);
-            return (outcome, crash);
+            var random = WorkerRandom(seed, worker);
+            return () =>
+            {
+                var skip = random.Next(2) == 0;
+                var outcome = RunCsv(MutateCsv(csv, random), skip, htmlEvery, out var crash);
+                return (outcome, crash);
+            };
         });
-    }
 
     /// <summary>Fuzzes <paramref name="iterations"/> damaged copies of the results database in <paramref name="resultsDirectory"/>.</summary>
-    public static FuzzSummary FuzzDatabase(string resultsDirectory, int iterations, int seed)
+    public static FuzzSummary FuzzDatabase(string resultsDirectory, int iterations, int seed) => FuzzDatabase(resultsDirectory, iterations, seed, workers: 1, DefaultHtmlEvery);
+
+    /// <summary>
+    /// As <see cref="FuzzDatabase(string, int, int)"/> on <paramref name="workers"/> threads: the database is read once
+    /// into memory and each input is a fresh copy written to the worker's own scratch folder (under the temporary folder:
+    /// set <c>TMPDIR</c> to a memory file system such as /dev/shm to keep the disk out of it), damaged, then reported
+    /// on, half of the inputs with damaged runs skipped. The HTML page is made for one input in <paramref name="htmlEvery"/>
+    /// (0: never).
+    /// </summary>
+    public static FuzzSummary FuzzDatabase(string resultsDirectory, int iterations, int seed, int workers, int htmlEvery)
     {
-        var random = new Random(seed);
         var original = File.ReadAllBytes(ResultsDatabasePath(resultsDirectory));
-        var scratch = Directory.CreateTempSubdirectory("linetest-fuzz-db-");
+        var scratches = Enumerable.Range(0, Math.Max(1, workers)).Select(_ => Directory.CreateTempSubdirectory("linetest-fuzz-db-")).ToList();
         try
         {
-            return Run("database", iterations, () =>
+            return Run("database", iterations, workers, worker =>
             {
-                var path = ResultsDatabasePath(scratch.FullName);
-                foreach (var file in scratch.GetFiles())
+                var random = WorkerRandom(seed, worker);
+                var scratch = scratches[worker];
+                return () =>
                 {
-                    file.Delete();
-                }
+                    var path = ResultsDatabasePath(scratch.FullName);
+                    foreach (var file in scratch.GetFiles())
+                    {
+                        file.Delete();
+                    }
 
-                File.WriteAllBytes(path, original);
-                MutateDatabase(path, random);
-                SqliteConnection.ClearAllPools();
-                var outcome = RunDatabase(scratch.FullName, out var crash);
-                return (outcome, crash);
+                    File.WriteAllBytes(path, original);
+                    MutateDatabase(path, random);
+                    var skip = random.Next(2) == 0;
+                    SqliteConnection.ClearAllPools();
+                    var outcome = RunDatabase(scratch.FullName, skip, htmlEvery, out var crash);
+                    return (outcome, crash);
+                };
             });
         }
         finally
         {
             SqliteConnection.ClearAllPools();
-            scratch.Delete(recursive: true);
+            foreach (var scratch in scratches)
+            {
+                scratch.Delete(recursive: true);
+            }
         }
     }
 
+    private static Random WorkerRandom(int seed, int worker) => new(worker == 0 ? seed : HashCode.Combine(seed, worker));
+
     private static string ResultsDatabasePath(string directory) => Path.Combine(directory, "results.db");
 
-    private static FuzzSummary Run(string kind, int iterations, Func<(FuzzOutcome Outcome, string? Crash)> once)
+    private static FuzzSummary Run(string kind, int iterations, int workers, Func<int, Func<(FuzzOutcome Outcome, string? Crash)>> worker)
     {
         ArgumentOutOfRangeException.ThrowIfLessThan(iterations, 1);
+        ArgumentOutOfRangeException.ThrowIfLessThan(workers, 1);
+        var parts = new FuzzSummary[workers];
+        Parallel.For(0, workers, new ParallelOptions { MaxDegreeOfParallelism = workers }, w =>
+        {
+            // Worker w takes inputs w, w + workers, …: every worker gets its share whatever the count.
+            var once = worker(w);
+            var share = (iterations - w + workers - 1) / workers;
+            parts[w] = share == 0 ? new FuzzSummary(kind, 0, 0, 0, 0, 0, 0, null) : RunShare(kind, share, once);
+        });
+        return new FuzzSummary(
+            kind,
+            parts.Sum(p => p.Inputs),
+            parts.Sum(p => p.Reported),
+            parts.Sum(p => p.Refused),
+            parts.Sum(p => p.Crashed),
+            parts.Sum(p => p.OverTenSeconds),
+            parts.Max(p => p.SlowestSeconds),
+            parts.Select(p => p.FirstCrash).FirstOrDefault(c => c is not null),
+            parts.Max(p => p.SlowestCpuSeconds));
+    }
+
+    private static FuzzSummary RunShare(string kind, int iterations, Func<(FuzzOutcome Outcome, string? Crash)> once)
+    {
         int reported = 0, refused = 0, crashed = 0, slow = 0;
-        double slowest = 0;
+        double slowest = 0, slowestCpu = 0;
         string? first = null;
         for (var i = 0; i < iterations; i++)
         {
+            var cpu = Environment.CpuUsage.TotalTime;
             var started = Stopwatch.GetTimestamp();
             var (outcome, crash) = once();
             var seconds = Stopwatch.GetElapsedTime(started).TotalSeconds;
+            slowestCpu = Math.Max(slowestCpu, (Environment.CpuUsage.TotalTime - cpu).TotalSeconds);
             slowest = Math.Max(slowest, seconds);
             slow += seconds > Limit.TotalSeconds ? 1 : 0;
             switch (outcome)
@@ -234,27 +303,29 @@ public static class ReportFuzzer
             }
         }
 
-        return new FuzzSummary(kind, iterations, reported, refused, crashed, slow, slowest, first);
+        return new FuzzSummary(kind, iterations, reported, refused, crashed, slow, slowest, first, slowestCpu);
     }
 
-    // Charts cost most of an input's time (PNG rendering), so the HTML page is made for one input in HtmlEvery; the
+    // Charts cost most of an input's time (PNG rendering), so the HTML page is made for one input in DefaultHtmlEvery; the
     // other formats for every input.
-    private const int HtmlEvery = 25;
+    private const int DefaultHtmlEvery = 25;
 
     private static int _written;
 
-    private static void WriteEveryFormat(ReportData data)
+    /// <summary>Writes every format; returns the JSON.</summary>
+    private static string WriteEveryFormat(ReportData data, int htmlEvery)
     {
         var report = ReportBuilder.Build(data, ReportQuery.All, TimeProvider.System);
-        _ = ReportJsonWriter.ToJson(report);
+        var json = ReportJsonWriter.ToJson(report);
         ReadingStatisticsCsvWriter.Write(report, TextWriter.Null);
-        if (Interlocked.Increment(ref _written) % HtmlEvery == 1)
+        if (htmlEvery > 0 && Interlocked.Increment(ref _written) % htmlEvery == 1 % htmlEvery)
         {
             _ = HtmlReportWriter.ToHtml(report);
         }
 
         var console = AnsiConsole.Create(new AnsiConsoleSettings { Out = new AnsiConsoleOutput(new StringWriter(CultureInfo.InvariantCulture)), Ansi = AnsiSupport.No });
         ReportConsoleWriter.Write(report, console, plain: true);
+        return json;
     }
 
     private static string Pick(Random random, params string[] options) => options[random.Next(options.Length)];

@@ -14,13 +14,16 @@ internal sealed class ReadingBuffer
     private readonly List<Shape> _shapeList = [];
     private readonly Dictionary<Shape, int> _shapeIndex = [];
 
-    /// <summary>Reads the readings of the runs matching <paramref name="filter"/> (one seq range) into a buffer.</summary>
-    public static async Task<ReadingBuffer> FillAsync(SqliteResultReader reader, RunFilter filter, CancellationToken ct)
+    /// <summary>
+    /// Reads the readings of the runs matching <paramref name="filter"/> (one seq range) into a buffer; with
+    /// <paramref name="damaged"/>, damaged readings are left out and their runs recorded there.
+    /// </summary>
+    public static async Task<ReadingBuffer> FillAsync(SqliteResultReader reader, RunFilter filter, DamagedRuns? damaged, CancellationToken ct)
     {
         var buffer = new ReadingBuffer();
         var last = default(Shape);
         var lastIndex = -1;
-        await foreach (var row in reader.ReadReadingValuesAsync(filter, ct).ConfigureAwait(false))
+        await foreach (var row in reader.ReadReadingValuesAsync(filter, damaged, ct).ConfigureAwait(false))
         {
             // Names and units are shared instances within a scan, so consecutive readings of one shape compare
             // by reference first.

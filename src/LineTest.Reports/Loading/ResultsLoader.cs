@@ -19,14 +19,27 @@ public static class ResultsLoader
     /// </summary>
     /// <exception cref="ResultStoreException">A database cannot be opened or read; the message names it.</exception>
     public static Task<ReportData> LoadAsync(IReadOnlyList<string> resultsDirectories, ReportQuery query, CancellationToken ct = default) =>
-        LoadAsync(resultsDirectories, query, parts: null, ct);
+        LoadAsync(resultsDirectories, query, parts: null, skipDamagedRuns: false, ct);
+
+    /// <summary>
+    /// As <see cref="LoadAsync(IReadOnlyList{string}, ReportQuery, CancellationToken)"/>; with
+    /// <paramref name="skipDamagedRuns"/> (<c>report --skip-bad-rows</c>) a damaged run (a date, verdict or number that
+    /// does not parse, an empty reading name, limits the wrong way round, no serial) is left out with all its readings,
+    /// and named with its seq and reason in <see cref="ReportData.SkippedRows"/>, instead of stopping the load.
+    /// </summary>
+    /// <exception cref="ResultStoreException">A database cannot be opened or read, or (without skipping) holds a damaged run.</exception>
+    public static Task<ReportData> LoadAsync(IReadOnlyList<string> resultsDirectories, ReportQuery query, bool skipDamagedRuns, CancellationToken ct = default) =>
+        LoadAsync(resultsDirectories, query, parts: null, skipDamagedRuns, ct);
 
     /// <summary>
     /// As <see cref="LoadAsync(IReadOnlyList{string}, ReportQuery, CancellationToken)"/>, reading each database's
     /// readings in <paramref name="parts"/> seq ranges at once (null: one per core for a large database, else one).
     /// The result does not depend on the number of ranges.
     /// </summary>
-    public static async Task<ReportData> LoadAsync(IReadOnlyList<string> resultsDirectories, ReportQuery query, int? parts, CancellationToken ct = default)
+    public static Task<ReportData> LoadAsync(IReadOnlyList<string> resultsDirectories, ReportQuery query, int? parts, CancellationToken ct = default) =>
+        LoadAsync(resultsDirectories, query, parts, skipDamagedRuns: false, ct);
+
+    private static async Task<ReportData> LoadAsync(IReadOnlyList<string> resultsDirectories, ReportQuery query, int? parts, bool skipDamagedRuns, CancellationToken ct)
     {
         if (parts is int given)
         {
@@ -46,7 +59,12 @@ public static class ResultsLoader
         {
             var reader = SqliteResultReader.InDirectory(directory);
             data.AddSource(reader.DatabasePath);
-            await LoadOneAsync(reader, filter, data, parts, query.GroupBy == ReportGrouping.Operator, ct).ConfigureAwait(false);
+            var damaged = skipDamagedRuns ? new DamagedRuns() : null;
+            await LoadOneAsync(reader, filter, data, parts, query.GroupBy == ReportGrouping.Operator, damaged, ct).ConfigureAwait(false);
+            foreach (var (seq, reason) in damaged?.InSeqOrder() ?? [])
+            {
+                data.AddSkippedRow(resultsDirectories.Count == 1 ? $"seq {seq}: {reason}" : $"{reader.DatabasePath} seq {seq}: {reason}");
+            }
         }
 
         if (resultsDirectories.Count > 1)
@@ -57,7 +75,7 @@ public static class ResultsLoader
         return data;
     }
 
-    private static async Task LoadOneAsync(SqliteResultReader reader, RunFilter filter, ReportData data, int? parts, bool operators, CancellationToken ct)
+    private static async Task LoadOneAsync(SqliteResultReader reader, RunFilter filter, ReportData data, int? parts, bool operators, DamagedRuns? damaged, CancellationToken ct)
     {
         // The runs that match now; pinning both scans to this range keeps runs and readings describing the same runs
         // while the station goes on writing (runs are only appended).
@@ -68,13 +86,21 @@ public static class ResultsLoader
 
         // Runs on one connection and readings cut into seq ranges on others, all at once: a large database is
         // read on every core. Each range keeps its rows in a compact buffer until the runs are known.
+        // When damaged runs are skipped, a run is known to be sound only once its readings are read too: the runs are
+        // held until then, and those with a damaged reading are left out.
         var pinned = filter with { FirstSeq = range.First, LastSeq = range.Last };
-        var runsTask = Task.Run(() => ReadRunsAsync(reader, pinned, data.Runs, ct), ct);
+        var held = damaged is null ? null : new List<RunSummary>();
+        var runsTask = Task.Run(() => ReadRunsAsync(reader, pinned, held is null ? data.Runs : null, held, damaged, ct), ct);
         var rangeTasks = range.Split(parts ?? (range.Last - range.First + 1 >= MinRunsPerPart * 2 ? Environment.ProcessorCount : 1))
-            .Select(part => Task.Run(() => ReadingBuffer.FillAsync(reader, pinned with { FirstSeq = part.First, LastSeq = part.Last }, ct), ct))
+            .Select(part => Task.Run(() => ReadingBuffer.FillAsync(reader, pinned with { FirstSeq = part.First, LastSeq = part.Last }, damaged, ct), ct))
             .ToList();
         var (firstIndex, seqs, firstOfSequence) = await runsTask.ConfigureAwait(false);
         var buffers = await Task.WhenAll(rangeTasks).ConfigureAwait(false);
+        if (held is not null)
+        {
+            (firstIndex, seqs, firstOfSequence) = AddRuns(held.Where(r => !damaged!.Contains(r.Seq)), data.Runs);
+        }
+
         foreach (var (sequence, product) in await reader.ReadProductsAsync(firstOfSequence, ct).ConfigureAwait(false))
         {
             data.AddProduct(sequence, product);
@@ -103,23 +129,58 @@ public static class ResultsLoader
         }
     }
 
-    private static async Task<(int FirstIndex, List<long> Seqs, List<long> FirstOfSequence)> ReadRunsAsync(SqliteResultReader reader, RunFilter filter, RunTable runs, CancellationToken ct)
+    /// <summary>Reads the runs into <paramref name="runs"/>, or into <paramref name="held"/> when damaged runs are skipped.</summary>
+    private static async Task<(int FirstIndex, List<long> Seqs, List<long> FirstOfSequence)> ReadRunsAsync(
+        SqliteResultReader reader, RunFilter filter, RunTable? runs, List<RunSummary>? held, DamagedRuns? damaged, CancellationToken ct)
     {
-        var firstIndex = runs.Count;
-        var seqs = new List<long>();
-        var sequences = new HashSet<string>(StringComparer.Ordinal);
-        var firstOfSequence = new List<long>();
-        string? lastSequence = null;
-        await foreach (var run in reader.ReadRunsForReportAsync(filter, ct).ConfigureAwait(false))
+        var index = new RunIndex(runs);
+        await foreach (var run in reader.ReadRunsForReportAsync(filter, damaged, ct).ConfigureAwait(false))
         {
-            seqs.Add(run.Seq);
-            if (!ReferenceEquals(run.SequenceId, lastSequence) && sequences.Add(run.SequenceId))
+            if (held is not null)
             {
-                firstOfSequence.Add(run.Seq);
+                held.Add(run);
+            }
+            else
+            {
+                index.Add(run);
+            }
+        }
+
+        return index.Result;
+    }
+
+    private static (int FirstIndex, List<long> Seqs, List<long> FirstOfSequence) AddRuns(IEnumerable<RunSummary> sound, RunTable runs)
+    {
+        var index = new RunIndex(runs);
+        foreach (var run in sound)
+        {
+            index.Add(run);
+        }
+
+        return index.Result;
+    }
+
+    /// <summary>Adds runs to the table, keeping their seqs and the first run of each sequence.</summary>
+    private sealed class RunIndex(RunTable? runs)
+    {
+        private readonly int _firstIndex = runs?.Count ?? 0;
+        private readonly List<long> _seqs = [];
+        private readonly HashSet<string> _sequences = new(StringComparer.Ordinal);
+        private readonly List<long> _firstOfSequence = [];
+        private string? _lastSequence;
+
+        public (int FirstIndex, List<long> Seqs, List<long> FirstOfSequence) Result => (_firstIndex, _seqs, _firstOfSequence);
+
+        public void Add(RunSummary run)
+        {
+            _seqs.Add(run.Seq);
+            if (!ReferenceEquals(run.SequenceId, _lastSequence) && _sequences.Add(run.SequenceId))
+            {
+                _firstOfSequence.Add(run.Seq);
             }
 
-            lastSequence = run.SequenceId;
-            runs.Add(
+            _lastSequence = run.SequenceId;
+            runs!.Add(
                 run.Serial,
                 run.EndedUtc,
                 run.Verdict,
@@ -131,7 +192,5 @@ public static class ResultsLoader
                 run.FirstFailingReading,
                 run.Reason);
         }
-
-        return (firstIndex, seqs, firstOfSequence);
     }
 }

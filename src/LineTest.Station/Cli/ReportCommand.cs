@@ -31,10 +31,13 @@ public static class ReportCommand
         ArgumentNullException.ThrowIfNull(time);
         var results = new Option<string[]>("--results") { Description = "Results folder with results.db (repeatable; default ./results)" };
         var readings = new Option<string?>("--readings") { Description = "Readings CSV to report on instead of results databases" };
-        var skipBadRows = new Option<bool>("--skip-bad-rows") { Description = "Report on the good rows of --readings when some rows are bad" };
+        var skipBadRows = new Option<bool>("--skip-bad-rows") { Description = "Report on the good rows when some are bad: rows of --readings, damaged runs of --results (each named with its line or seq and reason)" };
         var by = new Option<string?>("--by") { Description = "Group by station, slot, lot, day, revision, operator or shift (shifts from Station:Shifts)" };
         by.AcceptOnlyFromAmong("station", "slot", "lot", "day", "revision", "operator", "shift");
         var fuzz = new Option<int?>("--fuzz") { Description = "Fuzz the report: N damaged copies of the --results database (or mutations of the --readings CSV); prints the figures" };
+        var fuzzWorkers = new Option<int>("--fuzz-workers") { Description = "Threads for --fuzz (each with its own seeded inputs and scratch folder)", DefaultValueFactory = _ => 1 };
+        var fuzzHtmlEvery = new Option<int>("--fuzz-html-every") { Description = "With --fuzz, write the HTML page (its charts take most of the time) for one input in N; 0 never", DefaultValueFactory = _ => 25 };
+        var fuzzSeed = new Option<int>("--fuzz-seed") { Description = "Seed of the --fuzz inputs (the same seed and worker count give the same inputs)", DefaultValueFactory = _ => 1 };
         var firstRuns = new Option<bool>("--first-runs") { Description = "Capability and failure Pareto from each unit's first run only" };
         var json = new Option<bool>("--json") { Description = "Print the report as one JSON object instead of tables" };
         var csv = new Option<string?>("--csv") { Description = "Write the per-reading statistics to this CSV file" };
@@ -43,7 +46,7 @@ public static class ReportCommand
         var filters = new ReportFilterOptions();
         var command = new Command("report", "Quality report: yield, failures, capability, control charts and slot bias")
         {
-            results, readings, skipBadRows, by, firstRuns, json, csv, html, factory, fuzz,
+            results, readings, skipBadRows, by, firstRuns, json, csv, html, factory, fuzz, fuzzWorkers, fuzzHtmlEvery, fuzzSeed,
         };
         filters.AddTo(command);
         command.SetAction(async (parse, ct) =>
@@ -78,7 +81,7 @@ public static class ReportCommand
 
             if (parse.GetValue(fuzz) is { } iterations)
             {
-                return Fuzz(context, iterations, csvInput, folders);
+                return Fuzz(context, iterations, (parse.GetValue(fuzzWorkers), parse.GetValue(fuzzHtmlEvery), parse.GetValue(fuzzSeed)), csvInput, folders);
             }
 
             var factoryConnection = parse.GetValue(factory);
@@ -137,7 +140,7 @@ public static class ReportCommand
                 var directories = (folders.Length == 0 ? ["results"] : folders).Select(Path.GetFullPath).ToList();
                 try
                 {
-                    data = await ResultsLoader.LoadAsync(directories, query, ct).ConfigureAwait(false);
+                    data = await ResultsLoader.LoadAsync(directories, query, parse.GetValue(skipBadRows), ct).ConfigureAwait(false);
                 }
                 catch (ResultStoreException ex) when (ex.Failure is not (ResultStoreFailure.Locked or ResultStoreFailure.DiskError))
                 {
@@ -148,6 +151,18 @@ public static class ReportCommand
                 {
                     context.Error.WriteLine($"linetest: {ex.Message}");
                     return ExitCodes.RuntimeFailure;
+                }
+
+                if (data.SkippedRows.Count > 0)
+                {
+                    foreach (var skipped in data.SkippedRows.Take(50))
+                    {
+                        context.Error.WriteLine($"linetest: damaged run {skipped}");
+                    }
+
+                    context.Error.WriteLine(data.SkippedRows.Count > 50
+                        ? $"linetest: ... and {data.SkippedRows.Count - 50} more; skipped {data.SkippedRows.Count} damaged run(s)"
+                        : $"linetest: skipped {data.SkippedRows.Count} damaged run(s)");
                 }
             }
 
@@ -202,11 +217,22 @@ public static class ReportCommand
     /// <c>report --fuzz N</c>: damaged inputs through loading, building and every format; exit 1 when any crashed or
     /// took more than 10 s. The figures in docs/reliability.md come from this.
     /// </summary>
-    private static int Fuzz(CliContext context, int iterations, string? csvInput, string[] folders)
+    private static int Fuzz(CliContext context, int iterations, (int Workers, int HtmlEvery, int Seed) how, string? csvInput, string[] folders)
     {
+        var (workers, htmlEvery, seed) = how;
+        if (htmlEvery < 0)
+        {
+            return context.BadInput($"--fuzz-html-every must be 0 or more, not {htmlEvery}");
+        }
+
         if (iterations < 1)
         {
             return context.BadInput($"--fuzz must be 1 or more, not {iterations}");
+        }
+
+        if (workers is < 1 or > 64)
+        {
+            return context.BadInput($"--fuzz-workers must be 1 … 64, not {workers}");
         }
 
         FuzzSummary summary;
@@ -217,7 +243,7 @@ public static class ReportCommand
                 return context.BadInput($"'{csvInput}' does not exist");
             }
 
-            summary = ReportFuzzer.FuzzCsv(File.ReadAllText(csvInput), iterations, seed: 1);
+            summary = ReportFuzzer.FuzzCsv(File.ReadAllText(csvInput), iterations, seed, workers, htmlEvery);
         }
         else
         {
@@ -227,12 +253,12 @@ public static class ReportCommand
                 return context.BadInput($"'{folder}' holds no results.db to fuzz");
             }
 
-            summary = ReportFuzzer.FuzzDatabase(folder, iterations, seed: 1);
+            summary = ReportFuzzer.FuzzDatabase(folder, iterations, seed, workers, htmlEvery);
         }
 
         context.Output.WriteLine(string.Create(
             System.Globalization.CultureInfo.InvariantCulture,
-            $"{summary.Kind}: {summary.Inputs} inputs, {summary.Reported} reported, {summary.Refused} refused with a reason, {summary.Crashed} crashed, {summary.OverTenSeconds} over 10 s (slowest {summary.SlowestSeconds:F2} s)"));
+            $"{summary.Kind}: {summary.Inputs} inputs, {summary.Reported} reported, {summary.Refused} refused with a reason, {summary.Crashed} crashed, {summary.OverTenSeconds} over 10 s (slowest {summary.SlowestSeconds:F2} s, most processor time in one input {summary.SlowestCpuSeconds:F2} s)"));
         if (summary.FirstCrash is { } crash)
         {
             context.Output.WriteLine($"first crash: {crash}");

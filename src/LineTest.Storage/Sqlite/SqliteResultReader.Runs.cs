@@ -17,8 +17,17 @@ public sealed partial class SqliteResultReader
     /// reading) shared: several times cheaper per run on a large database, which is what a report over a million runs
     /// needs.
     /// </summary>
-    /// <exception cref="ResultStoreException">The database cannot be opened or read.</exception>
-    public async IAsyncEnumerable<RunSummary> ReadRunsForReportAsync(RunFilter? filter = null, [EnumeratorCancellation] CancellationToken ct = default)
+    /// <exception cref="ResultStoreException">The database cannot be opened or read, or a run is damaged.</exception>
+    public IAsyncEnumerable<RunSummary> ReadRunsForReportAsync(RunFilter? filter = null, CancellationToken ct = default) =>
+        ReadRunsForReportAsync(filter, damaged: null, ct);
+
+    /// <summary>
+    /// As <see cref="ReadRunsForReportAsync(RunFilter?, CancellationToken)"/>; with <paramref name="damaged"/>, a
+    /// damaged run (no serial, a date or verdict that does not parse, …) is recorded there and left out instead of
+    /// stopping the scan.
+    /// </summary>
+    /// <exception cref="ResultStoreException">The database cannot be opened or read, or a run is damaged and no collector is given.</exception>
+    public async IAsyncEnumerable<RunSummary> ReadRunsForReportAsync(RunFilter? filter, DamagedRuns? damaged, [EnumeratorCancellation] CancellationToken ct = default)
     {
         filter ??= RunFilter.All;
         await using var connection = await OpenAsync(ct).ConfigureAwait(false);
@@ -36,11 +45,24 @@ public sealed partial class SqliteResultReader
                 ct.ThrowIfCancellationRequested();
             }
 
-            yield return ReadSummary(scan, pool);
+            var (run, damage) = ReadSummary(scan, pool);
+            if (run is { } summary)
+            {
+                yield return summary;
+            }
+            else if (damaged is not null)
+            {
+                damaged.Add(raw.sqlite3_column_int64(scan, 0), damage!);
+            }
+            else
+            {
+                throw Damaged(raw.sqlite3_column_int64(scan, 0), damage!);
+            }
         }
     }
 
-    private RunSummary ReadSummary(sqlite3_stmt scan, Utf8StringPool pool)
+    /// <summary>One run, or why it is damaged.</summary>
+    private static (RunSummary? Run, string? Damage) ReadSummary(sqlite3_stmt scan, Utf8StringPool pool)
     {
         var seq = raw.sqlite3_column_int64(scan, 0);
         try
@@ -48,15 +70,21 @@ public sealed partial class SqliteResultReader
             var serial = Encoding.UTF8.GetString(raw.sqlite3_column_blob(scan, 2));
             if (string.IsNullOrWhiteSpace(serial))
             {
-                throw Damaged(seq, "the run has no serial");
+                return (null, "the run has no serial");
+            }
+
+            var sequenceId = pool.Get(raw.sqlite3_column_blob(scan, 8));
+            if (string.IsNullOrWhiteSpace(sequenceId))
+            {
+                return (null, "the run has no sequence id");
             }
 
             if (raw.sqlite3_column_type(scan, 6) != raw.SQLITE_INTEGER || raw.sqlite3_column_type(scan, 9) != raw.SQLITE_INTEGER)
             {
-                throw Damaged(seq, "the slot or the sequence revision is not a whole number");
+                return (null, "the slot or the sequence revision is not a whole number");
             }
 
-            return new RunSummary(
+            return (new RunSummary(
                 seq,
                 ParseGuid(scan, 1),
                 serial,
@@ -65,15 +93,15 @@ public sealed partial class SqliteResultReader
                 pool.Get(raw.sqlite3_column_blob(scan, 5)),
                 raw.sqlite3_column_int(scan, 6),
                 PooledOrNull(pool, scan, 7),
-                pool.Get(raw.sqlite3_column_blob(scan, 8)),
+                sequenceId,
                 raw.sqlite3_column_int(scan, 9),
                 PooledOrNull(pool, scan, 10),
-                PooledOrNull(pool, scan, 11));
+                PooledOrNull(pool, scan, 11)), null);
         }
         catch (Exception ex) when (ex is FormatException or InvalidDataException or OverflowException or ArgumentException)
         {
             // A stored run that does not parse (a non-date ended_utc, verdict 'maybe', an id that is no GUID).
-            throw Damaged(seq, ex.Message);
+            return (null, ex.Message);
         }
     }
 
@@ -94,7 +122,9 @@ public sealed partial class SqliteResultReader
         {
             parameter.Value = seq;
             await using var reader = await ExecuteAsync(command, ct).ConfigureAwait(false);
-            if (Read(reader) && reader.GetValue(0) is string sequence && reader.GetValue(1) is string product && product.Length > 0)
+            // A damaged product or sequence cell only costs the product's name in the report.
+            if (Read(reader) && reader.GetValue(0) is string sequence && reader.GetValue(1) is string product
+                && !string.IsNullOrWhiteSpace(sequence) && !string.IsNullOrWhiteSpace(product))
             {
                 products[sequence] = product;
             }

@@ -15,8 +15,17 @@ public sealed partial class SqliteResultReader
     /// string instances. Several times cheaper than <see cref="ReadReadingsAsync"/> on a large database: six columns
     /// instead of twenty-two, and the readings cursor is read through SQLite's own column functions.
     /// </summary>
-    /// <exception cref="ResultStoreException">The database cannot be opened or read.</exception>
-    public async IAsyncEnumerable<ReadingValue> ReadReadingValuesAsync(RunFilter? filter = null, [EnumeratorCancellation] CancellationToken ct = default)
+    /// <exception cref="ResultStoreException">The database cannot be opened or read, or a reading is damaged.</exception>
+    public IAsyncEnumerable<ReadingValue> ReadReadingValuesAsync(RunFilter? filter = null, CancellationToken ct = default) =>
+        ReadReadingValuesAsync(filter, damaged: null, ct);
+
+    /// <summary>
+    /// As <see cref="ReadReadingValuesAsync(RunFilter?, CancellationToken)"/>; with <paramref name="damaged"/>, a damaged
+    /// reading (an empty name, a value that is text or not finite, a low limit not below the high one) is left out and
+    /// its run recorded there as damaged, instead of stopping the scan.
+    /// </summary>
+    /// <exception cref="ResultStoreException">The database cannot be opened or read, or a reading is damaged and no collector is given.</exception>
+    public async IAsyncEnumerable<ReadingValue> ReadReadingValuesAsync(RunFilter? filter, DamagedRuns? damaged, [EnumeratorCancellation] CancellationToken ct = default)
     {
         filter ??= RunFilter.All;
         await using var connection = await OpenAsync(ct).ConfigureAwait(false);
@@ -61,7 +70,19 @@ public sealed partial class SqliteResultReader
                 continue;
             }
 
-            yield return ReadValue(scan, readingRunSeq, names, units);
+            var (value, damage) = ReadValue(scan, readingRunSeq, names, units);
+            if (damage is null)
+            {
+                yield return value;
+            }
+            else if (damaged is not null)
+            {
+                damaged.Add(readingRunSeq, damage);
+            }
+            else
+            {
+                throw Damaged(readingRunSeq, damage);
+            }
         }
     }
 
@@ -70,28 +91,31 @@ public sealed partial class SqliteResultReader
         ResultStoreFailure.Incompatible,
         $"The results database '{DatabasePath}' holds a damaged run (seq {seq}): {reason}. Restore it from a backup or report on a filtered range.");
 
-    private ReadingValue ReadValue(sqlite3_stmt scan, long seq, Utf8StringPool names, Utf8StringPool units)
+    /// <summary>One reading, or why it is damaged.</summary>
+    private static (ReadingValue Value, string? Damage) ReadValue(sqlite3_stmt scan, long seq, Utf8StringPool names, Utf8StringPool units)
     {
         var name = names.Get(raw.sqlite3_column_blob(scan, 1));
         if (string.IsNullOrWhiteSpace(name))
         {
-            throw Damaged(seq, "a reading has an empty name");
+            return (default, "a reading has an empty name");
         }
 
-        var value = Number(scan, 2, seq, name, "value");
-        var low = Number(scan, 4, seq, name, "low limit");
-        var high = Number(scan, 5, seq, name, "high limit");
-        if (low is { } l && high is { } h && !(l < h))
+        var valueDamage = Number(scan, 2, name, "value", out var value);
+        var lowDamage = Number(scan, 4, name, "low limit", out var low);
+        var highDamage = Number(scan, 5, name, "high limit", out var high);
+        var damage = valueDamage ?? lowDamage ?? highDamage;
+        if (damage is null && low is { } l && high is { } h && !(l < h))
         {
-            throw Damaged(seq, FormattableString.Invariant($"reading '{name}' has a low limit {l} that is not below its high limit {h}"));
+            damage = FormattableString.Invariant($"reading '{name}' has a low limit {l} that is not below its high limit {h}");
         }
 
-        return new ReadingValue(seq, name, value, units.Get(raw.sqlite3_column_blob(scan, 3)), low, high);
+        return damage is null ? (new ReadingValue(seq, name, value, units.Get(raw.sqlite3_column_blob(scan, 3)), low, high), null) : (default, damage);
     }
 
-    /// <summary>A numeric column: null, or a finite number; text, a blob or an infinity is damage, never 0.</summary>
-    private double? Number(sqlite3_stmt statement, int column, long seq, string name, string what)
+    /// <summary>A numeric column: null, or a finite number; text, a blob or an infinity is damage (its reason), never 0.</summary>
+    private static string? Number(sqlite3_stmt statement, int column, string name, string what, out double? number)
     {
+        number = null;
         var type = raw.sqlite3_column_type(statement, column);
         if (type == raw.SQLITE_NULL)
         {
@@ -100,14 +124,13 @@ public sealed partial class SqliteResultReader
 
         if (type is raw.SQLITE_FLOAT or raw.SQLITE_INTEGER)
         {
-            var number = raw.sqlite3_column_double(statement, column);
-            return double.IsFinite(number)
-                ? number
-                : throw Damaged(seq, FormattableString.Invariant($"reading '{name}' has a {what} of {number}, which is not a finite number"));
+            var read = raw.sqlite3_column_double(statement, column);
+            number = read;
+            return double.IsFinite(read) ? null : FormattableString.Invariant($"reading '{name}' has a {what} of {read}, which is not a finite number");
         }
 
         var text = type == raw.SQLITE_TEXT ? raw.sqlite3_column_text(statement, column).utf8_to_string() : "(binary data)";
-        throw Damaged(seq, $"reading '{name}' has a {what} of '{Shorten(text)}', which is not a number");
+        return $"reading '{name}' has a {what} of '{Shorten(text)}', which is not a number";
     }
 
     private static string Shorten(string text) => text.Length <= 40 ? text : text[..40] + "…";

@@ -49,6 +49,20 @@ public sealed class ReportFuzzerTests
     }
 
     [Fact]
+    public void RunCsv_LowLimitOfMinusMaxDouble_HistogramPageIsWritten()
+    {
+        // Found by the CSV property: a low limit of -1.7976931348623157e308 made the histogram's axis (limits plus a
+        // margin) overflow, and the chart library threw while drawing the HTML page.
+        var text = Readings.Replace("B1,leak,1.9,uA,,2,", "B1,leak,1.9,uA,-1.7976931348623157e308,2,", StringComparison.Ordinal);
+        var loaded = LineTest.Reports.Loading.CsvReadingsLoader.Load(new StringReader(text), "limits.csv", LineTest.Reports.Loading.ReportQuery.All, skipBadRows: false);
+        var report = LineTest.Reports.Building.ReportBuilder.Build(loaded.Data!, LineTest.Reports.Loading.ReportQuery.All, TimeProvider.System);
+
+        var html = LineTest.Reports.Html.HtmlReportWriter.ToHtml(report);
+
+        Assert.Contains("Histogram of ", html, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void MutateCsv_SameSeed_SameInput()
     {
         Assert.Equal(ReportFuzzer.MutateCsv(Readings, new Random(5)), ReportFuzzer.MutateCsv(Readings, new Random(5)));

@@ -46,6 +46,38 @@ public sealed class ResultsLoaderTests
         Assert.Equal(13, error.Count);
     }
 
+    [Fact]
+    public async Task LoadAsync_SkipDamagedRuns_LeavesOutEachDamagedRunWithItsReadingsAndNamesIt()
+    {
+        // A damaged run (seq 3: verdict) and a run with one damaged reading (seq 7: infinite value): both left out whole,
+        // split over ranges or not, so yield and readings describe the same runs.
+        var directory = await Synthetic.CreateAsync(runs: 12, seed: 3);
+        var sound = await ResultsLoader.LoadAsync([directory], ReportQuery.All, parts: 1);
+        Damage(directory, "UPDATE runs SET verdict = 'maybe' WHERE seq = 3; UPDATE readings SET value = 9e999 WHERE run_seq = 7 AND ordinal = 0;");
+
+        await Assert.ThrowsAsync<LineTest.Storage.Store.ResultStoreException>(() => ResultsLoader.LoadAsync([directory], ReportQuery.All));
+        var data = await ResultsLoader.LoadAsync([directory], ReportQuery.All, skipDamagedRuns: true);
+
+        Assert.Equal(sound.Runs.Count - 2, data.Runs.Count);
+        Assert.Equal(2, data.SkippedRows.Count);
+        Assert.StartsWith("seq 3: ", data.SkippedRows[0], StringComparison.Ordinal);
+        Assert.Contains("maybe", data.SkippedRows[0], StringComparison.Ordinal);
+        Assert.StartsWith("seq 7: ", data.SkippedRows[1], StringComparison.Ordinal);
+        Assert.Contains("not a finite number", data.SkippedRows[1], StringComparison.Ordinal);
+        Assert.Equal(sound.Readings.Sum(r => r.Count) - ReadingsOf(sound, 2) - ReadingsOf(sound, 6), data.Readings.Sum(r => r.Count));
+    }
+
+    private static int ReadingsOf(ReportData data, int run) => data.Readings.Sum(r => r.Runs.Count(run));
+
+    private static void Damage(string directory, string sql)
+    {
+        using var connection = new Microsoft.Data.Sqlite.SqliteConnection($"Data Source={Path.Combine(directory, "results.db")};Pooling=False");
+        connection.Open();
+        using var command = connection.CreateCommand();
+        command.CommandText = "PRAGMA ignore_check_constraints = ON; " + sql;
+        command.ExecuteNonQuery();
+    }
+
     // Two runs of a later revision: tighter verify limits and one verify without a value.
     private static async Task AppendRevisionAsync(string directory)
     {

@@ -32,6 +32,27 @@ public sealed class CheckCommandTests
     }
 
     [Fact]
+    public async Task Check_StructuralAndSemanticProblems_ListsBoth()
+    {
+        // Issue 15: "a file with one structural problem hides its other problems". A revision that is not a number no
+        // longer hides the setpoint outside the fixture's range or the unknown unit in a step.
+        var text = File.ReadAllText(RepoFiles.Path("sequences/ctp40a-dac.json"))
+            .Replace(RevisionLine(), "\"revision\": \"two\",", StringComparison.Ordinal)
+            .Replace("\"cal-high\", \"celsius\": 40", "\"cal-high\", \"celsius\": 140", StringComparison.Ordinal)
+            .Replace("\"unit\": \"mA\"", "\"unit\": \"mAmp\"", StringComparison.Ordinal);
+        var path = Path.Combine(Some.TempDirectory(), "both-kinds.json");
+        File.WriteAllText(path, text);
+
+        var (exit, _, error) = await CliRunner.RunAsync("check", path, "--fixture", RepoFiles.Path("fixtures/sim-dryblock-4.json"));
+
+        Assert.Equal(2, exit);
+        Assert.Contains("The sequence file has 3 problems:", error, StringComparison.Ordinal);
+        Assert.Contains($"{path}:{LineOf(text, "\"two\"")}: $.revision: expected a whole number, not a string", error, StringComparison.Ordinal);
+        Assert.Contains($"{path}:{LineOf(text, "\"celsius\": 140")}: $.setpoints[1].celsius: 140 °C is outside the safe range", error, StringComparison.Ordinal);
+        Assert.Contains($"{path}:{LineOf(text, "\"unit\": \"mAmp\"")}: $.steps[1].limits.unit: unknown unit of measure 'mAmp'", error, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public async Task Check_MissingFile_ExitsTwo()
     {
         var (exit, _, error) = await CliRunner.RunAsync("check", "no/such/sequence.json");
@@ -57,7 +78,7 @@ public sealed class CheckCommandTests
     public async Task Check_TrailingCommaAndKeyGivenTwice_ExitsTwoWithTheirLines()
     {
         // Regression: both passed check; the second of two keys silently won.
-        var path = Edited("\"revision\": 3,", "\"revision\": 3,\n  \"revision\": 4,");
+        var path = Edited(RevisionLine(), RevisionLine() + "\n  \"revision\": 99,");
         File.WriteAllText(path, File.ReadAllText(path).Replace("\"verify\", \"celsius\": 5 }", "\"verify\", \"celsius\": 5 },", StringComparison.Ordinal));
 
         var (exit, _, error) = await CliRunner.RunAsync("check", path);
@@ -78,6 +99,10 @@ public sealed class CheckCommandTests
         Assert.Equal(2, exit);
         Assert.Contains("$.simulation.blockNoiseC", error, StringComparison.Ordinal);
     }
+
+    /// <summary>The shipped sequence's revision key and value (the revision rises with each release of the file).</summary>
+    private static string RevisionLine() =>
+        System.Text.RegularExpressions.Regex.Match(File.ReadAllText(RepoFiles.Path("sequences/ctp40a-dac.json")), "\"revision\": [0-9]+,").Value;
 
     private static string Edited(string find, string replace)
     {

@@ -65,6 +65,7 @@ public sealed class ReportCommandRobustnessTests
     [InlineData("UPDATE readings SET value = 'abc' WHERE run_seq = 2 AND ordinal = 1;", "'abc', which is not a number")]
     [InlineData("UPDATE readings SET value = 9e999 WHERE run_seq = 2 AND ordinal = 1;", "not a finite number")]
     [InlineData("UPDATE readings SET low = 5, high = 1 WHERE run_seq = 2 AND ordinal = 1;", "not below its high limit")]
+    [InlineData("UPDATE runs SET sequence_id = ' ' WHERE seq = 2;", "the run has no sequence id")]
     public async Task Report_DamagedRow_ExitsTwoNamingTheRunAndWhy(string damage, string expected)
     {
         // Regression: a non-date ended_utc, verdict 'maybe' or an empty reading name crashed the report.
@@ -80,6 +81,45 @@ public sealed class ReportCommandRobustnessTests
             Assert.Contains(expected, error, StringComparison.Ordinal);
             Assert.DoesNotContain("   at ", output + error, StringComparison.Ordinal);
         }
+    }
+
+    [Theory]
+    [InlineData("UPDATE runs SET ended_utc = 'yesterday' WHERE seq = 2;", "ended_utc 'yesterday'")]
+    [InlineData("UPDATE runs SET verdict = 'maybe' WHERE seq = 2;", "'maybe'")]
+    [InlineData("UPDATE runs SET serial = '' WHERE seq = 2;", "the run has no serial")]
+    [InlineData("UPDATE runs SET sequence_id = '' WHERE seq = 2;", "the run has no sequence id")]
+    [InlineData("UPDATE readings SET name = '' WHERE run_seq = 2 AND ordinal = 1;", "empty name")]
+    [InlineData("UPDATE readings SET value = 'abc' WHERE run_seq = 2 AND ordinal = 1;", "'abc', which is not a number")]
+    [InlineData("UPDATE readings SET value = 9e999 WHERE run_seq = 2 AND ordinal = 1;", "not a finite number")]
+    [InlineData("UPDATE readings SET low = 5, high = 1 WHERE run_seq = 2 AND ordinal = 1;", "not below its high limit")]
+    public async Task Report_DamagedRowWithSkipBadRows_ReportsTheOtherRunsAndNamesTheSkippedOne(string damage, string expected)
+    {
+        // Database rows could not be skipped (only CSV rows could): with --skip-bad-rows the damaged run is left out with
+        // all its readings, counted and named with its seq and reason in every format; the other three runs are reported.
+        var results = await DemoAsync(4);
+        Execute(results, damage);
+        var folder = Some.TempDirectory();
+        var (csvFile, htmlFile) = (Path.Combine(folder, "r.csv"), Path.Combine(folder, "r.html"));
+
+        var json = await CliRunner.RunAsync("report", "--results", results, "--skip-bad-rows", "--json");
+        var text = await CliRunner.RunAsync("report", "--results", results, "--skip-bad-rows", "--csv", csvFile, "--html", htmlFile);
+
+        Assert.True(json.Exit == ExitCodes.Done, json.Err);
+        Assert.True(text.Exit == ExitCodes.Done, text.Err);
+        using var document = JsonDocument.Parse(json.Out);
+        var skipped = Assert.Single(document.RootElement.GetProperty("skippedRows").EnumerateArray()).GetString()!;
+        Assert.StartsWith("seq 2: ", skipped, StringComparison.Ordinal);
+        Assert.Contains(expected, skipped, StringComparison.Ordinal);
+        Assert.Equal(3, document.RootElement.GetProperty("yield").GetProperty("runs").GetInt32());
+        Assert.Contains("linetest: damaged run seq 2: ", json.Err, StringComparison.Ordinal);
+        Assert.Contains("Skipped 1 bad input row(s)", text.Out, StringComparison.Ordinal);
+        Assert.Contains("seq 2: ", text.Out, StringComparison.Ordinal);
+        Assert.Contains("seq 2: ", File.ReadAllText(htmlFile), StringComparison.Ordinal);
+        var csvLines = File.ReadAllLines(csvFile);
+        var column = Array.IndexOf(csvLines[0].Split(','), "skippedRows");
+        Assert.True(column >= 0);
+        Assert.All(csvLines.Skip(1), line => Assert.EndsWith(",1", line, StringComparison.Ordinal));
+        Assert.DoesNotContain("   at ", json.Out + json.Err + text.Out + text.Err, StringComparison.Ordinal);
     }
 
     [Fact]
