@@ -238,7 +238,7 @@ public sealed class SimulatedUnitTests
     }
 
     [Fact]
-    public void FollowWell_WithATipLag_TrailsTheBodyBySlopeTimesTipLag()
+    public async Task FollowWell_WithATipLag_TrailsTheBodyBySlopeTimesTipLag()
     {
         // [derived] two first-order lags in series behind a ramp r trail it by r·(τ + τ_tip) once several τ have passed,
         // so the die trails a part without a tip lag (same seed, same τ) by r·τ_tip; the tip lag is the fraction of the
@@ -251,7 +251,7 @@ public sealed class SimulatedUnitTests
         var block = new SimulatedDryBlock(SimulatedFixtures.Source(), SimulatedFixtures.Simulation(blockNoiseC: 0), clock, 1);
         withTip.PlaceAt(23, clock.GetUtcNow());
         without.PlaceAt(23, clock.GetUtcNow());
-        block.SetSetpointAsync(80, CancellationToken.None).GetAwaiter().GetResult();
+        await block.SetSetpointAsync(80, CancellationToken.None);
         for (var t = 0; t < 300; t += 2)
         {
             clock.Advance(TimeSpan.FromSeconds(2));
