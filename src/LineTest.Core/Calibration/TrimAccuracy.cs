@@ -50,6 +50,28 @@ public static class TrimAccuracy
             : null;
     }
 
+    /// <summary>Evenly spaced temperatures over the rated range at which a DAC trim's codes are judged.</summary>
+    public const int CodeObjectiveSamples = 121;
+
+    /// <summary>
+    /// Where a DAC trim's two codes are chosen together (<see cref="Trims.DacCodeSearch"/>), °C: for <c>"fit": "minimax"</c>
+    /// over the rated range (the fit's own objective, now on whole codes), for <c>through-points</c> at the calibration
+    /// points; null (each code rounded on its own) when the sequence states neither a sensor model nor a rated range.
+    /// </summary>
+    public static IReadOnlyList<double>? CodeObjectiveC(SequenceDefinition sequence, IReadOnlyList<CalibrationPoint> points)
+    {
+        ArgumentNullException.ThrowIfNull(sequence);
+        ArgumentNullException.ThrowIfNull(points);
+        if (sequence.Trim?.SensorModel is null && sequence.RatedRange is null)
+        {
+            return null;
+        }
+
+        return sequence.Trim?.Fit == TrimFits.Minimax && sequence.RatedRange is { } range
+            ? Enumerable.Range(0, CodeObjectiveSamples).Select(i => range.LowC + ((range.HighC - range.LowC) * i / (CodeObjectiveSamples - 1))).ToArray()
+            : points.Select(p => p.ReferenceC).ToArray();
+    }
+
     /// <summary>Samples of the curve over the rated range for a firmware polynomial, or null (fit the calibration points).</summary>
     public static IReadOnlyList<CalibrationPoint>? FirmwareFitPoints(SequenceDefinition sequence, SensorCurve? curve)
     {

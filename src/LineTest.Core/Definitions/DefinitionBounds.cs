@@ -45,6 +45,9 @@ public static class DefinitionBounds
     /// <summary>Readings averaged in one measurement (measure, verify, supply-current, iv-sweep).</summary>
     public static readonly NumberBound Samples = NumberBound.Count(1, 1000);
 
+    /// <summary>Old/new code pairs read by a DAC trim's check (each pair: two writes and two meter readings per unit).</summary>
+    public static readonly NumberBound DacCheckPairs = NumberBound.Count(1, 20);
+
     /// <summary>Currents of one I–V sweep: enough for the three-parameter fit, few enough for the cycle time.</summary>
     public static readonly NumberBound SweepPoints = NumberBound.Count(Characterisation.ShockleyFit.MinimumPoints, Sequences.Steps.IvSweepStepKind.MaxPoints);
 
@@ -60,7 +63,7 @@ public static class DefinitionBounds
     /// <summary>The simulated block's temperature noise (1σ), °C.</summary>
     public static readonly NumberBound BlockNoiseC = NumberBound.NonNegative(1, "°C");
 
-    /// <summary>The simulated static offset of one slot from the reference well, °C.</summary>
+    /// <summary>A static offset of one slot's well from the reference well (simulated, or found by the fixture's calibration), °C.</summary>
     public static readonly NumberBound SlotOffsetC = new(-10, 10, "°C");
 
     /// <summary>A source's well-to-well uniformity (half-width), °C: zero up to 10 °C.</summary>
@@ -194,6 +197,7 @@ public static class DefinitionBounds
         [(typeof(SlotDefinition), nameof(SlotDefinition.SupplyChannel))] = Channel,
         [(typeof(SlotDefinition), nameof(SlotDefinition.SmuChannel))] = Channel,
         [(typeof(SlotDefinition), nameof(SlotDefinition.SupplyShuntOhms))] = Ohms,
+        [(typeof(SlotDefinition), nameof(SlotDefinition.WellOffsetC))] = SlotOffsetC,
         [(typeof(SourceMeterDefinition), nameof(SourceMeterDefinition.ComplianceVolts))] = ComplianceVolts,
         [(typeof(SourceMeterDefinition), nameof(SourceMeterDefinition.MaxCurrentAmps))] = SensorCurrentAmps,
         [(typeof(SourceMeterDefinition), nameof(SourceMeterDefinition.NoiseVolts))] = NoiseVolts,
@@ -238,6 +242,7 @@ public static class DefinitionBounds
         [(typeof(LimitSpec), nameof(LimitSpec.Low))] = LimitValue,
         [(typeof(LimitSpec), nameof(LimitSpec.High))] = LimitValue,
         [(typeof(LimitSpec), nameof(LimitSpec.GuardBandFactor))] = GuardBandFactor,
+        [(typeof(DacTrimSpec), nameof(DacTrimSpec.CheckPairs))] = DacCheckPairs,
         [(typeof(DacChannelSpec), nameof(DacChannelSpec.Min))] = DacCode,
         [(typeof(DacChannelSpec), nameof(DacChannelSpec.Max))] = DacCode,
         [(typeof(DacChannelSpec), nameof(DacChannelSpec.Nominal))] = DacCode,

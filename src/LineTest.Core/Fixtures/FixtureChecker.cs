@@ -120,6 +120,11 @@ public static class FixtureChecker
             }
 
             DefinitionBounds.Ohms.Check(slot.SupplyShuntOhms, $"{path}.supplyShuntOhms", problems);
+            if (slot.WellOffsetC is { } wellOffset)
+            {
+                DefinitionBounds.SlotOffsetC.Check(wellOffset, $"{path}.wellOffsetC", problems);
+            }
+
             problems.AddIf(fixture.Rig == "serial" && slot.UnitPort is null, $"{path}.unitPort", "a serial rig needs each slot's unit port");
         }
     }

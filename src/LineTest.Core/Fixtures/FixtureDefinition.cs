@@ -42,4 +42,10 @@ public sealed record FixtureDefinition
 
     /// <summary>Physical parameters used only by the built-in simulator.</summary>
     public SimulationDefinition? Simulation { get; init; }
+
+    /// <summary>
+    /// The well offset the fixture's calibration states for <paramref name="slot"/> (<see cref="SlotDefinition.WellOffsetC"/>),
+    /// °C; 0 when it states none or there is no such slot. The temperature of that slot's unit is the reference plus this.
+    /// </summary>
+    public double WellOffsetC(int slot) => Slots.FirstOrDefault(s => s.Slot == slot)?.WellOffsetC ?? 0.0;
 }

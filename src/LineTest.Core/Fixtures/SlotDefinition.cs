@@ -18,6 +18,15 @@ public sealed record SlotDefinition
     /// <summary>Source-measure unit channel wired to the slot's sensor, or null when the slot has none.</summary>
     public int? SmuChannel { get; init; }
 
+    /// <summary>
+    /// The slot's well temperature minus the reference well's at a setpoint, °C, as the fixture's own calibration found it
+    /// (a reference thermometer in each well in turn, at the calibration setpoints); null when not measured (0). The
+    /// station adds it to the reference reading for this slot's calibration points and verify. A source whose well
+    /// offsets change with temperature needs them measured at the setpoints used; what is left after the correction is
+    /// <see cref="SourceDefinition.WellUniformityC"/>.
+    /// </summary>
+    public double? WellOffsetC { get; init; }
+
     /// <summary>The unit's own serial link.</summary>
     public PortDefinition? UnitPort { get; init; }
 }

@@ -25,8 +25,10 @@ public sealed record SourceDefinition
     public required double SettlingTimeConstantSeconds { get; init; }
 
     /// <summary>
-    /// Largest difference between any slot's well and the reference well at a setpoint, °C (half-width of a rectangular
-    /// distribution, from the source's calibration), or null when not stated. Enters the error budget over the rated range.
+    /// Largest difference between any slot's well and the reference well at a setpoint that the station does not correct,
+    /// °C (half-width of a rectangular distribution, from the source's calibration: the whole well-to-well difference, or
+    /// what is left of it when the slots state their <see cref="SlotDefinition.WellOffsetC"/>), or null when not stated.
+    /// Enters the error budget over the rated range.
     /// </summary>
     public double? WellUniformityC { get; init; }
 

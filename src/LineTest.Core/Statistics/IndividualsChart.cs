@@ -32,6 +32,13 @@ public static class IndividualsChart
                 "The average moving range is zero (all points equal): control limits would collapse onto the centre line.");
         }
 
+        // Values near ±1.8E308 overflow the moving ranges (or the mean): no limits or zones can be drawn from them.
+        if (!double.IsFinite(mrBar) || !double.IsFinite(mean) || !double.IsFinite(MovingRangeD4 * mrBar))
+        {
+            return StatisticOutcome<IndividualsChartResult>.NotComputed(
+                "The mean or the average moving range is not finite (values too large for double arithmetic): no control limits.");
+        }
+
         var mrLimit = MovingRangeD4 * mrBar;
         var above = new List<int>();
         for (var i = 1; i < values.Length; i++)

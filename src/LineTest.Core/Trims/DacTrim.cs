@@ -12,6 +12,9 @@ namespace LineTest.Core.Trims;
 /// <para>Gain: the slope r·b must equal the target slope S, so r = S/b and
 /// g* = N_g + ((1 + s_g·(g0 − N_g))·S/b − 1)/s_g, rounded half away from zero.</para>
 /// <para>Offset, with the rounded gain code: O(o) = V0 − r·(a − O(o0)), o* = N_o + O(o)/s_o, rounded.</para>
+/// <para>With objective temperatures (<c>objectiveC</c>) the two codes are then chosen together
+/// (<see cref="DacCodeSearch"/>): the whole-code pair whose predicted error over those temperatures has the smallest
+/// largest magnitude, which is never worse there than the independently rounded pair.</para>
 /// <para>Predicted error at T: (V(T) − (V0 + S·T))/S in °C, using the rounded codes. At calibration
 /// setpoints the measured output replaces a + b·T, so non-linearity shows in the prediction; at extra
 /// checkpoints the fitted line is used.</para>
@@ -35,6 +38,10 @@ public static class DacTrim
     /// The line of the unit's output the trim maps onto the target, and its modelled output at the checkpoints; null for
     /// the least-squares line through the points (the <c>through-points</c> fit).
     /// </param>
+    /// <param name="objectiveC">
+    /// Temperatures over which to choose the codes together, °C (the rated range for a <c>minimax</c> fit, the points for
+    /// <c>through-points</c>); null or empty rounds each code on its own.
+    /// </param>
     /// <returns>
     /// A result (which may be out of range, with reasons), or a failure when no trim can be computed:
     /// bad spec, too few or degenerate points, or a fitted slope of the wrong sign.
@@ -45,7 +52,8 @@ public static class DacTrim
         long gainCodeAtCalibration,
         long offsetCodeAtCalibration,
         IReadOnlyList<TrimCheckpoint>? checkpoints = null,
-        TrimLine? line = null)
+        TrimLine? line = null,
+        IReadOnlyList<double>? objectiveC = null)
     {
         ArgumentNullException.ThrowIfNull(spec);
         ArgumentNullException.ThrowIfNull(points);
@@ -106,6 +114,21 @@ public static class DacTrim
         }
 
         var offsetCode = (long)TrimMath.RoundCode(idealOffsetCode);
+        if (objectiveC is { Count: > 0 })
+        {
+            var outputs = objectiveC.Select(t => line?.OutputAt(t) ?? fit.Evaluate(t)).ToArray();
+            var chosen = DacCodeSearch.Choose(spec, gainFactorAtCalibration, offsetAtCalibration, objectiveC, outputs, gainCode, offsetCode);
+            if (chosen.GainCode != gainCode)
+            {
+                gainCode = chosen.GainCode;
+                gainFactor = GainFactor(spec.Gain, gainCode);
+                ratio = gainFactor / gainFactorAtCalibration;
+                idealOffsetCode = spec.Offset.Nominal + ((v0 - (ratio * (a - offsetAtCalibration))) / spec.Offset.Step);
+            }
+
+            offsetCode = chosen.OffsetCode;
+        }
+
         if (gainCode < spec.Gain.Min || gainCode > spec.Gain.Max)
         {
             problems.Add($"gain code {gainCode} needed, range {spec.Gain.Min}…{spec.Gain.Max}");

@@ -21,13 +21,13 @@ public sealed record DacTrimResult : ITrimResult
     /// <summary>g* before rounding.</summary>
     public required double IdealGainCode { get; init; }
 
-    /// <summary>o* before rounding (computed with the rounded gain code).</summary>
+    /// <summary>o* before rounding (computed with the gain code written).</summary>
     public required double IdealOffsetCode { get; init; }
 
-    /// <summary>The gain code to write (rounded half away from zero; not clamped).</summary>
+    /// <summary>The gain code to write (rounded half away from zero, or chosen together with the offset code; not clamped).</summary>
     public required long GainCode { get; init; }
 
-    /// <summary>The offset code to write (rounded half away from zero; not clamped).</summary>
+    /// <summary>The offset code to write (rounded half away from zero, or chosen together with the gain code; not clamped).</summary>
     public required long OffsetCode { get; init; }
 
     /// <summary>G(g)/G(g0) with the rounded gain code.</summary>

@@ -21,6 +21,13 @@ public sealed record DacTrimSpec
     public required LinearTransfer Target { get; init; }
 
     /// <summary>
+    /// Optional: after writing, read the output this many times with the calibration codes and with the new codes
+    /// (alternating, A B B A …) and take the real DACs' step error out with the offset DAC (<see cref="DacCheck"/>);
+    /// null for no check.
+    /// </summary>
+    public int? CheckPairs { get; init; }
+
+    /// <summary>
     /// Problems that make the spec unusable, each with its path relative to the spec (e.g. <c>gain.step</c>);
     /// empty when the spec is sound. The sequence checker reports these; the trim refuses to run with any.
     /// </summary>
@@ -29,6 +36,10 @@ public sealed record DacTrimSpec
         var problems = new List<SpecProblem>();
         CheckChannel("gain", Gain, problems);
         CheckChannel("offset", Offset, problems);
+        if (CheckPairs is { } pairs && DefinitionBounds.DacCheckPairs.Refusal(pairs) is { } pairsReason)
+        {
+            problems.Add(new("checkPairs", pairsReason));
+        }
         if (Target is null)
         {
             problems.Add(new("target", "missing"));

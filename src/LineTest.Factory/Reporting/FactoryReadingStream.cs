@@ -31,10 +31,10 @@ internal static class FactoryReadingStream
         var parts = await Task.WhenAll(connections.Select((c, k) => Task.Run(
             async () =>
             {
-                var part = new ReadingPart();
+                var part = new Dictionary<(string Sequence, string Name), SeriesBucket>();
                 for (var m = k; m < months.Count; m += connections.Count)
                 {
-                    await ReadMonthAsync(c.Connection, c.Transaction, query, months[m], runs, part, ct).ConfigureAwait(false);
+                    await ReadMonthAsync(c.Connection, c.Transaction, query, months[m], runs, data.Runs, part, ct).ConfigureAwait(false);
                 }
 
                 return part;
@@ -59,7 +59,14 @@ internal static class FactoryReadingStream
     }
 
     private static async Task ReadMonthAsync(
-        NpgsqlConnection connection, NpgsqlTransaction transaction, ReportQuery query, (DateTime From, DateTime To) month, RunIndex runs, ReadingPart part, CancellationToken ct)
+        NpgsqlConnection connection,
+        NpgsqlTransaction transaction,
+        ReportQuery query,
+        (DateTime From, DateTime To) month,
+        RunIndex runs,
+        RunTable table,
+        Dictionary<(string Sequence, string Name), SeriesBucket> part,
+        CancellationToken ct)
     {
         await using var command = new NpgsqlCommand(string.Empty, connection, transaction) { CommandTimeout = 0 };
         var where = FactoryFilterSql.Where(query, "g", command, runConditions: false);
@@ -71,6 +78,10 @@ internal static class FactoryReadingStream
               FROM readings g{(where.Length == 0 ? " WHERE " + monthCondition : where + " AND " + monthCondition)};
             """;
         await using var reader = await command.ExecuteReaderAsync(System.Data.CommandBehavior.SequentialAccess, ct).ConfigureAwait(false);
+
+        // Readings are analysed per (sequence, name), never pooled across products, as for station folders. A run's
+        // readings usually come together, so the last bucket is kept at hand.
+        SeriesBucket? bucket = null;
         while (await reader.ReadAsync(ct).ConfigureAwait(false))
         {
             var run = runs.Find(reader.GetGuid(0), reader.GetInt64(1));
@@ -91,37 +102,42 @@ internal static class FactoryReadingStream
             var unit = reader.GetString(5);
             double? low = reader.IsDBNull(6) ? null : reader.GetDouble(6);
             double? high = reader.IsDBNull(7) ? null : reader.GetDouble(7);
-            part.Add(((long)run << OrdinalBits) | (uint)ordinal, value, new ReadingShape(name, unit, low, high));
+            var sequence = table.SequenceId(run)!;
+            if (bucket is null || !ReferenceEquals(bucket.Sequence, sequence) || !string.Equals(bucket.Name, name, StringComparison.Ordinal))
+            {
+                if (!part.TryGetValue((sequence, name), out bucket))
+                {
+                    bucket = new SeriesBucket(sequence) { Name = name };
+                    part.Add((sequence, name), bucket);
+                }
+            }
+
+            bucket.Add(((long)run << OrdinalBits) | (uint)ordinal, value, new ReadingShape(name, unit, low, high));
         }
     }
 
-    /// <summary>Sorts the parts' readings per (sequence, name) into run and reading order and fills the series.</summary>
-    private static void Fill(ReadingPart[] parts, ReportData data)
+    /// <summary>Merges the parts' buckets per (sequence, name), sorts each into run and reading order and fills the series.</summary>
+    private static void Fill(Dictionary<(string Sequence, string Name), SeriesBucket>[] parts, ReportData data)
     {
-        // Readings are analysed per (sequence, name), never pooled across products, as for station folders.
         var buckets = new Dictionary<(string Sequence, string Name), SeriesBucket>();
         foreach (var part in parts)
         {
-            for (var i = 0; i < part.Count; i++)
+            foreach (var (key, bucket) in part)
             {
-                var key = part.Keys[i];
-                var shape = part.Shapes[part.ShapeOf[i]];
-                var sequence = data.Runs.SequenceId((int)(key >> OrdinalBits))!;
-                if (!buckets.TryGetValue((sequence, shape.Name), out var bucket))
+                if (buckets.TryGetValue(key, out var into))
                 {
-                    bucket = new SeriesBucket(sequence);
-                    buckets.Add((sequence, shape.Name), bucket);
+                    into.Absorb(bucket);
                 }
-
-                bucket.Add(key, part.Values[i], shape);
+                else
+                {
+                    buckets.Add(key, bucket);
+                }
             }
-
-            part.Clear();
         }
 
         // Series in order of their first reading, as a stream in run order creates them.
         var sorted = buckets.Values.ToArray();
-        Parallel.ForEach(sorted, bucket => bucket.Sorted());
+        Parallel.ForEach(sorted, bucket => bucket.Sort());
         foreach (var bucket in sorted.OrderBy(b => b.FirstKey))
         {
             var series = data.Series(bucket.Sequence, bucket.FirstShape.Name, bucket.FirstShape.Unit);

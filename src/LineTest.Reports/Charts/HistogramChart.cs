@@ -100,6 +100,12 @@ public static class HistogramChart
         plot.Axes.Bottom.Label.Text = string.IsNullOrEmpty(reading.Unit) ? reading.Name : $"{reading.Name} ({reading.Unit})";
         plot.ShowLegend(Alignment.UpperRight);
         // Fixed axes: the fitted curve is a function of unlimited extent and must not widen the view.
+        if (!double.IsFinite(left - margin) || !double.IsFinite(right + margin) || !(width > 0) || !double.IsFinite(width))
+        {
+            // Values near ±1.8E308: the axis itself would overflow, so there is no histogram to draw.
+            return null;
+        }
+
         plot.Axes.SetLimitsX(left - margin, right + margin);
         plot.Axes.SetLimitsY(0, top * 1.35);
         return plot;

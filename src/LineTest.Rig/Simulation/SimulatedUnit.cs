@@ -198,18 +198,32 @@ public sealed class SimulatedUnit
     }
 
     /// <summary>
-    /// Output of a resistor-trimmed unit: <c>V = (1 + Rf/Rg)·u(T) + Vref·Rfo/Ro</c> with the parts now fitted
+    /// Noise-free output of an analog unit as it is while being calibrated, volts: nominal DAC codes (CTP-40A) or the
+    /// design's precision calibration parts (CTP-40R), with the sensor settled at <paramref name="sensorC"/>. Ground truth
+    /// of the curve a gain-and-offset trim maps onto its target; 0 V for a digital unit.
+    /// </summary>
+    public double CalibrationOutputVolts(double sensorC) => Design.Kind switch
+    {
+        SimulatedUnitKind.ResistorTrimmed => ResistorOutputVolts(sensorC, Design.GainFittedOhms, Design.OffsetFittedOhms),
+        SimulatedUnitKind.FirmwareTrimmed => 0.0,
+        _ => TrueOutputVolts(sensorC, Design.CodeNominal, Design.CodeNominal),
+    };
+
+    /// <summary>Output of a resistor-trimmed unit with the parts now fitted.</summary>
+    private double ResistorOutputVolts(double sensorC) =>
+        ResistorOutputVolts(sensorC, _fittedOhms[Design.GainPosition], _fittedOhms[Design.OffsetPosition]);
+
+    /// <summary>
+    /// Output of a resistor-trimmed unit: <c>V = (1 + Rf/Rg)·u(T) + Vref·Rfo/Ro</c> with the given parts
     /// (an open position gives G = 1 or no offset) and <c>u(T) = A·(V_b − V_f(T) + e_in)</c>, clipped to the swing.
     /// </summary>
-    private double ResistorOutputVolts(double sensorC)
+    private double ResistorOutputVolts(double sensorC, double? rg, double? ro)
     {
         if (Defect == UnitDefect.OpenSensor)
         {
             return Parameters.OpenRailVolts;
         }
 
-        var rg = _fittedOhms[Design.GainPosition];
-        var ro = _fittedOhms[Design.OffsetPosition];
         var gain = rg is { } g ? 1.0 + (Design.GainFeedbackOhms / g) : 1.0;
         var offset = ro is { } o ? Design.OffsetNetworkReferenceVolts * Design.OffsetFeedbackOhms / o : 0.0;
         var forward = SensedVolts(sensorC);

@@ -20,7 +20,7 @@ internal static class FirmwareTrimExecutor
         var spec = sequence.Trim?.Firmware ?? throw new InvalidOperationException("Checked sequences with method 'firmware' have a firmware trim.");
         var name = step.DisplayName;
         var now = instruments.Now;
-        var points = TrimInputs.Points(step, unit);
+        var points = TrimInputs.Points(step, unit, context.Instruments.Fixture);
         var curve = TrimInputs.Curve(sequence, points, unit);
         var result = FirmwareTrim.Compute(spec, points, TrimInputs.ExtraCheckpoints(sequence, step), TrimAccuracy.FirmwareFitPoints(sequence, curve));
         if (!result.TryGetValue(out var trim))

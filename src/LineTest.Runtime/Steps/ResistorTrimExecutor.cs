@@ -24,7 +24,7 @@ internal static class ResistorTrimExecutor
         var spec = sequence.Trim?.Resistor ?? throw new InvalidOperationException("Checked sequences with method 'resistor' have a resistor trim.");
         var name = step.DisplayName;
         var now = instruments.Now;
-        var points = TrimInputs.Points(step, unit);
+        var points = TrimInputs.Points(step, unit, context.Instruments.Fixture);
         var curve = TrimInputs.Curve(sequence, points, unit);
         var result = ResistorTrim.Compute(spec, points, TrimInputs.ExtraCheckpoints(sequence, step), TrimAccuracy.Line(sequence, curve, points));
         if (!result.TryGetValue(out var trim))

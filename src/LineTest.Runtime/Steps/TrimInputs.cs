@@ -1,6 +1,7 @@
 using LineTest.Core.Calibration;
 using LineTest.Core.Decisions;
 using LineTest.Core.Fixtures;
+using LineTest.Core.Results;
 using LineTest.Core.Sequences;
 using LineTest.Core.Trims;
 using LineTest.Runtime.Batches;
@@ -12,11 +13,17 @@ namespace LineTest.Runtime.Steps;
 /// <summary>The calibration points and checkpoints a trim step hands to its trim calculation.</summary>
 internal static class TrimInputs
 {
-    /// <summary>The unit's mean (reference, output) at each of the step's points, in the step's order.</summary>
-    public static List<CalibrationPoint> Points(TrimStep step, UnitContext unit) =>
-        step.Points
-            .Select(p => new CalibrationPoint(p, unit.CalibrationPoints[p].ReferenceC, unit.CalibrationPoints[p].Output))
+    /// <summary>
+    /// The unit's mean (temperature, output) at each of the step's points, in the step's order: the temperature is the
+    /// reference reading plus the slot's well offset from the fixture's calibration (<see cref="FixtureDefinition.WellOffsetC"/>).
+    /// </summary>
+    public static List<CalibrationPoint> Points(TrimStep step, UnitContext unit, FixtureDefinition fixture)
+    {
+        var wellOffset = fixture.WellOffsetC(unit.Slot);
+        return step.Points
+            .Select(p => new CalibrationPoint(p, unit.CalibrationPoints[p].ReferenceC + wellOffset, unit.CalibrationPoints[p].Output))
             .ToList();
+    }
 
     /// <summary>Every calibration and predict-at setpoint, once, at its nominal temperature.</summary>
     public static List<TrimCheckpoint> Checkpoints(SequenceDefinition sequence, TrimStep step) =>
@@ -44,6 +51,19 @@ internal static class TrimInputs
         TrimAccuracy.Curve(sequence, points, Ideality(unit)) is { } result && result.TryGetValue(out var curve) ? curve : null;
 
     /// <summary>
+    /// The reference and output readings of the measure step that gave each of the trim's points (the last one recorded
+    /// at that setpoint), in the step's order; nulls where there is none. Only measure steps' readings count: an I–V
+    /// sweep at the same setpoint also records a <c>.reference</c> reading, with other samples and another uncertainty.
+    /// </summary>
+    public static List<(Reading? Reference, Reading? Output)> PointReadings(SequenceDefinition sequence, TrimStep step, UnitContext unit) =>
+        step.Points.Select(p =>
+        {
+            var names = sequence.Steps.OfType<MeasureStep>().Where(m => m.Setpoint == p).Select(m => m.DisplayName).ToHashSet(StringComparer.Ordinal);
+            return (unit.Readings.LastOrDefault(r => r.Step is { } s && names.Contains(s) && r.Name == $"{s}.reference"),
+                unit.Readings.LastOrDefault(r => r.Step is { } s && names.Contains(s) && r.Name == $"{s}.output"));
+        }).ToList();
+
+    /// <summary>
     /// Records the error budget over the rated range for a computed trim (<see cref="RatedRangeBudget"/>), from the
     /// reference and output readings the measure steps recorded at the trim's points; nothing without a rated range.
     /// </summary>
@@ -55,12 +75,10 @@ internal static class TrimInputs
             return;
         }
 
-        var uncertainties = step.Points.Select(p =>
+        var uncertainties = PointReadings(sequence, step, unit).Select(p =>
         {
-            var reference = unit.Readings.LastOrDefault(r => r.Setpoint == p && r.Name.EndsWith(".reference", StringComparison.Ordinal));
-            var output = unit.Readings.LastOrDefault(r => r.Setpoint == p && r.Name.EndsWith(".output", StringComparison.Ordinal));
-            var scale = output is not null && UnitsOfMeasure.IsKnown(output.Unit) ? UnitsOfMeasure.FromBase(1, output.Unit) : 1.0;
-            return TrimAccuracy.PointFrom(reference, output, scale);
+            var scale = p.Output is not null && UnitsOfMeasure.IsKnown(p.Output.Unit) ? UnitsOfMeasure.FromBase(1, p.Output.Unit) : 1.0;
+            return TrimAccuracy.PointFrom(p.Reference, p.Output, scale);
         }).ToList();
         var sweepSpread = unit.Sweeps.Count > 1
             ? Math.Sqrt(unit.Sweeps.Sum(s => Math.Pow(s.Fit.Ideality - curve.Ideality, 2)) / (unit.Sweeps.Count - 1) / unit.Sweeps.Count)

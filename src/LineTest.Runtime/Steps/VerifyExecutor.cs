@@ -40,11 +40,13 @@ internal sealed class VerifyExecutor : StepExecutor<VerifyStep>
         foreach (var (unit, rawValues, times) in outputs)
         {
             var values = SampleRounds.OutputsAtFinal(context, approach, unit, read, rawValues, times);
-            // Over the link the unit reports °C itself; from the meter its volts go through the target transfer.
+            // Over the link the unit reports °C itself; from the meter its volts go through the target transfer. The unit's
+            // well is the reference's plus the slot's well offset from the fixture's calibration.
+            var wellOffset = instruments.Fixture.WellOffsetC(unit.Slot);
             var errors = new double[values.Length];
             for (var i = 0; i < values.Length; i++)
             {
-                errors[i] = (overLink ? values[i] : (values[i] - offset) / slope) - references[i];
+                errors[i] = (overLink ? values[i] : (values[i] - offset) / slope) - (references[i] + wellOffset);
             }
 
             var meanError = errors.Average();

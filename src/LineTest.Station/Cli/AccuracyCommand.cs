@@ -75,5 +75,29 @@ public static class AccuracyCommand
             o.WriteLine(string.Create(inv,
                 $"{f.SequenceId,-18} {f.Fit,-15} {f.Units,6}  {f.RmsErrorC,8:F4}  {f.MaxAbsErrorC,11:F4}  {f.FloorRmsC,9:F4}  {f.Ratio,5:F2}  {f.VerifyBiasC,11:+0.0000;-0.0000}  {f.VerifyReadingMeanC,11:+0.0000;-0.0000}/{f.VerifyReadingSdC:F4}  {f.PredictedVerifyMeanC,9:+0.0000;-0.0000}/{f.PredictedVerifySdC:F4}"));
         }
+
+        var decomposed = figures.Where(f => f.Stages.Count > 0).ToList();
+        if (decomposed.Count == 0)
+        {
+            return;
+        }
+
+        o.WriteLine();
+        o.WriteLine("Where the error of a gain-and-offset trim comes from (ground truth; each stage adds one source to the ones above it):");
+        o.WriteLine();
+        o.WriteLine("sequence           fit              stage                         max|e| degC  rms degC   adds max  adds rms");
+        foreach (var f in decomposed)
+        {
+            foreach (var s in f.Stages)
+            {
+                o.WriteLine(string.Create(inv,
+                    $"{f.SequenceId,-18} {f.Fit,-15}  {s.Name,-28} {s.MaxAbsErrorC,11:F4}  {s.RmsErrorC,8:F4}  {s.StepMaxAbsC,9:F4}  {s.StepRmsC,8:F4}"));
+            }
+
+            if (f.DecompositionMismatches > 0)
+            {
+                o.WriteLine(string.Create(inv, $"{f.SequenceId,-18} {f.Fit,-15}  ({f.DecompositionMismatches} units' trims could not be recomputed exactly: the stages are approximate)"));
+            }
+        }
     }
 }

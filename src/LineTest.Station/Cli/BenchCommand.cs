@@ -30,6 +30,13 @@ public static class BenchCommand
             Description = "Instead of throughput: the true post-trim error over each sequence's rated range (simulator ground truth) per fit, against the error budget's floor",
         };
         var accuracyBatches = new Option<int>("--accuracy-batches") { Description = "Full batches per sequence and fit for --accuracy", DefaultValueFactory = _ => 25 };
+        var page = new Option<bool>("--page")
+        {
+            Description = "Instead of throughput: the shift of --shift-units with the live page closed and served in this process and polled, in --pairs alternating pairs",
+        };
+        var lineSeconds = new Option<double>("--page-line-seconds") { Description = "With --page: seconds between fetches of the line page", DefaultValueFactory = _ => 1 };
+        var yieldSeconds = new Option<double>("--page-yield-seconds") { Description = "With --page: seconds between fetches of the yield page and a serial search", DefaultValueFactory = _ => 5 };
+        var pairs = new Option<int>("--pairs") { Description = "Pairs of shifts (page closed, page open) for --page, after one warm-up pair", DefaultValueFactory = _ => 5 };
         var settle = new Option<string?>("--settle")
         {
             Description = "Settle every setpoint of every sequence in this mode (window or predictive) instead of as the sequence says",
@@ -41,7 +48,7 @@ public static class BenchCommand
         };
         var command = new Command("bench", "Simulated throughput against the baseline and the thermal bound, and the engine's own cost")
         {
-            sequences, fixture, batches, shiftUnits, json, accuracy, accuracyBatches, settle, maxExtrapolation,
+            sequences, fixture, batches, shiftUnits, json, accuracy, accuracyBatches, page, pairs, lineSeconds, yieldSeconds, settle, maxExtrapolation,
         };
         command.SetAction(async (parse, ct) =>
         {
@@ -105,6 +112,12 @@ public static class BenchCommand
             if (parse.GetValue(accuracy))
             {
                 return await AccuracyCommand.RunAsync(context, fx, loaded.Select(l => l.Sequence).ToList(), parse.GetValue(accuracyBatches), parse.GetValue(json), ct)
+                    .ConfigureAwait(false);
+            }
+
+            if (parse.GetValue(page))
+            {
+                return await PageBenchOutput.RunAsync(context, fx, loaded[0].Sequence, loaded[0].Sha256, shiftCount, parse.GetValue(pairs), (parse.GetValue(lineSeconds), parse.GetValue(yieldSeconds)), parse.GetValue(json), ct)
                     .ConfigureAwait(false);
             }
 

@@ -89,6 +89,7 @@ public static class AccuracyBench
         var verifyTrue = new List<double>();
         var verifyRead = new List<double>();
         var predicted = new List<(double Mean, double U)>();
+        var decomposition = AccuracyDecomposition.Applies(sequence) ? new AccuracyDecomposition() : null;
         for (var b = 0; b < batches; b++)
         {
             var loaded = new Dictionary<string, SimulatedUnit>(StringComparer.Ordinal);
@@ -114,6 +115,7 @@ public static class AccuracyBench
             {
                 var unit = loaded[run.Serial];
                 var errors = unit.TrueErrorsC(grid, target);
+                decomposition?.Add(sequence, unit, run, WellOffsetC(simulation, run.Slot), fixture.WellOffsetC(run.Slot), grid, errors);
                 squares.AddRange(errors.Select(e => e * e));
                 maxAbs = Math.Max(maxAbs, errors.Max(Math.Abs));
                 if (Value(run, ".predicted.floorRms") is { } floor)
@@ -152,8 +154,14 @@ public static class AccuracyBench
             verifyRead.Count == 0 ? double.NaN : verifyRead.Average(),
             Sd(verifyRead),
             predicted.Count == 0 ? double.NaN : predicted.Average(p => p.Mean),
-            predicted.Count == 0 ? double.NaN : Math.Sqrt(predicted.Average(p => p.U * p.U) + Math.Pow(Sd(predicted.Select(p => p.Mean).ToList()), 2)));
+            predicted.Count == 0 ? double.NaN : Math.Sqrt(predicted.Average(p => p.U * p.U) + Math.Pow(Sd(predicted.Select(p => p.Mean).ToList()), 2)),
+            decomposition?.Stages() ?? [],
+            decomposition?.Mismatches ?? 0);
     }
+
+    /// <summary>The simulator's true offset of a slot's well from the reference well, °C.</summary>
+    private static double WellOffsetC(SimulationDefinition simulation, int slot) =>
+        slot >= 1 && slot <= simulation.SlotOffsetsC.Count ? simulation.SlotOffsetsC[slot - 1] : 0.0;
 
     private static double? Value(RunRecord run, string suffix) =>
         run.Readings.FirstOrDefault(r => r.Name.EndsWith(suffix, StringComparison.Ordinal))?.Value;

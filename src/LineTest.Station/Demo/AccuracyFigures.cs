@@ -16,6 +16,8 @@ namespace LineTest.Station.Demo;
 /// <param name="VerifyReadingSdC">Their standard deviation, °C.</param>
 /// <param name="PredictedVerifyMeanC">Mean of the budget's predicted error at the verify temperature, °C.</param>
 /// <param name="PredictedVerifySdC">The spread the budget predicts there: √(mean u² + var of the predictions), °C.</param>
+/// <param name="Stages">Where a gain-and-offset trim's error comes from (<see cref="AccuracyDecomposition"/>); empty otherwise.</param>
+/// <param name="DecompositionMismatches">Units whose trim the decomposition could not recompute exactly (should be 0).</param>
 public sealed record AccuracyFigures(
     string SequenceId,
     string Fit,
@@ -27,7 +29,9 @@ public sealed record AccuracyFigures(
     double VerifyReadingMeanC,
     double VerifyReadingSdC,
     double PredictedVerifyMeanC,
-    double PredictedVerifySdC)
+    double PredictedVerifySdC,
+    IReadOnlyList<AccuracyStage> Stages,
+    int DecompositionMismatches)
 {
     /// <summary>RMS true error over the floor.</summary>
     public double Ratio => FloorRmsC > 0 ? RmsErrorC / FloorRmsC : double.PositiveInfinity;

@@ -1,5 +1,6 @@
 using System.Globalization;
 using System.Text;
+using LineTest.Factory.Forwarding;
 using LineTest.Reports.Loading;
 using LineTest.Storage.Sqlite;
 using LineTest.Storage.Store;
@@ -13,9 +14,19 @@ namespace LineTest.Web.Data;
 public sealed class SqliteFolderSource : IResultsSource
 {
     private readonly IReadOnlyList<string> _folders;
+    private readonly IFactoryBacklog? _backlog;
 
     /// <summary>Creates a source over <paramref name="folders"/> (full paths).</summary>
     public SqliteFolderSource(IReadOnlyList<string> folders)
+        : this(folders, null)
+    {
+    }
+
+    /// <summary>
+    /// Creates a source over one station's own folder, with that station's forwarding backlog on its tile (the page
+    /// inside a station that forwards to the factory database).
+    /// </summary>
+    public SqliteFolderSource(IReadOnlyList<string> folders, IFactoryBacklog? backlog)
     {
         ArgumentNullException.ThrowIfNull(folders);
         if (folders.Count == 0)
@@ -24,6 +35,12 @@ public sealed class SqliteFolderSource : IResultsSource
         }
 
         _folders = [.. folders.Select(Path.GetFullPath)];
+        if (backlog is not null && _folders.Count != 1)
+        {
+            throw new ArgumentException("A station's backlog belongs to its own folder only: give one folder with it.", nameof(backlog));
+        }
+
+        _backlog = backlog;
     }
 
     /// <inheritdoc />
@@ -33,6 +50,11 @@ public sealed class SqliteFolderSource : IResultsSource
     public async Task<string> ReadChangeMarkAsync(CancellationToken ct)
     {
         var mark = new StringBuilder();
+        if (_backlog?.Current is { } backlog)
+        {
+            mark.Append(CultureInfo.InvariantCulture, $"{backlog.Count},{backlog.FailedAttempts},{backlog.LastForwardedUtc?.UtcTicks}|");
+        }
+
         foreach (var folder in _folders)
         {
             var reader = SqliteResultReader.InDirectory(folder);
@@ -87,7 +109,7 @@ public sealed class SqliteFolderSource : IResultsSource
                     }
                 }
 
-                stations.Add(new StationRuns(name, folder, runs, live, null));
+                stations.Add(new StationRuns(name, folder, runs, live, null) { Backlog = _backlog?.Current });
             }
             catch (ResultStoreException ex)
             {

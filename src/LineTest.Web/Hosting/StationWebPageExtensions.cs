@@ -51,7 +51,8 @@ public static class StationWebPageExtensions
                 options,
                 folder,
                 provider.GetService<TimeProvider>() ?? TimeProvider.System,
-                loggers) with { Shifts = shifts! });
+                loggers,
+                provider.GetService<Factory.Forwarding.IFactoryBacklog>()) with { Shifts = shifts! });
         });
         return true;
     }

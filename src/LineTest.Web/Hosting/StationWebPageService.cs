@@ -36,7 +36,8 @@ internal sealed class StationWebPageService : IHostedService, IAsyncDisposable
         }
     }
 
-    /// <summary>The setup for one results folder.</summary>
-    public static WebPageSetup Setup(Access.ListenAddress listen, WebPageOptions options, string resultsDirectory, TimeProvider time, ILoggerFactory loggers) =>
-        new(listen, options, new SqliteFolderSource([resultsDirectory])) { Time = time, Loggers = loggers };
+    /// <summary>The setup for the station's own results folder, with its forwarding backlog when it forwards.</summary>
+    public static WebPageSetup Setup(
+        Access.ListenAddress listen, WebPageOptions options, string resultsDirectory, TimeProvider time, ILoggerFactory loggers, Factory.Forwarding.IFactoryBacklog? backlog = null) =>
+        new(listen, options, new SqliteFolderSource([resultsDirectory], backlog)) { Time = time, Loggers = loggers };
 }

@@ -51,6 +51,7 @@ public static class WebPageApp
         builder.Services.AddSingleton(new ShiftCalendar(setup.Shifts.Starts));
         builder.Services.AddSingleton(new WebCredentials(setup.Options));
         builder.Services.AddSingleton<LineMonitor>();
+        builder.Services.AddSingleton<PageSnapshots>();
         configure?.Invoke(builder);
 
         var app = builder.Build();

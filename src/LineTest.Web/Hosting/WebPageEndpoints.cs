@@ -81,19 +81,28 @@ internal static class WebPageEndpoints
         }
     }
 
-    private static async Task<IResult> YieldAsync(HttpContext context, IResultsSource source, ShiftCalendar shifts, TimeProvider time)
+    private static Task<IResult> YieldAsync(HttpContext context, IResultsSource source, ShiftCalendar shifts, TimeProvider time, PageSnapshots snapshots) =>
+        snapshots.GetAsync(Key(context), () => YieldPageAsync(context, source, shifts, time), context.RequestAborted);
+
+    private static async Task<IResult> YieldPageAsync(HttpContext context, IResultsSource source, ShiftCalendar shifts, TimeProvider time)
     {
+        // Without dates, the last days only: the source reads that window (SQL), never every run stored.
         return await Guarded(context, source, time, "Yield", "/yield", async (filters, products, query) =>
         {
             var data = await source.LoadAsync(query with { GroupBy = ReportGrouping.Day }, withReadings: false, context.RequestAborted).ConfigureAwait(false);
             var report = ReportBuilder.Build(data, query, time);
-            return YieldPage.Main(filters.Form("/yield", products), report, YieldPage.ByShift(data.Runs, shifts), Html.Query(filters.Pairs()));
-        }).ConfigureAwait(false);
+            var form = filters.Form("/yield", products) + (filters.IsDefaultWindow ? YieldPage.DefaultWindowNote(filters) : string.Empty);
+            return YieldPage.Main(form, report, YieldPage.ByShift(data.Runs, shifts), Html.Query(filters.Pairs()));
+        }, filters => filters.WithDefaultWindow(time.GetUtcNow())).ConfigureAwait(false);
     }
 
-    private static async Task<IResult> ParetoSvgAsync(HttpContext context, IResultsSource source, TimeProvider time)
+    private static Task<IResult> ParetoSvgAsync(HttpContext context, IResultsSource source, TimeProvider time, PageSnapshots snapshots) =>
+        snapshots.GetAsync(Key(context), () => ParetoSvgMadeAsync(context, source, time), context.RequestAborted);
+
+    private static async Task<IResult> ParetoSvgMadeAsync(HttpContext context, IResultsSource source, TimeProvider time)
     {
-        var (query, _) = PageFilters.Read(context.Request.Query).ToQuery(await source.ReadProductsAsync(context.RequestAborted).ConfigureAwait(false));
+        var (query, _) = PageFilters.Read(context.Request.Query).WithDefaultWindow(time.GetUtcNow())
+            .ToQuery(await source.ReadProductsAsync(context.RequestAborted).ConfigureAwait(false));
         if (query is null)
         {
             return Results.BadRequest();
@@ -196,11 +205,13 @@ internal static class WebPageEndpoints
         TimeProvider time,
         string title,
         string section,
-        Func<PageFilters, IReadOnlyList<Storage.Sqlite.ProductSequence>, ReportQuery, Task<string>> render)
+        Func<PageFilters, IReadOnlyList<Storage.Sqlite.ProductSequence>, ReportQuery, Task<string>> render,
+        Func<PageFilters, PageFilters>? defaults = null)
     {
         try
         {
             var filters = PageFilters.Read(context.Request.Query);
+            filters = defaults?.Invoke(filters) ?? filters;
             var products = await source.ReadProductsAsync(context.RequestAborted).ConfigureAwait(false);
             var (query, problems) = filters.ToQuery(products);
             if (query is null)
@@ -224,6 +235,8 @@ internal static class WebPageEndpoints
         var page = PageFrame.Page(title, section, PageFrame.Notice("The results could not be read: " + ex.Message), Footer(source, time));
         return Results.Content(page, "text/html; charset=utf-8", Encoding.UTF8, StatusCodes.Status503ServiceUnavailable);
     }
+
+    private static string Key(HttpContext context) => context.Request.Path.Value + context.Request.QueryString.Value;
 
     private static string Footer(IResultsSource source, TimeProvider time) =>
         $"LineTest, read-only · {source.Description} · page made {Html.Utc(time.GetUtcNow())}";

@@ -80,6 +80,8 @@ public static class LineTiles
             LastVerdict = last >= 0 ? runs.Verdict(last) : null,
             LastEndedUtc = last >= 0 ? runs.EndedUtc(last) : null,
             LastReason = last >= 0 ? runs.Outcome(last) is { } o ? o.FailureName ?? o.ErrorReason : null : null,
+            Factory = station.Factory,
+            Backlog = station.Backlog,
         };
     }
 
@@ -88,6 +90,12 @@ public static class LineTiles
         if (station.Problem is not null)
         {
             return ("cannot be read", "unreadable");
+        }
+
+        if (station.Factory is { } factory)
+        {
+            // Units in progress are not forwarded: from the factory database, only what arrived can be told.
+            return ($"last run received {Clock(factory.LastReceivedUtc)}", "forwarded");
         }
 
         if (station.Live is not { } live)

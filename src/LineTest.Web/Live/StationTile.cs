@@ -1,4 +1,6 @@
 using LineTest.Core.Results;
+using LineTest.Factory.Forwarding;
+using LineTest.Factory.Reporting;
 
 namespace LineTest.Web.Live;
 
@@ -43,4 +45,10 @@ public sealed record StationTile
 
     /// <summary>Why the last run failed or erred.</summary>
     public string? LastReason { get; init; }
+
+    /// <summary>What the factory database holds of the station (forwarding), when the page reads the factory database.</summary>
+    public FactoryStationHead? Factory { get; init; }
+
+    /// <summary>The station's own forwarding backlog (the page inside a forwarding station), or null.</summary>
+    public FactoryBacklogStatus? Backlog { get; init; }
 }

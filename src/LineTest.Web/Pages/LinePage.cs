@@ -1,5 +1,6 @@
 using System.Globalization;
 using System.Text;
+using LineTest.Factory.Reporting;
 using LineTest.Reports.Building;
 using LineTest.Web.Live;
 
@@ -56,10 +57,47 @@ internal static class LinePage
                 html.Append("No run today.");
             }
 
-            html.Append("</p><p class=\"where\">").Append(Html.E(t.Where)).Append("</p></section>");
+            html.Append("</p>");
+            if (t.Factory is { } factory)
+            {
+                Forwarding(html, factory);
+            }
+
+            if (t.Backlog is { } backlog)
+            {
+                // Counted by the station itself: runs stored and not yet committed by the factory database.
+                html.Append("<p class=\"backlog\" data-key=\"backlog\">").Append(Html.E(backlog.Describe())).Append("</p>");
+            }
+
+            html.Append("<p class=\"where\">").Append(Html.E(t.Where)).Append("</p></section>");
         }
 
         return html.ToString();
+    }
+
+    /// <summary>
+    /// What the factory database holds of the station. The server cannot count the station's backlog (runs stored but
+    /// not sent never reach it), so the tile says what it does know and where the backlog is counted.
+    /// </summary>
+    private static void Forwarding(StringBuilder html, FactoryStationHead f)
+    {
+        html.Append("<div class=\"forwarding\"><h3>Forwarded to the factory database</h3><dl>");
+        Item(html, "Runs held", NumberText.Count(f.RunsHeld), "factory-runs");
+        Item(html, "Through station seq", f.HeadSeq.ToString(CultureInfo.InvariantCulture), "factory-head-seq");
+        Item(html, "Last received (server clock)", Html.Utc(f.LastReceivedUtc), "factory-received");
+        Item(html, "Newest run held ended (station clock)", f.LastEndedUtc is { } ended ? Html.Utc(ended) : NumberText.NotDefined, "factory-ended");
+        if (f.Refused > 0)
+        {
+            Item(html, "Runs refused (alarms)", NumberText.Count(f.Refused), "factory-refused");
+        }
+
+        if (f.Chains > 1)
+        {
+            Item(html, "Station databases", f.Chains.ToString(CultureInfo.InvariantCulture), "factory-chains");
+        }
+
+        html.Append("</dl><p class=\"note\">Backlog: runs this station stored but has not sent yet cannot be seen from here; ")
+            .Append("the station counts them (its screen and its own page). While it tests, a last-received time that stops moving means runs are waiting.</p></div>");
     }
 
     private static string Count(int n) => NumberText.Count(n);

@@ -13,6 +13,9 @@ namespace LineTest.Web.Pages;
 /// </summary>
 internal sealed record PageFilters
 {
+    /// <summary>Days the yield page shows when no date is chosen: today (UTC) and the six days before.</summary>
+    public const int DefaultDays = 7;
+
     public string? Station { get; init; }
 
     public string? Lot { get; init; }
@@ -24,6 +27,30 @@ internal sealed record PageFilters
     public string? From { get; init; }
 
     public string? To { get; init; }
+
+    /// <summary>True when the dates were not chosen but filled in by <see cref="WithDefaultWindow"/>.</summary>
+    public bool IsDefaultWindow { get; init; }
+
+    /// <summary>
+    /// With no date chosen, the last <see cref="DefaultDays"/> days up to <paramref name="now"/>'s day (UTC), written
+    /// into <c>from</c> and <c>to</c> so the form shows them, links keep them and the source reads only that window;
+    /// with either date chosen, unchanged.
+    /// </summary>
+    public PageFilters WithDefaultWindow(DateTimeOffset now)
+    {
+        if (From is not null || To is not null)
+        {
+            return this;
+        }
+
+        var today = DateOnly.FromDateTime(now.UtcDateTime);
+        return this with
+        {
+            From = today.AddDays(1 - DefaultDays).ToString("yyyy-MM-dd", CultureInfo.InvariantCulture),
+            To = today.ToString("yyyy-MM-dd", CultureInfo.InvariantCulture),
+            IsDefaultWindow = true,
+        };
+    }
 
     /// <summary>Reads the filters from a query string.</summary>
     public static PageFilters Read(IQueryCollection query) => new()

@@ -27,6 +27,11 @@ internal static class YieldPage
         return [.. byStart.Select(kv => (kv.Key, YieldAnalysis.Summarize(runs.Outcomes(kv.Value))))];
     }
 
+    /// <summary>Says that the dates shown were chosen by the page, and how to see another window.</summary>
+    public static string DefaultWindowNote(PageFilters filters) =>
+        "<p class=\"note\">The last " + PageFilters.DefaultDays.ToString(System.Globalization.CultureInfo.InvariantCulture) + " days ("
+        + Html.E(filters.From) + " to " + Html.E(filters.To) + ", UTC) unless other dates are chosen above.</p>";
+
     /// <summary>The page's main content.</summary>
     public static string Main(string form, QualityReport report, IReadOnlyList<(DateTimeOffset Start, YieldSummary Yield)> shifts, string chartQuery)
     {

@@ -66,4 +66,21 @@ public sealed class TrimAccuracyTests
 
         Assert.Null(TrimAccuracy.Curve(sequence, [new("a", -20, 1), new("b", 40, 2)], null));
     }
+
+    [Fact]
+    public void CodeObjectiveC_MinimaxOverTheRatedRangeThroughPointsAtThePointsNoneWithoutAccuracyFields()
+    {
+        CalibrationPoint[] points = [new("a", -19.99, 1), new("b", 40.01, 2)];
+        var minimax = Sequence(Model) with { Trim = Sequence(Model).Trim! with { Method = TrimMethods.Dac, Fit = TrimFits.Minimax } };
+        var through = minimax with { Trim = minimax.Trim! with { Fit = TrimFits.ThroughPoints } };
+
+        var range = TrimAccuracy.CodeObjectiveC(minimax, points)!;
+
+        Assert.Equal(TrimAccuracy.CodeObjectiveSamples, range.Count);
+        Assert.Equal(-20.0, range[0]);
+        Assert.Equal(40.0, range[^1]);
+        Assert.Equal(0.5, range[1] - range[0], 12);
+        Assert.Equal([-19.99, 40.01], TrimAccuracy.CodeObjectiveC(through, points)!);
+        Assert.Null(TrimAccuracy.CodeObjectiveC(through with { RatedRange = null, Trim = through.Trim! with { SensorModel = null } }, points));
+    }
 }

@@ -38,6 +38,7 @@ public sealed class FixtureLoaderTests
         ["zero meter range"] = new("\"rangeVolts\": 10,", "\"rangeVolts\": 0,", "rangeVolts", "$.meter.rangeVolts", "must be a number above 0 and at most 1000 V, not 0"),
         ["defect rate above one"] = new("\"defectRate\": 0.04", "\"defectRate\": 4", "defectRate", "$.simulation.defectRate", "must be a number 0 … 1, not 4"),
         ["more slot offsets than slots"] = new("[ 0.0, 0.01, -0.01, 0.02 ]", "[ 0.0, 0.01, -0.01, 0.02, 0.03 ]", "slotOffsetsC", "$.simulation.slotOffsetsC", "more offsets (5) than slots (4)"),
+        ["well offset beyond its bound"] = new("\"supplyChannel\": 114, \"supplyShuntOhms\": 10 }", "\"supplyChannel\": 114, \"supplyShuntOhms\": 10, \"wellOffsetC\": 12 }", "\"slot\": 4", "$.slots[3].wellOffsetC", "must be a number -10 … 10 °C, not 12"),
         ["misspelt key"] = new("\"standbyC\": 23,", "\"standbyTempC\": 23,", "standbyTempC", "$.source.standbyTempC", "unknown property 'standbyTempC'", ProblemCount: 2),
         ["string where a whole number is"] = new("\"outputChannel\": 103", "\"outputChannel\": \"103\"", "\"slot\": 3", "$.slots[2].outputChannel", "expected a whole number"),
         ["missing required source property"] = new("    \"standbyC\": 23,\n", string.Empty, "\"source\": {", "$.source", "missing required property 'standbyC'"),

@@ -60,4 +60,14 @@ public sealed class IndividualsChartTests
         Assert.False(outcome.IsComputed);
         Assert.Contains("zero", outcome.Reason, StringComparison.Ordinal);
     }
+
+    // Regression (report fuzzing, a readings CSV with a value of -1.797E308 beside ordinary ones): the moving range
+    // overflowed to infinity and the run rules threw instead of the chart being reported as not computed.
+    [Fact]
+    public void Compute_ValuesWhoseMovingRangeOverflows_NotComputedNoThrow()
+    {
+        var outcome = IndividualsChart.Compute([2.5, -1.7976931348623157e308, 2.6, 2.45]);
+        Assert.False(outcome.IsComputed);
+        Assert.Contains("not finite", outcome.Reason, StringComparison.Ordinal);
+    }
 }

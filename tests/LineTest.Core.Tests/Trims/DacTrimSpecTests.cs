@@ -39,4 +39,22 @@ public sealed class DacTrimSpecTests
              new SpecProblem("target.slopeVoltsPerC", "must be a finite number other than 0")],
             problems);
     }
+
+    [Theory]
+    [InlineData(0)]
+    [InlineData(21)]
+    public void Check_CheckPairsOutsideItsBound_NamesTheKey(int pairs)
+    {
+        var spec = new DacTrimSpec
+        {
+            Gain = new DacChannelSpec { Min = 0, Max = 4095, Nominal = 2048, Step = 0.001, Register = "GAIN" },
+            Offset = new DacChannelSpec { Min = 0, Max = 4095, Nominal = 2048, Step = 0.001, Register = "OFFS" },
+            Target = new LinearTransfer { OffsetVolts = 0.5, SlopeVoltsPerC = 0.01 },
+            CheckPairs = pairs,
+        };
+
+        var problem = Assert.Single(spec.Check());
+
+        Assert.Equal("checkPairs", problem.Path);
+    }
 }

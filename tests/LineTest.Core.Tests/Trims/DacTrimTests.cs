@@ -43,6 +43,21 @@ public sealed class DacTrimTests
     }
 
     [Fact]
+    public void Compute_WithObjectiveTemperatures_ChoosesTheCodesTogether()
+    {
+        // The hand-worked unit above, judged at its two points [derived, see DacCodeSearchTests]: 2101/2063 leaves −0.062
+        // and −0.027 °C where the independently rounded 2101/2064 leaves +0.038 and +0.073 °C.
+        CalibrationPoint[] points = [new("cold", 0, 0.46), new("hot", 100, 1.41)];
+
+        var result = DacTrim.Compute(Spec, points, 2048, 2048, objectiveC: [0.0, 100.0]).Value;
+
+        Assert.Equal(2101, result.GainCode);
+        Assert.Equal(2063, result.OffsetCode);
+        Assert.Equal(-0.062, result.PredictedErrors[0].ErrorC, 9);
+        Assert.Equal(-0.027, result.PredictedErrors[1].ErrorC, 9);
+    }
+
+    [Fact]
     public void Compute_UnitAlreadyOnTarget_KeepsItsCodes()
     {
         // Hand-worked. Calibrated with g0 = 2000 (G/G_design = 1 − 0.048 = 0.952) and o0 = 2100 (O = 0.052 V).

@@ -101,6 +101,28 @@ public sealed partial class HtmlReportWriterTests
         Assert.True(inked > samples / 100, $"only {inked} of {samples} sampled pixels are dark");
     }
 
+    // Regression (report fuzzing): a readings CSV with a value of -1.797E308 among ordinary ones made the run rules
+    // throw on an infinite σ and the histogram's axis overflow to -∞ (ScottPlot refused it), so the page was not
+    // written. Now the control chart is reported as not computed and the histogram is left out.
+    [Fact]
+    public void Write_ValueNearTheLargestDouble_WritesThePage()
+    {
+        const string csv =
+            "serial,name,value,unit,low,high\n" +
+            "A1,offset,2.5,V,0,5\n" +
+            "A2,offset,-1.7976931348623157e308,V,0,5\n" +
+            "B1,offset,2.6,V,0,5\n" +
+            "A3,offset,2.45,V,0,5\n";
+        var loaded = CsvReadingsLoader.Load(new StringReader(csv), "readings.csv", ReportQuery.All, skipBadRows: false);
+        Assert.True(loaded.IsUsable, loaded.FileError);
+        var report = ReportBuilder.Build(loaded.Data!, ReportQuery.All, new FakeTimeProvider(new DateTimeOffset(2025, 3, 5, 8, 0, 0, TimeSpan.Zero)));
+
+        var html = HtmlReportWriter.ToHtml(report);
+
+        Assert.Contains("offset", html, StringComparison.Ordinal);
+        Assert.Null(report.Readings.Single().Chart);
+    }
+
     // Regression: the readings table (twelve columns, long reading names, the products each figure covers) ran past
     // the page column on screen and off the paper in print. Laid out by the browser itself: every table must sit inside
     // the column of main, on a 1280 px screen (a 960 px column) and with the print rules on a sheet of A4 less the

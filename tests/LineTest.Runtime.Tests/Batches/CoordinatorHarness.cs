@@ -21,12 +21,16 @@ internal sealed class CoordinatorHarness
     public const string FirmwareSequence = "sequences/ctp40d-firmware.json";
 
     public CoordinatorHarness(
-        int seed = 11, Func<SequenceDefinition, SequenceDefinition>? editSequence = null, IRunSink? sink = null, string sequenceFile = DacSequence,
+        int seed = 11,
+        Func<SequenceDefinition, SequenceDefinition>? editSequence = null,
+        IRunSink? sink = null,
+        string sequenceFile = DacSequence,
+        Func<FixtureDefinition, FixtureDefinition>? editFixture = null,
         Func<SimulatedRig, RigInstruments>? instruments = null)
     {
         var fixture = DefinitionFile.Fixture(RepoFiles.Path("fixtures/sim-dryblock-4.json"));
         Assert.True(fixture.IsSuccess, string.Join("\n", fixture.Problems));
-        Fixture = fixture.Value!;
+        Fixture = editFixture is null ? fixture.Value! : editFixture(fixture.Value!);
         var sequence = DefinitionFile.Sequence(RepoFiles.Path(sequenceFile), Fixture);
         Assert.True(sequence.IsSuccess, string.Join("\n", sequence.Problems));
         // The committed sequences mark their setpoint order free; the harness pins file order so that tests name the

@@ -57,7 +57,7 @@ public sealed class CheckCommandTests
     public async Task Check_TrailingCommaAndKeyGivenTwice_ExitsTwoWithTheirLines()
     {
         // Regression: both passed check; the second of two keys silently won.
-        var path = Edited("\"revision\": 2,", "\"revision\": 2,\n  \"revision\": 3,");
+        var path = Edited("\"revision\": 3,", "\"revision\": 3,\n  \"revision\": 4,");
         File.WriteAllText(path, File.ReadAllText(path).Replace("\"verify\", \"celsius\": 5 }", "\"verify\", \"celsius\": 5 },", StringComparison.Ordinal));
 
         var (exit, _, error) = await CliRunner.RunAsync("check", path);

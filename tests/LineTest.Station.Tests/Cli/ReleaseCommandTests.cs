@@ -42,7 +42,7 @@ public sealed class ReleaseCommandTests
         var (exit, _, error) = await CliRunner.RunAsync("demo", "--units", "2", "--results", results, "--production", "--sequence", changed);
 
         Assert.Equal(2, exit);
-        Assert.Contains($"differs from the released ctp40a-dac r2: released {Sha256Of(released)}, file {Sha256Of(changed)}", error, StringComparison.Ordinal);
+        Assert.Contains($"differs from the released ctp40a-dac r3: released {Sha256Of(released)}, file {Sha256Of(changed)}", error, StringComparison.Ordinal);
         using var connection = new SqliteConnection($"Data Source={Path.Combine(results, "results.db")};Mode=ReadOnly;Pooling=False");
         connection.Open();
         using var command = connection.CreateCommand();
@@ -89,7 +89,7 @@ public sealed class ReleaseCommandTests
         var (exit, output, error) = await CliRunner.RunAsync("release", sequence, "--by", "engineer two", "--results", results);
 
         Assert.True(exit == 0, error);
-        Assert.Contains($"revision 2 of ctp40a-dac ({Sha256Of(sequence)}) is already released, by engineer one", output, StringComparison.Ordinal);
+        Assert.Contains($"revision 3 of ctp40a-dac ({Sha256Of(sequence)}) is already released, by engineer one", output, StringComparison.Ordinal);
         Assert.Contains("nothing changed", output, StringComparison.Ordinal);
         Assert.Equal(1L, Scalar(results, "SELECT count(*) FROM releases"));
     }
@@ -106,7 +106,7 @@ public sealed class ReleaseCommandTests
         var (exit, _, error) = await CliRunner.RunAsync("release", changed, "--by", "engineer", "--results", results);
 
         Assert.Equal(1, exit);
-        Assert.Contains($"revision 2 of ctp40a-dac is already released as {Sha256Of(released)}", error, StringComparison.Ordinal);
+        Assert.Contains($"revision 3 of ctp40a-dac is already released as {Sha256Of(released)}", error, StringComparison.Ordinal);
         Assert.Contains("raise the revision", error, StringComparison.Ordinal);
         Assert.Equal(1L, Scalar(results, "SELECT count(*) FROM releases"));
     }
@@ -125,11 +125,11 @@ public sealed class ReleaseCommandTests
         var (listExit, listOut, _) = await CliRunner.RunAsync("release", "--list", "--results", results);
 
         Assert.True(revokeExit == 0, revokeErr);
-        Assert.Contains($"Revoked ctp40a-dac r2 (sha256 {sha}) by quality lead", revokeOut, StringComparison.Ordinal);
+        Assert.Contains($"Revoked ctp40a-dac r3 (sha256 {sha}) by quality lead", revokeOut, StringComparison.Ordinal);
         Assert.Equal(2, demoExit);
         Assert.Contains("was revoked by quality lead", demoErr, StringComparison.Ordinal);
         Assert.Equal(0, listExit);
-        Assert.Contains($"ctp40a-dac r2  {sha}  released by engineer", listOut, StringComparison.Ordinal);
+        Assert.Contains($"ctp40a-dac r3  {sha}  released by engineer", listOut, StringComparison.Ordinal);
         Assert.Contains("REVOKED by quality lead", listOut, StringComparison.Ordinal);
         Assert.Equal(0L, Scalar(results, "SELECT count(*) FROM runs"));
         Assert.Equal(0, (await CliRunner.RunAsync("verify", "--results", results)).Exit);

@@ -55,4 +55,31 @@ public sealed class AccuracyBenchTests
         Assert.InRange(model.Ratio, 0.5, 1.5);
         Assert.True(straight.Ratio > 5, $"straight line ratio {straight.Ratio}");
     }
+
+    /// <summary>
+    /// The decomposition must account for the whole error the bench measures (its last stage is the simulator's truth),
+    /// recompute exactly the trims the station wrote, and start from the floor Chebyshev's theorem gives: for a bow close
+    /// to a parabola over the calibration span, the minimax line's largest error is half that of the chord through the
+    /// ends (approximation-theory textbooks, e.g. Powell, Approximation Theory and Methods [from memory]; ratio 0.5 for
+    /// x² on an interval [derived]).
+    /// </summary>
+    [Fact]
+    public async Task MeasureAsync_DacDemo_DecompositionAccountsForTheWholeErrorFromTheChebyshevFloor()
+    {
+        var variants = AccuracyBench.Variants(Sequence("ctp40a-dac.json"));
+
+        var through = await AccuracyBench.MeasureAsync(Fixture, variants.Single(v => v.Fit == TrimFits.ThroughPoints).Sequence, "tp", 3, 7, null, CancellationToken.None);
+        var minimax = await AccuracyBench.MeasureAsync(Fixture, variants.Single(v => v.Fit == TrimFits.Minimax).Sequence, "mm", 3, 7, null, CancellationToken.None);
+
+        foreach (var figures in new[] { through, minimax })
+        {
+            Assert.Equal(AccuracyDecomposition.StageNames, figures.Stages.Select(s => s.Name));
+            Assert.Equal(0, figures.DecompositionMismatches);
+            Assert.Equal(figures.MaxAbsErrorC, figures.Stages[^1].MaxAbsErrorC, 12);
+            Assert.Equal(figures.RmsErrorC, figures.Stages[^1].RmsErrorC, 12);
+        }
+
+        Assert.InRange(minimax.Stages[0].MaxAbsErrorC / through.Stages[0].MaxAbsErrorC, 0.49, 0.51);
+        Assert.Equal(0.0, through.Stages[1].StepMaxAbsC, 9);
+    }
 }

@@ -40,6 +40,24 @@ public sealed partial class WebPageEndpointsTests : IAsyncLifetime
     }
 
     [Fact]
+    public async Task Line_PageInsideAForwardingStation_TileShowsTheStationsOwnBacklog()
+    {
+        var backlog = new FixedBacklog(new LineTest.Factory.Forwarding.FactoryBacklogStatus(
+            3, new DateTimeOffset(2026, 12, 3, 9, 40, 0, TimeSpan.Zero), null, "connection refused", 4));
+        await using var host = await PageHost.StartAsync(
+            Directory.CreateTempSubdirectory("linetest-web-backlog-").FullName, new LineTest.Web.Data.SqliteFolderSource([_host.StationA], backlog));
+
+        var (_, waiting, _) = await host.SendAsync("/");
+        backlog.Current = new LineTest.Factory.Forwarding.FactoryBacklogStatus(0, null, PageHost.Now, null, 0);
+        host.Clock.Advance(TimeSpan.FromSeconds(5));
+        var (_, caughtUp, _) = await host.SendAsync("/");
+
+        Assert.Equal("factory: 3 run(s) waiting since 2026-12-03 09:40 UTC (connection refused; attempt 4)", Figure(Tile(waiting, "ST-01"), "backlog"));
+        Assert.Equal("factory: up to date", Figure(Tile(caughtUp, "ST-01"), "backlog"));
+        Assert.DoesNotContain("data-key=\"backlog\"", (await _host.SendAsync("/")).Body, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public async Task LineEvents_FirstEvent_CarriesTheTiles()
     {
         using var cancel = new CancellationTokenSource();
@@ -73,8 +91,35 @@ public sealed partial class WebPageEndpointsTests : IAsyncLifetime
 
         // The failure Pareto names the failing reading of both failed runs, and links its chart with the filters.
         Assert.Matches("<td>verify.error</td><td class=\"n\">2</td>", allHtml);
-        Assert.Contains("src=\"/yield/pareto.svg\"", allHtml, StringComparison.Ordinal);
+        Assert.Contains("src=\"/yield/pareto.svg?from=2026-11-27&amp;to=2026-12-03\"", allHtml, StringComparison.Ordinal);
         Assert.Contains("2026-12-03 06:00", allHtml, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public async Task Yield_NoDates_ReadsOnlyTheLastSevenDaysAndShowsThemInTheFilters()
+    {
+        // Four runs of ST-02 ended on 2026-11-20, before the default window (2026-11-27 … 2026-12-03).
+        await PageHost.WriteAsync(_host.StationB, Enumerable.Range(1, 4).Select(i => new LineTest.TestSupport.Builders.RunRecordBuilder()
+            .WithSerial($"CTP40A-2611-2000{i:D2}").WithStation("ST-02").WithLot("L-OLD")
+            .StartedAt(new DateTimeOffset(2026, 11, 20, 8, 0, 0, TimeSpan.Zero).AddMinutes(15 * i)).WithReadings(PageHost.Readings(0.01, PageHost.Now)).Build()));
+
+        var (status, html, _) = await _host.SendAsync("/yield");
+        var (_, allHtml, _) = await _host.SendAsync("/yield?from=2026-11-01");
+
+        Assert.Equal(HttpStatusCode.OK, status);
+        Assert.Contains("<th scope=\"row\">Runs</th><td>27</td>", html, StringComparison.Ordinal);
+        Assert.Contains("name=\"from\" value=\"2026-11-27\"", html, StringComparison.Ordinal);
+        Assert.Contains("name=\"to\" value=\"2026-12-03\"", html, StringComparison.Ordinal);
+        Assert.Contains("The last 7 days", html, StringComparison.Ordinal);
+        Assert.Contains("from=2026-11-27&amp;to=2026-12-03", html, StringComparison.Ordinal);
+        Assert.Contains("<th scope=\"row\">Runs</th><td>31</td>", allHtml, StringComparison.Ordinal);
+        Assert.DoesNotContain("The last 7 days", allHtml, StringComparison.Ordinal);
+
+        // The window reaches the source: it is asked for those days only, not for every run to be cut afterwards.
+        var (query, withReadings) = _host.Source.Loads.First();
+        Assert.False(withReadings);
+        Assert.Equal(new DateTimeOffset(2026, 11, 27, 0, 0, 0, TimeSpan.Zero), query.FromUtc);
+        Assert.Equal(new DateTimeOffset(2026, 12, 4, 0, 0, 0, TimeSpan.Zero), query.ToUtc);
     }
 
     [Fact]

@@ -26,12 +26,20 @@ internal sealed class PageHost : IAsyncDisposable
 
     public const string Token = "correct-horse-battery-staple-7d3f";
 
-    private PageHost(string root, WebApplication app, RecordingLoggerProvider log)
+    private PageHost(string root, WebApplication app, RecordingLoggerProvider log, QueryRecordingSource source, FakeTimeProvider clock)
     {
+        Clock = clock;
         Root = root;
         App = app;
         Log = log;
+        Source = source;
     }
+
+    /// <summary>The page's clock, starting at <see cref="Now"/>.</summary>
+    public FakeTimeProvider Clock { get; }
+
+    /// <summary>The page's source, recording what the page loads.</summary>
+    public QueryRecordingSource Source { get; }
 
     public string Root { get; }
 
@@ -46,23 +54,36 @@ internal sealed class PageHost : IAsyncDisposable
     /// <summary>ST-01: 20 units from 06:10, three failing verify.error and retested to pass, one error; ST-02: 5 units of lot L-B.</summary>
     public static async Task<PageHost> StartAsync(WebPageOptions? options = null, string listen = "127.0.0.1:0", NamedShifts? shifts = null)
     {
+        var root = await WriteStationsAsync();
+        return await StartAsync(root, new SqliteFolderSource([Path.Combine(root, "st01"), Path.Combine(root, "st02")]), options, listen, shifts);
+    }
+
+    /// <summary>A temporary folder with the two stations' results folders <c>st01</c> and <c>st02</c>.</summary>
+    public static async Task<string> WriteStationsAsync()
+    {
         var root = Directory.CreateTempSubdirectory("linetest-web-").FullName;
         await WriteAsync(Path.Combine(root, "st01"), StationARuns());
         await WriteAsync(Path.Combine(root, "st02"), StationBRuns());
+        return root;
+    }
+
+    /// <summary>The page over <paramref name="inner"/> (e.g. the factory database); <paramref name="root"/> is deleted at the end.</summary>
+    public static async Task<PageHost> StartAsync(
+        string root, IResultsSource inner, WebPageOptions? options = null, string listen = "127.0.0.1:0", NamedShifts? shifts = null)
+    {
         var log = new RecordingLoggerProvider();
         var loggers = LoggerFactory.Create(b => b.AddProvider(log).SetMinimumLevel(LogLevel.Information));
-        var setup = new WebPageSetup(
-            ListenAddress.Parse(listen, out _)!,
-            options ?? new WebPageOptions(),
-            new SqliteFolderSource([Path.Combine(root, "st01"), Path.Combine(root, "st02")]))
+        var source = new QueryRecordingSource(inner);
+        var clock = new FakeTimeProvider(Now);
+        var setup = new WebPageSetup(ListenAddress.Parse(listen, out _)!, options ?? new WebPageOptions(), source)
         {
-            Time = new FakeTimeProvider(Now),
+            Time = clock,
             Loggers = loggers,
             Shifts = shifts ?? NamedShifts.Default,
         };
         var app = WebPageApp.Create(setup, b => b.WebHost.UseTestServer());
         await app.StartAsync();
-        return new PageHost(root, app, log);
+        return new PageHost(root, app, log, source, clock);
     }
 
     /// <summary>verify.error of unit <paramref name="i"/>: spread deterministically around 0.02 °C.</summary>
