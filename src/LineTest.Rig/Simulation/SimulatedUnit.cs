@@ -17,6 +17,8 @@ namespace LineTest.Rig.Simulation;
 /// </remarks>
 public sealed class SimulatedUnit
 {
+    private const int MaxTipSteps = 2000;
+
     private readonly Random _noise;
     private readonly Dictionary<string, long> _working;
     private readonly Dictionary<string, long> _stored;
@@ -282,15 +284,30 @@ public sealed class SimulatedUnit
 
         // The well is the reference well plus a static offset, so follow the reference well and add the offset back.
         var offset = block.SlotOffsetC(slot);
-        var bodyBefore = _bodyC;
-        _bodyC = block.Follow(_bodyC - offset, since, now, Parameters.LagTimeConstantSeconds) + offset;
+        if (Parameters.TipLagTimeConstantSeconds <= 0)
+        {
+            _bodyC = block.Follow(_bodyC - offset, since, now, Parameters.LagTimeConstantSeconds) + offset;
+            SensorC = _bodyC;
+            SensorTime = now;
+            return;
+        }
 
-        // The die follows the body through its own lag: exact for a body that moves linearly between two updates (the
-        // station reads every few seconds, far shorter than the body's time constant).
-        var seconds = (now - since).TotalSeconds;
-        SensorC = Parameters.TipLagTimeConstantSeconds > 0
-            ? FirstOrderLag.FollowLinear(SensorC, bodyBefore, (_bodyC - bodyBefore) / seconds, seconds, Parameters.TipLagTimeConstantSeconds)
-            : _bodyC;
+        // The die follows the body through its own lag: exact for a body that moves linearly over a step, so the span is
+        // cut into steps of at most a second (the body's course is exact at each step's end) — at most MaxTipSteps of
+        // them, coarser only over gaps of more than half an hour.
+        var total = (now - since).TotalSeconds;
+        var steps = (int)Math.Clamp(Math.Ceiling(total), 1, MaxTipSteps);
+        var from = since;
+        for (var k = 1; k <= steps; k++)
+        {
+            var to = k == steps ? now : since + TimeSpan.FromSeconds(total * k / steps);
+            var seconds = (to - from).TotalSeconds;
+            var bodyBefore = _bodyC;
+            _bodyC = block.Follow(_bodyC - offset, from, to, Parameters.LagTimeConstantSeconds) + offset;
+            SensorC = FirstOrderLag.FollowLinear(SensorC, bodyBefore, (_bodyC - bodyBefore) / seconds, seconds, Parameters.TipLagTimeConstantSeconds);
+            from = to;
+        }
+
         SensorTime = now;
     }
 

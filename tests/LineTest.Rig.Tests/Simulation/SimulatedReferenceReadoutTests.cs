@@ -62,4 +62,28 @@ public sealed class SimulatedReferenceReadoutTests
 
         Assert.Throws<ArgumentOutOfRangeException>(() => new SimulatedReferenceReadout(block, c => c, -0.1, clock, 1));
     }
+
+    [Fact]
+    public async Task ReadRawAsync_WithASensorLag_TrailsARampBySlopeTimesLag()
+    {
+        // [derived] a first-order lag τ behind an input rising at r trails it by r·τ once several τ have passed
+        // (y = x − r·τ + (y0 − x0 + r·τ)·e^(−t/τ)). The block ramps at 10 °C/min from 23 °C to 80 °C; a 5 s sensor lag
+        // reads 10/60 × 5 = 0.833 °C below the well after 60 s of ramp, the lag-free readout reads the well.
+        var clock = SimulatedFixtures.Clock();
+        var block = new SimulatedDryBlock(SimulatedFixtures.Source(), SimulatedFixtures.Simulation(blockNoiseC: 0), clock, 1);
+        var lagging = new SimulatedReferenceReadout(block, c => c, resolution: 0, clock, seed: 2, noiseC: 0, lagSeconds: 5);
+        var direct = new SimulatedReferenceReadout(block, c => c, resolution: 0, clock, seed: 3, noiseC: 0);
+        await block.SetSetpointAsync(80, None);
+        for (var t = 0; t < 60; t += 2)
+        {
+            clock.Advance(TimeSpan.FromSeconds(2));
+            await lagging.ReadRawAsync(None);
+        }
+
+        var well = await direct.ReadRawAsync(None);
+        var sensed = await lagging.ReadRawAsync(None);
+
+        Assert.Equal(block.TrueTemperatureC(), well, 9);
+        Assert.Equal(10.0 / 60 * 5, well - sensed, 4);
+    }
 }

@@ -236,4 +236,33 @@ public sealed class SimulatedUnitTests
         // About −1670 counts/°C: 2 mV/°C of the diode on a 1.25 V, 20-bit converter.
         Assert.InRange((good.TrueRawCounts(40) - good.TrueRawCounts(-20)) / 60, -1800, -1550);
     }
+
+    [Fact]
+    public async Task FollowWell_WithATipLag_TrailsTheBodyBySlopeTimesTipLag()
+    {
+        // [derived] two first-order lags in series behind a ramp r trail it by r·(τ + τ_tip) once several τ have passed,
+        // so the die trails a part without a tip lag (same seed, same τ) by r·τ_tip; the tip lag is the fraction of the
+        // unit's own τ the fixture gives. Block: 10 °C/min from 23 °C to 80 °C, read every 2 s for 5 minutes.
+        var tipped = SimulatedFixtures.Simulation() with { UnitTipLagFraction = 0.1 };
+        var plain = SimulatedFixtures.Simulation();
+        var withTip = SimulatedFixtures.Factory(seed: 5, simulation: tipped).NextUnit(UnitDefect.None);
+        var without = SimulatedFixtures.Factory(seed: 5, simulation: plain).NextUnit(UnitDefect.None);
+        var clock = SimulatedFixtures.Clock();
+        var block = new SimulatedDryBlock(SimulatedFixtures.Source(), SimulatedFixtures.Simulation(blockNoiseC: 0), clock, 1);
+        withTip.PlaceAt(23, clock.GetUtcNow());
+        without.PlaceAt(23, clock.GetUtcNow());
+        await block.SetSetpointAsync(80, CancellationToken.None);
+        for (var t = 0; t < 300; t += 2)
+        {
+            clock.Advance(TimeSpan.FromSeconds(2));
+            withTip.FollowWell(block, 1, clock.GetUtcNow());
+            without.FollowWell(block, 1, clock.GetUtcNow());
+        }
+
+        var tau = withTip.Parameters.LagTimeConstantSeconds;
+        Assert.Equal(tau, without.Parameters.LagTimeConstantSeconds);
+        Assert.Equal(0.1 * tau, withTip.Parameters.TipLagTimeConstantSeconds, 12);
+        Assert.Equal(0, without.Parameters.TipLagTimeConstantSeconds);
+        Assert.InRange(without.SensorC - withTip.SensorC - (10.0 / 60 * 0.1 * tau), -0.01, 0.01);
+    }
 }

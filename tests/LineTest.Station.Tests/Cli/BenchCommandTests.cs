@@ -17,7 +17,8 @@ public sealed class BenchCommandTests
         foreach (var s in sequences)
         {
             Assert.Equal(
-                ["sequence", "units", "batches", "baselineUnitsPerHour", "unitsPerHour", "boundUnitsPerHour", "ratioToBound", "ratioToBaseline", "aborted"],
+                ["sequence", "units", "batches", "baselineUnitsPerHour", "unitsPerHour", "boundUnitsPerHour", "ratioToBound", "ratioToBaseline", "aborted",
+                    "mode", "windowBoundUnitsPerHour", "ratioToWindowBound"],
                 s.EnumerateObject().Select(p => p.Name));
             var baseline = s.GetProperty("baselineUnitsPerHour").GetDouble();
             var lineTest = s.GetProperty("unitsPerHour").GetDouble();
@@ -27,6 +28,10 @@ public sealed class BenchCommandTests
             // fixed waits.
             Assert.InRange(lineTest, baseline, bound);
             Assert.Equal(JsonValueKind.Null, s.GetProperty("aborted").ValueKind);
+
+            // The demo sequences settle in window mode: their bound is the wait-for-stability bound.
+            Assert.Equal("window", s.GetProperty("mode").GetString());
+            Assert.Equal(bound, s.GetProperty("windowBoundUnitsPerHour").GetDouble());
         }
 
         var shift = json.RootElement.GetProperty("shift");
