@@ -62,6 +62,10 @@ public static class AccuracyCommand
         return ExitCodes.Done;
     }
 
+    /// <summary>A signed figure at four decimals with one sign: a value that rounds to zero prints as +0.0000.</summary>
+    internal static string Signed(double value) =>
+        (Math.Round(value, 4, MidpointRounding.AwayFromZero) + 0.0).ToString("+0.0000;-0.0000", CultureInfo.InvariantCulture);
+
     private static double? Round(double value, int digits) => double.IsFinite(value) ? Math.Round(value, digits) : null;
 
     private static void Write(TextWriter o, string fixtureId, List<AccuracyFigures> figures)
@@ -73,7 +77,7 @@ public static class AccuracyCommand
         foreach (var f in figures)
         {
             o.WriteLine(string.Create(inv,
-                $"{f.SequenceId,-18} {f.Fit,-15} {f.Units,6}  {f.RmsErrorC,8:F4}  {f.MaxAbsErrorC,11:F4}  {f.FloorRmsC,9:F4}  {f.Ratio,5:F2}  {f.VerifyBiasC,11:+0.0000;-0.0000}  {f.VerifyReadingMeanC,11:+0.0000;-0.0000}/{f.VerifyReadingSdC:F4}  {f.PredictedVerifyMeanC,9:+0.0000;-0.0000}/{f.PredictedVerifySdC:F4}"));
+                $"{f.SequenceId,-18} {f.Fit,-15} {f.Units,6}  {f.RmsErrorC,8:F4}  {f.MaxAbsErrorC,11:F4}  {f.FloorRmsC,9:F4}  {f.Ratio,5:F2}  {Signed(f.VerifyBiasC),11}  {Signed(f.VerifyReadingMeanC),11}/{f.VerifyReadingSdC:F4}  {Signed(f.PredictedVerifyMeanC),9}/{f.PredictedVerifySdC:F4}"));
         }
 
         var decomposed = figures.Where(f => f.Stages.Count > 0).ToList();
