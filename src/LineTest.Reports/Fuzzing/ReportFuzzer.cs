@@ -139,7 +139,7 @@ public static class ReportFuzzer
         }
         catch (Exception ex)
         {
-            crash = $"{ex.GetType().Name}: {ex.Message}";
+            crash = Describe(ex);
             return FuzzOutcome.Crashed;
         }
     }
@@ -174,7 +174,7 @@ public static class ReportFuzzer
         }
         catch (Exception ex)
         {
-            crash = $"{ex.GetType().Name}: {ex.Message}";
+            crash = Describe(ex);
             return FuzzOutcome.Crashed;
         }
     }
@@ -339,4 +339,11 @@ public static class ReportFuzzer
         4 => new byte[] { 0xff, 0x00, 0x41 },
         _ => Encoding.UTF8.GetString([0xC3, 0x28]),
     };
+
+    /// <summary>A crash as its type, message and the frame that threw, so that one crash in a long run can be found again.</summary>
+    internal static string Describe(Exception ex)
+    {
+        var frame = ex.StackTrace?.Split('\n', StringSplitOptions.TrimEntries | StringSplitOptions.RemoveEmptyEntries).FirstOrDefault();
+        return frame is null ? $"{ex.GetType().Name}: {ex.Message}" : $"{ex.GetType().Name}: {ex.Message} ({frame})";
+    }
 }
