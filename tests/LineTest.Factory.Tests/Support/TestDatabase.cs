@@ -27,15 +27,8 @@ public sealed class TestDatabase : IAsyncDisposable
     public static async Task<TestDatabase> CreateAsync(string serverConnectionString)
     {
         var name = "lt_" + Guid.NewGuid().ToString("N")[..16];
-        await using (var admin = new NpgsqlConnection(serverConnectionString))
-        {
-            await admin.OpenAsync();
-            await using var create = new NpgsqlCommand($"CREATE DATABASE {name};", admin);
-            await create.ExecuteNonQueryAsync();
-        }
-
-        var builder = new NpgsqlConnectionStringBuilder(serverConnectionString) { Database = name };
-        return new TestDatabase(serverConnectionString, name, builder.ConnectionString);
+        var connectionString = await TestPostgres.CreateDatabaseAsync(name, serverConnectionString);
+        return new TestDatabase(serverConnectionString, name, connectionString);
     }
 
     public async Task<T> ScalarAsync<T>(string sql)
@@ -53,13 +46,9 @@ public sealed class TestDatabase : IAsyncDisposable
     public async ValueTask DisposeAsync()
     {
         await DataSource.DisposeAsync();
-        NpgsqlConnection.ClearAllPools();
         try
         {
-            await using var admin = new NpgsqlConnection(_adminConnectionString);
-            await admin.OpenAsync();
-            await using var drop = new NpgsqlCommand($"DROP DATABASE IF EXISTS {Name} WITH (FORCE);", admin);
-            await drop.ExecuteNonQueryAsync();
+            await TestPostgres.DropDatabaseAsync(Name, _adminConnectionString);
         }
         catch (NpgsqlException)
         {

@@ -9,16 +9,8 @@ public sealed class MultiStationDemoTests
     [PostgresFact]
     public async Task DemoThreeStationsWithFactory_ReportVerifyAndForwardAgreeWithTheFolders()
     {
-        var server = Environment.GetEnvironmentVariable("LINETEST_TEST_POSTGRES")
-            ?? throw new InvalidOperationException("CI=true but LINETEST_TEST_POSTGRES is not set: .ci/run must start a PostgreSQL server.");
         var name = "lt_cli_" + Guid.NewGuid().ToString("N")[..12];
-        await using (var admin = new NpgsqlConnection(server))
-        {
-            await admin.OpenAsync();
-            await new NpgsqlCommand($"CREATE DATABASE {name};", admin).ExecuteNonQueryAsync();
-        }
-
-        var factory = new NpgsqlConnectionStringBuilder(server) { Database = name }.ConnectionString;
+        var factory = await TestPostgres.CreateDatabaseAsync(name);
         try
         {
             var results = Some.TempDirectory();
@@ -57,10 +49,7 @@ public sealed class MultiStationDemoTests
         }
         finally
         {
-            NpgsqlConnection.ClearAllPools();
-            await using var admin = new NpgsqlConnection(server);
-            await admin.OpenAsync();
-            await new NpgsqlCommand($"DROP DATABASE IF EXISTS {name} WITH (FORCE);", admin).ExecuteNonQueryAsync();
+            await TestPostgres.DropDatabaseAsync(name);
         }
     }
 
