@@ -340,10 +340,14 @@ public static class ReportFuzzer
         _ => Encoding.UTF8.GetString([0xC3, 0x28]),
     };
 
-    /// <summary>A crash as its type, message and the frame that threw, so that one crash in a long run can be found again.</summary>
+    /// <summary>
+    /// A crash as its type, message and where it came from: the first frame in this program's own code (a library's frame
+    /// alone, such as the SQLite reader's, does not say which call to fix), else the frame that threw.
+    /// </summary>
     internal static string Describe(Exception ex)
     {
-        var frame = ex.StackTrace?.Split('\n', StringSplitOptions.TrimEntries | StringSplitOptions.RemoveEmptyEntries).FirstOrDefault();
+        var frames = ex.StackTrace?.Split('\n', StringSplitOptions.TrimEntries | StringSplitOptions.RemoveEmptyEntries) ?? [];
+        var frame = frames.FirstOrDefault(f => f.StartsWith("at LineTest.", StringComparison.Ordinal)) ?? frames.FirstOrDefault();
         return frame is null ? $"{ex.GetType().Name}: {ex.Message}" : $"{ex.GetType().Name}: {ex.Message} ({frame})";
     }
 }

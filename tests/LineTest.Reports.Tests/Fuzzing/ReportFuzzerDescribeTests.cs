@@ -18,8 +18,21 @@ public sealed class ReportFuzzerDescribeTests
     }
 
     [Fact]
+    public void Describe_ThrownInsideALibrary_NamesTheFirstFrameOfThisProgram()
+    {
+        var ex = Assert.Throws<FormatException>(ParseHere);
+
+        var text = ReportFuzzer.Describe(ex);
+
+        Assert.Contains("at LineTest.", text, StringComparison.Ordinal);
+        Assert.Contains(nameof(ParseHere), text, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void Describe_NeverThrown_TypeAndMessageOnly() =>
         Assert.Equal("IOException: disk", ReportFuzzer.Describe(new IOException("disk")));
 
     private static void ThrowHere() => throw new InvalidOperationException("broken");
+
+    private static void ParseHere() => _ = int.Parse("not a number", System.Globalization.CultureInfo.InvariantCulture);
 }
