@@ -113,7 +113,7 @@ public static class ExponentialApproachFit
             residuals[i] = y[i] - (yInf + (amplitude * e));
         }
 
-        if (!SymmetricInverse3(m, out var inverse))
+        if (!SmallMatrix.TryInvert(m, out var inverse))
         {
             return ExponentialApproachResult.NotConverged(n, "the approach carries no information on its time constant (amplitude too small)");
         }
@@ -199,31 +199,5 @@ public static class ExponentialApproachFit
         }
 
         return (low + high) / 2;
-    }
-
-    /// <summary>Inverse of a symmetric 3×3 matrix by cofactors; false when it is numerically singular.</summary>
-    private static bool SymmetricInverse3(double[,] a, out double[,] inverse)
-    {
-        inverse = new double[3, 3];
-        var c00 = (a[1, 1] * a[2, 2]) - (a[1, 2] * a[2, 1]);
-        var c01 = (a[1, 2] * a[2, 0]) - (a[1, 0] * a[2, 2]);
-        var c02 = (a[1, 0] * a[2, 1]) - (a[1, 1] * a[2, 0]);
-        var det = (a[0, 0] * c00) + (a[0, 1] * c01) + (a[0, 2] * c02);
-        var scale = a[0, 0] * a[1, 1] * a[2, 2];
-        if (!double.IsFinite(det) || !(Math.Abs(det) > 1e-14 * scale))
-        {
-            return false;
-        }
-
-        inverse[0, 0] = c00 / det;
-        inverse[0, 1] = c01 / det;
-        inverse[0, 2] = c02 / det;
-        inverse[1, 1] = ((a[0, 0] * a[2, 2]) - (a[0, 2] * a[2, 0])) / det;
-        inverse[1, 2] = ((a[0, 2] * a[1, 0]) - (a[0, 0] * a[1, 2])) / det;
-        inverse[2, 2] = ((a[0, 0] * a[1, 1]) - (a[0, 1] * a[1, 0])) / det;
-        inverse[1, 0] = inverse[0, 1];
-        inverse[2, 0] = inverse[0, 2];
-        inverse[2, 1] = inverse[1, 2];
-        return true;
     }
 }
