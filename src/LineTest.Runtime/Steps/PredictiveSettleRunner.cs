@@ -33,10 +33,10 @@ internal static class PredictiveSettleRunner
         // Each unit is followed in the quantity its readings at this setpoint are taken in (the verify's reported °C,
         // the measure's volts or counts), so that moving them to their final values needs no conversion; the soak's
         // quantity when the steps read different ones.
-        var soakRead = SoakRead(sequence);
+        var soakRead = SoakRunner.SoakRead(sequence);
         var reads = ReadsAt(sequence, setpoint.Name).Distinct().ToList();
         var read = reads.Count == 1 && SoakRunner.QuantityPerC(sequence, reads[0]) is not null ? reads[0] : soakRead;
-        var perC = read == soakRead ? SoakRunner.OutputPerC(sequence) : SoakRunner.QuantityPerC(sequence, read)!.Value;
+        var perC = SoakRunner.QuantityPerC(sequence, read) ?? SoakRunner.OutputPerC(sequence);
         var approach = new PredictiveApproach(setpoint, settle, stability, FitSpanTimeConstants * instruments.Fixture.Source.SettlingTimeConstantSeconds,
             perC, commanded, read);
         if (Unconvertible(sequence, setpoint.Name) is { } why)
@@ -122,9 +122,6 @@ internal static class PredictiveSettleRunner
             }
         }
     }
-
-    /// <summary>The quantity the soak reads: raw counts over the link, else meter volts.</summary>
-    public static UnitRead SoakRead(SequenceDefinition sequence) => sequence.Soak.Output == UnitOutputs.Link ? UnitRead.Raw : UnitRead.MeterVolts;
 
     /// <summary>What the measure and verify steps at <paramref name="setpoint"/> read.</summary>
     private static IEnumerable<UnitRead> ReadsAt(SequenceDefinition sequence, string setpoint) =>

@@ -27,7 +27,7 @@ internal static class SoakRunner
 
         // Drift is judged in °C: volts from the meter over the output sensitivity, or raw counts from the link over
         // the raw sensitivity (the checker requires outputCountsPerC for a link soak).
-        var overLink = soak.Output == UnitOutputs.Link;
+        var read = SoakRead(sequence);
         var sensitivity = Math.Abs(OutputPerC(sequence));
         var windows = context.Batch.Active.ToDictionary(
             u => u,
@@ -62,7 +62,7 @@ internal static class SoakRunner
                 double output;
                 try
                 {
-                    output = await instruments.ReadUnitAsync(unit.Slot, overLink ? UnitRead.Raw : UnitRead.MeterVolts, ct).ConfigureAwait(false);
+                    output = await instruments.ReadUnitAsync(unit.Slot, read, ct).ConfigureAwait(false);
                 }
                 catch (UnitFaultException ex)
                 {
@@ -92,13 +92,12 @@ internal static class SoakRunner
     /// The soak quantity per °C, signed: raw counts per °C over the link (<c>outputCountsPerC</c>), else volts per °C
     /// (<c>outputVoltsPerC</c>, the trim's target slope, or 10 mV/°C).
     /// </summary>
-    public static double OutputPerC(SequenceDefinition sequence)
-    {
-        var soak = sequence.Soak;
-        return soak.Output == UnitOutputs.Link
-            ? soak.OutputCountsPerC ?? throw new InvalidOperationException("Checked sequences soaking over the link give outputCountsPerC.")
-            : soak.OutputVoltsPerC ?? sequence.Trim?.AnalogTarget?.SlopeVoltsPerC ?? 0.01;
-    }
+    public static double OutputPerC(SequenceDefinition sequence) =>
+        QuantityPerC(sequence, SoakRead(sequence))
+        ?? throw new InvalidOperationException("Checked sequences soaking over the link give outputCountsPerC.");
+
+    /// <summary>The quantity the soak reads: raw counts over the link, else meter volts.</summary>
+    public static UnitRead SoakRead(SequenceDefinition sequence) => sequence.Soak.Output == UnitOutputs.Link ? UnitRead.Raw : UnitRead.MeterVolts;
 
     /// <summary>
     /// How much of <paramref name="read"/>'s quantity one °C of the unit's sensor makes, signed, for moving a sample to its
