@@ -82,11 +82,10 @@ public static class ThermalBound
             return 0;
         }
 
-        var ratePerSecond = (toC > fromC ? source.RampUpCPerMinute : source.RampDownCPerMinute) / 60.0;
+        var (_, knee) = RateAndKnee(source, fromC, toC);
         var tau = source.SettlingTimeConstantSeconds;
-        var knee = ratePerSecond * tau;
         return delta > knee
-            ? (delta - knee) / ratePerSecond + tau * Math.Log(knee / bandC)
+            ? RampSeconds(source, fromC, toC) + tau * Math.Log(knee / bandC)
             : tau * Math.Log(delta / bandC);
     }
 
@@ -98,9 +97,15 @@ public static class ThermalBound
     {
         ArgumentNullException.ThrowIfNull(source);
         var delta = Math.Abs(toC - fromC);
-        var ratePerSecond = (toC > fromC ? source.RampUpCPerMinute : source.RampDownCPerMinute) / 60.0;
-        var knee = ratePerSecond * source.SettlingTimeConstantSeconds;
+        var (ratePerSecond, knee) = RateAndKnee(source, fromC, toC);
         return delta > knee ? (delta - knee) / ratePerSecond : 0;
+    }
+
+    /// <summary>The source's rate limit towards <paramref name="toC"/>, °C/s, and its knee rτ, °C.</summary>
+    private static (double RatePerSecond, double Knee) RateAndKnee(SourceDefinition source, double fromC, double toC)
+    {
+        var ratePerSecond = (toC > fromC ? source.RampUpCPerMinute : source.RampDownCPerMinute) / 60.0;
+        return (ratePerSecond, ratePerSecond * source.SettlingTimeConstantSeconds);
     }
 
     private static ThermalBoundLeg Leg(SequenceDefinition sequence, SourceDefinition source, SetpointDefinition setpoint, double fromC, double measureSeconds)
