@@ -36,6 +36,8 @@ internal sealed class VerifyExecutor : StepExecutor<VerifyStep>
         var approach = context.Batch.Predictions.GetValueOrDefault(step.Setpoint);
         var references = SampleRounds.ReferencesAtFinal(approach, rawReferences, referenceTimes);
         var referenceBudget = instruments.ReferenceBudget(references);
+        // Only a taken approach is kept for the setpoint, so its reference fit is converged: one component for every unit.
+        var referenceExtrapolation = approach is null ? null : StationBudgets.Extrapolation(approach.Reference.Last!.Fit);
         var now = instruments.Now;
         foreach (var (unit, rawValues, times) in outputs)
         {
@@ -55,12 +57,11 @@ internal sealed class VerifyExecutor : StepExecutor<VerifyStep>
             var referenceReported = referenceBudget;
             if (approach?.TrackerOf(unit)?.Last?.Fit is { } fit)
             {
-                var referenceExtrapolation = StationBudgets.Extrapolation(approach.Reference.Last!.Fit);
                 var perUnitScale = SampleRounds.ShiftPerUnitScale(context, approach, unit, read);
                 var indicatedPerC = overLink ? perUnitScale : perUnitScale / slope;
-                budget = StationBudgets.Predicted(budget, referenceExtrapolation with { Name = "reference " + referenceExtrapolation.Name },
+                budget = StationBudgets.Predicted(budget, referenceExtrapolation! with { Name = "reference " + referenceExtrapolation.Name },
                     StationBudgets.Extrapolation(fit, indicatedPerC));
-                referenceReported = StationBudgets.Predicted(referenceBudget, referenceExtrapolation);
+                referenceReported = StationBudgets.Predicted(referenceBudget, referenceExtrapolation!);
             }
 
             var u = budget.Expand();
