@@ -1,6 +1,5 @@
 using LineTest.Reports.Loading;
 using Npgsql;
-using NpgsqlTypes;
 
 namespace LineTest.Factory.Reporting;
 
@@ -69,13 +68,10 @@ internal static class FactoryReadingStream
         CancellationToken ct)
     {
         await using var command = new NpgsqlCommand(string.Empty, connection, transaction) { CommandTimeout = 0 };
-        var where = FactoryFilterSql.Where(query, "g", command, runConditions: false);
-        command.Parameters.Add(new NpgsqlParameter("month_from", NpgsqlDbType.TimestampTz) { Value = month.From });
-        command.Parameters.Add(new NpgsqlParameter("month_to", NpgsqlDbType.TimestampTz) { Value = month.To });
-        var monthCondition = "g.ended_utc >= @month_from AND g.ended_utc < @month_to";
+        var where = FactoryFilterSql.Where(query, "g", command, runConditions: false, month);
         command.CommandText = $"""
             SELECT g.chain_id, g.station_seq, g.ordinal, g.name, g.value, g.unit, g.low, g.high
-              FROM readings g{(where.Length == 0 ? " WHERE " + monthCondition : where + " AND " + monthCondition)};
+              FROM readings g{where};
             """;
         await using var reader = await command.ExecuteReaderAsync(System.Data.CommandBehavior.SequentialAccess, ct).ConfigureAwait(false);
 

@@ -165,13 +165,7 @@ public static class FactoryReportLoader
         NpgsqlConnection connection, NpgsqlTransaction transaction, ReportQuery query, bool countYield, (DateTime From, DateTime To)? month, CancellationToken ct)
     {
         await using var command = new NpgsqlCommand(string.Empty, connection, transaction) { CommandTimeout = 0 };
-        var where = FactoryFilterSql.Where(query, "r", command, runConditions: true);
-        if (month is { } range)
-        {
-            command.Parameters.Add(new NpgsqlParameter("month_from", NpgsqlTypes.NpgsqlDbType.TimestampTz) { Value = range.From });
-            command.Parameters.Add(new NpgsqlParameter("month_to", NpgsqlTypes.NpgsqlDbType.TimestampTz) { Value = range.To });
-            where = (where.Length == 0 ? " WHERE " : where + " AND ") + "r.ended_utc >= @month_from AND r.ended_utc < @month_to";
-        }
+        var where = FactoryFilterSql.Where(query, "r", command, runConditions: true, month);
 
         var operators = query.GroupBy == ReportGrouping.Operator;
         var firstRuns = countYield && query.FirstRunsOnly;
