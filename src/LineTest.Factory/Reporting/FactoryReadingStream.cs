@@ -17,16 +17,17 @@ internal static class FactoryReadingStream
 
     /// <summary>
     /// Adds every reading of the runs in <paramref name="runs"/> to <paramref name="data"/>'s series, reading the
-    /// months on the given connections (each in a transaction on the same snapshot) at once.
+    /// <paramref name="months"/> (those of the runs, from <see cref="Months"/>) on the given connections (each in a
+    /// transaction on the same snapshot) at once.
     /// </summary>
     public static async Task ReadAsync(
         IReadOnlyList<(NpgsqlConnection Connection, NpgsqlTransaction Transaction)> connections,
         ReportQuery query,
         RunIndex runs,
+        IReadOnlyList<(DateTime From, DateTime To)> months,
         ReportData data,
         CancellationToken ct)
     {
-        var months = Months(runs.FirstTicks, runs.LastTicks);
         var parts = await Task.WhenAll(connections.Select((c, k) => Task.Run(
             async () =>
             {
