@@ -13,8 +13,9 @@ internal static class FactoryFilterSql
     /// partition key, so months outside it are never read) and on <c>ended_ticks</c> (the station's exact instant, so
     /// the window is the same to the 100 ns as a folder report's). Only the time and the station are asked of readings
     /// (<paramref name="runConditions"/> false); the other run conditions drop their readings when joined to the runs.
+    /// A <paramref name="month"/> adds, last, <c>ended_utc</c> in [From, To): one partition.
     /// </summary>
-    public static string Where(ReportQuery query, string alias, NpgsqlCommand command, bool runConditions)
+    public static string Where(ReportQuery query, string alias, NpgsqlCommand command, bool runConditions, (DateTime From, DateTime To)? month = null)
     {
         var conditions = new List<string>();
         void Add(string condition, string name, NpgsqlDbType type, object value)
@@ -65,6 +66,12 @@ internal static class FactoryFilterSql
         else if (query.ReadingNames.Count > 0)
         {
             Add($"{alias}.name = ANY(@names)", "names", NpgsqlDbType.Array | NpgsqlDbType.Text, query.ReadingNames.ToArray());
+        }
+
+        if (month is { } range)
+        {
+            Add($"{alias}.ended_utc >= @month_from", "month_from", NpgsqlDbType.TimestampTz, range.From);
+            Add($"{alias}.ended_utc < @month_to", "month_to", NpgsqlDbType.TimestampTz, range.To);
         }
 
         return conditions.Count == 0 ? string.Empty : new StringBuilder(" WHERE ").AppendJoin(" AND ", conditions).ToString();

@@ -85,7 +85,7 @@ public static class FactoryPageQueries
         command.CommandText = $"""
             SELECT r.ended_ticks, r.serial, r.verdict, r.station, r.slot, r.lot, r.sequence_id, r.sequence_revision,
                    r.first_failing_reading, r.reason
-              FROM runs r{where} ORDER BY r.ended_ticks, r.station, r.chain_id, r.station_seq;
+              FROM runs r{where} ORDER BY {FactoryYieldCounter.RunOrder("r")};
             """;
         await using var reader = await command.ExecuteReaderAsync(ct).ConfigureAwait(false);
         while (await reader.ReadAsync(ct).ConfigureAwait(false))
@@ -93,8 +93,7 @@ public static class FactoryPageQueries
             runs.Add(
                 reader.GetString(1),
                 new DateTimeOffset(reader.GetInt64(0), TimeSpan.Zero),
-                VerdictExtensions.ParseWord(reader.GetString(2))
-                    ?? throw new InvalidDataException($"Column verdict holds '{reader.GetString(2)}', which is not pass, fail or error."),
+                FactoryYieldCounter.ParseVerdict(reader.GetString(2)),
                 reader.GetString(3),
                 reader.GetInt32(4),
                 reader.IsDBNull(5) ? null : reader.GetString(5),
@@ -152,7 +151,7 @@ public static class FactoryPageQueries
         ArgumentNullException.ThrowIfNull(dataSource);
         ArgumentNullException.ThrowIfNull(serial);
         await using var command = dataSource.CreateCommand(
-            "SELECT station, station_seq, record_sha256, run_json FROM runs WHERE serial = @serial ORDER BY ended_ticks, station, chain_id, station_seq;");
+            $"SELECT r.station, r.station_seq, r.record_sha256, r.run_json FROM runs r WHERE r.serial = @serial ORDER BY {FactoryYieldCounter.RunOrder("r")};");
         command.Parameters.AddWithValue("serial", serial);
         var runs = new List<StoredRun>();
         await using var reader = await command.ExecuteReaderAsync(ct).ConfigureAwait(false);

@@ -1,6 +1,5 @@
 using LineTest.Reports.Loading;
 using Npgsql;
-using NpgsqlTypes;
 
 namespace LineTest.Factory.Reporting;
 
@@ -18,16 +17,17 @@ internal static class FactoryReadingStream
 
     /// <summary>
     /// Adds every reading of the runs in <paramref name="runs"/> to <paramref name="data"/>'s series, reading the
-    /// months on the given connections (each in a transaction on the same snapshot) at once.
+    /// <paramref name="months"/> (those of the runs, from <see cref="Months"/>) on the given connections (each in a
+    /// transaction on the same snapshot) at once.
     /// </summary>
     public static async Task ReadAsync(
         IReadOnlyList<(NpgsqlConnection Connection, NpgsqlTransaction Transaction)> connections,
         ReportQuery query,
         RunIndex runs,
+        IReadOnlyList<(DateTime From, DateTime To)> months,
         ReportData data,
         CancellationToken ct)
     {
-        var months = Months(runs.FirstTicks, runs.LastTicks);
         var parts = await Task.WhenAll(connections.Select((c, k) => Task.Run(
             async () =>
             {
@@ -69,13 +69,10 @@ internal static class FactoryReadingStream
         CancellationToken ct)
     {
         await using var command = new NpgsqlCommand(string.Empty, connection, transaction) { CommandTimeout = 0 };
-        var where = FactoryFilterSql.Where(query, "g", command, runConditions: false);
-        command.Parameters.Add(new NpgsqlParameter("month_from", NpgsqlDbType.TimestampTz) { Value = month.From });
-        command.Parameters.Add(new NpgsqlParameter("month_to", NpgsqlDbType.TimestampTz) { Value = month.To });
-        var monthCondition = "g.ended_utc >= @month_from AND g.ended_utc < @month_to";
+        var where = FactoryFilterSql.Where(query, "g", command, runConditions: false, month);
         command.CommandText = $"""
             SELECT g.chain_id, g.station_seq, g.ordinal, g.name, g.value, g.unit, g.low, g.high
-              FROM readings g{(where.Length == 0 ? " WHERE " + monthCondition : where + " AND " + monthCondition)};
+              FROM readings g{where};
             """;
         await using var reader = await command.ExecuteReaderAsync(System.Data.CommandBehavior.SequentialAccess, ct).ConfigureAwait(false);
 

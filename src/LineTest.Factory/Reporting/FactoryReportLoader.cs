@@ -61,10 +61,10 @@ public static class FactoryReportLoader
                 ? await Task.WhenAll(Enumerable.Range(1, Math.Max(2, Environment.ProcessorCount) - 1).Select(_ => session.JoinAsync(ct))).ConfigureAwait(false)
                 : [];
             var connections = others.Prepend((session.Connection, session.Transaction)).ToList();
-            var keys = await LoadRunsAsync(connections, query, data, countYield, ct).ConfigureAwait(false);
+            var (keys, months) = await LoadRunsAsync(connections, query, data, countYield, ct).ConfigureAwait(false);
             if (keys.Count > 0)
             {
-                await FactoryReadingStream.ReadAsync(connections, query, keys, data, ct).ConfigureAwait(false);
+                await FactoryReadingStream.ReadAsync(connections, query, keys, months, data, ct).ConfigureAwait(false);
             }
 
             if (countYield)
@@ -91,11 +91,12 @@ public static class FactoryReportLoader
     }
 
     /// <summary>
-    /// Loads the runs into <paramref name="data"/> and returns their index: month by month on all
-    /// <paramref name="connections"/> at once, appended in month order (the run order), or in one query when first runs
-    /// are marked (a unit's first run may lie in an earlier month).
+    /// Loads the runs into <paramref name="data"/> and returns their index and the UTC months from the first run's to
+    /// the last run's (none when no run matches): month by month on all <paramref name="connections"/> at once,
+    /// appended in month order (the run order), or in one query when first runs are marked (a unit's first run may lie
+    /// in an earlier month).
     /// </summary>
-    private static async Task<RunIndex> LoadRunsAsync(
+    private static async Task<(RunIndex Index, List<(DateTime From, DateTime To)> Months)> LoadRunsAsync(
         IReadOnlyList<(NpgsqlConnection Connection, NpgsqlTransaction Transaction)> connections,
         ReportQuery query,
         ReportData data,
@@ -105,19 +106,20 @@ public static class FactoryReportLoader
         var index = new RunIndex(countYield && query.FirstRunsOnly);
         if (await BoundsAsync(connections[0].Connection, connections[0].Transaction, query, ct).ConfigureAwait(false) is not { } bounds)
         {
-            return index;
+            return (index, []);
         }
 
-        IReadOnlyList<(DateTime From, DateTime To)?> months = query.FirstRunsOnly || connections.Count == 1
+        var months = FactoryReadingStream.Months(bounds.First, bounds.Last);
+        IReadOnlyList<(DateTime From, DateTime To)?> runMonths = query.FirstRunsOnly || connections.Count == 1
             ? [null]
-            : [.. FactoryReadingStream.Months(bounds.First, bounds.Last).Select(m => ((DateTime, DateTime)?)m)];
-        var parts = new List<RunRow>[months.Count];
+            : [.. months.Select(m => ((DateTime, DateTime)?)m)];
+        var parts = new List<RunRow>[runMonths.Count];
         await Task.WhenAll(connections.Select((c, k) => Task.Run(
             async () =>
             {
-                for (var m = k; m < months.Count; m += connections.Count)
+                for (var m = k; m < runMonths.Count; m += connections.Count)
                 {
-                    parts[m] = await ReadRunsAsync(c.Connection, c.Transaction, query, countYield, months[m], ct).ConfigureAwait(false);
+                    parts[m] = await ReadRunsAsync(c.Connection, c.Transaction, query, countYield, runMonths[m], ct).ConfigureAwait(false);
                 }
             },
             ct))).ConfigureAwait(false);
@@ -142,13 +144,13 @@ public static class FactoryReportLoader
                     runs.SetOperator(run, row.Operator);
                 }
 
-                index.Add(row.EndedTicks, row.Chain, row.Seq, row.FirstRun);
+                index.Add(row.Chain, row.Seq, row.FirstRun);
             }
 
             parts[m] = [];
         }
 
-        return index;
+        return (index, months);
     }
 
     /// <summary>The first and last end (ticks) of the runs matching <paramref name="query"/>; null when none match.</summary>
@@ -165,13 +167,7 @@ public static class FactoryReportLoader
         NpgsqlConnection connection, NpgsqlTransaction transaction, ReportQuery query, bool countYield, (DateTime From, DateTime To)? month, CancellationToken ct)
     {
         await using var command = new NpgsqlCommand(string.Empty, connection, transaction) { CommandTimeout = 0 };
-        var where = FactoryFilterSql.Where(query, "r", command, runConditions: true);
-        if (month is { } range)
-        {
-            command.Parameters.Add(new NpgsqlParameter("month_from", NpgsqlTypes.NpgsqlDbType.TimestampTz) { Value = range.From });
-            command.Parameters.Add(new NpgsqlParameter("month_to", NpgsqlTypes.NpgsqlDbType.TimestampTz) { Value = range.To });
-            where = (where.Length == 0 ? " WHERE " : where + " AND ") + "r.ended_utc >= @month_from AND r.ended_utc < @month_to";
-        }
+        var where = FactoryFilterSql.Where(query, "r", command, runConditions: true, month);
 
         var operators = query.GroupBy == ReportGrouping.Operator;
         var firstRuns = countYield && query.FirstRunsOnly;

@@ -23,14 +23,8 @@ internal sealed class RunIndex
     /// <summary>Number of runs.</summary>
     public int Count => _runs.Count;
 
-    /// <summary>Earliest end of the runs (ticks), or 0 when none.</summary>
-    public long FirstTicks { get; private set; }
-
-    /// <summary>Latest end of the runs (ticks), or 0 when none.</summary>
-    public long LastTicks { get; private set; }
-
     /// <summary>Adds the next run, whose index is the number of runs added before it.</summary>
-    public void Add(long endedTicks, Guid chain, long seq, bool firstRun)
+    public void Add(Guid chain, long seq, bool firstRun)
     {
         if (!_chains.TryGetValue(chain, out var number))
         {
@@ -43,8 +37,6 @@ internal sealed class RunIndex
             throw new InvalidDataException($"Run seq {seq} of station database {chain} is outside 0…2^{SeqBits}.");
         }
 
-        FirstTicks = Count == 0 ? endedTicks : Math.Min(FirstTicks, endedTicks);
-        LastTicks = Count == 0 ? endedTicks : Math.Max(LastTicks, endedTicks);
         _runs.Add((number << SeqBits) | seq, _runs.Count);
         _firstRuns?.Add(firstRun);
     }

@@ -35,9 +35,7 @@ internal sealed class SeriesBucket(string sequence)
         {
             if (!_shapeIndex.TryGetValue(shape, out _last))
             {
-                _last = _shapes.Count;
-                _shapes.Add(shape);
-                _shapeIndex.Add(shape, _last);
+                _last = AddShape(shape);
             }
         }
 

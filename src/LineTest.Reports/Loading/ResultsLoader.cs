@@ -90,16 +90,19 @@ public static class ResultsLoader
         // held until then, and those with a damaged reading are left out.
         var pinned = filter with { FirstSeq = range.First, LastSeq = range.Last };
         var held = damaged is null ? null : new List<RunSummary>();
-        var runsTask = Task.Run(() => ReadRunsAsync(reader, pinned, held is null ? data.Runs : null, held, damaged, ct), ct);
+        var index = new RunIndex(data.Runs);
+        var runsTask = Task.Run(() => ReadRunsAsync(reader, pinned, held is null ? index.Add : held.Add, damaged, ct), ct);
         var rangeTasks = range.Split(parts ?? (range.Last - range.First + 1 >= MinRunsPerPart * 2 ? Environment.ProcessorCount : 1))
             .Select(part => Task.Run(() => ReadingBuffer.FillAsync(reader, pinned with { FirstSeq = part.First, LastSeq = part.Last }, damaged, ct), ct))
             .ToList();
-        var (firstIndex, seqs, firstOfSequence) = await runsTask.ConfigureAwait(false);
+        await runsTask.ConfigureAwait(false);
         var buffers = await Task.WhenAll(rangeTasks).ConfigureAwait(false);
-        if (held is not null)
+        foreach (var run in held?.Where(r => !damaged!.Contains(r.Seq)) ?? [])
         {
-            (firstIndex, seqs, firstOfSequence) = AddRuns(held.Where(r => !damaged!.Contains(r.Seq)), data.Runs);
+            index.Add(run);
         }
+
+        var (firstIndex, seqs, firstOfSequence) = index.Result;
 
         foreach (var (sequence, product) in await reader.ReadProductsAsync(firstOfSequence, ct).ConfigureAwait(false))
         {
@@ -129,41 +132,22 @@ public static class ResultsLoader
         }
     }
 
-    /// <summary>Reads the runs into <paramref name="runs"/>, or into <paramref name="held"/> when damaged runs are skipped.</summary>
-    private static async Task<(int FirstIndex, List<long> Seqs, List<long> FirstOfSequence)> ReadRunsAsync(
-        SqliteResultReader reader, RunFilter filter, RunTable? runs, List<RunSummary>? held, DamagedRuns? damaged, CancellationToken ct)
+    /// <summary>Reads the runs matching <paramref name="filter"/>, in seq order, into <paramref name="add"/>.</summary>
+    private static async Task ReadRunsAsync(SqliteResultReader reader, RunFilter filter, Action<RunSummary> add, DamagedRuns? damaged, CancellationToken ct)
     {
-        var index = new RunIndex(runs);
         await foreach (var run in reader.ReadRunsForReportAsync(filter, damaged, ct).ConfigureAwait(false))
         {
-            if (held is not null)
-            {
-                held.Add(run);
-            }
-            else
-            {
-                index.Add(run);
-            }
+            add(run);
         }
-
-        return index.Result;
     }
 
-    private static (int FirstIndex, List<long> Seqs, List<long> FirstOfSequence) AddRuns(IEnumerable<RunSummary> sound, RunTable runs)
+    /// <summary>
+    /// Adds runs to the table, keeping their seqs and the first run of each sequence; the first run's index in the table
+    /// is the table's count when the index is made.
+    /// </summary>
+    private sealed class RunIndex(RunTable runs)
     {
-        var index = new RunIndex(runs);
-        foreach (var run in sound)
-        {
-            index.Add(run);
-        }
-
-        return index.Result;
-    }
-
-    /// <summary>Adds runs to the table, keeping their seqs and the first run of each sequence.</summary>
-    private sealed class RunIndex(RunTable? runs)
-    {
-        private readonly int _firstIndex = runs?.Count ?? 0;
+        private readonly int _firstIndex = runs.Count;
         private readonly List<long> _seqs = [];
         private readonly HashSet<string> _sequences = new(StringComparer.Ordinal);
         private readonly List<long> _firstOfSequence = [];
@@ -180,7 +164,7 @@ public static class ResultsLoader
             }
 
             _lastSequence = run.SequenceId;
-            runs!.Add(
+            runs.Add(
                 run.Serial,
                 run.EndedUtc,
                 run.Verdict,
