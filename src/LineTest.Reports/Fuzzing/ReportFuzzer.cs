@@ -146,11 +146,9 @@ public static class ReportFuzzer
 
     /// <summary>
     /// Runs one results folder through the report path; never throws. With <paramref name="skipBadRows"/> damaged runs
-    /// are left out (<c>--skip-bad-rows</c>), and each must be named in the report.
+    /// are left out (<c>--skip-bad-rows</c>), and each must be named in the report. The HTML page is made for one input
+    /// in <paramref name="htmlEvery"/> (0: never).
     /// </summary>
-    public static FuzzOutcome RunDatabase(string resultsDirectory, bool skipBadRows, out string? crash) =>
-        RunDatabase(resultsDirectory, skipBadRows, DefaultHtmlEvery, out crash);
-
     private static FuzzOutcome RunDatabase(string resultsDirectory, bool skipBadRows, int htmlEvery, out string? crash)
     {
         crash = null;
@@ -179,11 +177,8 @@ public static class ReportFuzzer
         }
     }
 
-    /// <summary>Fuzzes <paramref name="iterations"/> mutations of a readings CSV.</summary>
-    public static FuzzSummary FuzzCsv(string csv, int iterations, int seed) => FuzzCsv(csv, iterations, seed, workers: 1, DefaultHtmlEvery);
-
     /// <summary>
-    /// As <see cref="FuzzCsv(string, int, int)"/> on <paramref name="workers"/> threads, each with its own seeded
+    /// Fuzzes <paramref name="iterations"/> mutations of a readings CSV on <paramref name="workers"/> threads, each with its own seeded
     /// generator (worker 0 draws what one worker draws), so the inputs depend on the seed and the worker count only.
     /// The HTML page is made for one input in <paramref name="htmlEvery"/> (0: never).
     /// </summary>
