@@ -8,6 +8,7 @@ using LineTest.Reports.Csv;
 using LineTest.Reports.Html;
 using LineTest.Reports.Json;
 using LineTest.Reports.Loading;
+using LineTest.Storage.Sqlite;
 using LineTest.Storage.Store;
 using Microsoft.Data.Sqlite;
 using Spectre.Console;
@@ -206,7 +207,7 @@ public static class ReportFuzzer
     /// </summary>
     public static FuzzSummary FuzzDatabase(string resultsDirectory, int iterations, int seed, int workers, int htmlEvery)
     {
-        var original = File.ReadAllBytes(ResultsDatabasePath(resultsDirectory));
+        var original = File.ReadAllBytes(ResultsDatabase.PathIn(resultsDirectory));
         var scratches = Enumerable.Range(0, Math.Max(1, workers)).Select(_ => Directory.CreateTempSubdirectory("linetest-fuzz-db-")).ToList();
         try
         {
@@ -216,7 +217,7 @@ public static class ReportFuzzer
                 var scratch = scratches[worker];
                 return () =>
                 {
-                    var path = ResultsDatabasePath(scratch.FullName);
+                    var path = ResultsDatabase.PathIn(scratch.FullName);
                     foreach (var file in scratch.GetFiles())
                     {
                         file.Delete();
@@ -225,7 +226,6 @@ public static class ReportFuzzer
                     File.WriteAllBytes(path, original);
                     MutateDatabase(path, random);
                     var skip = random.Next(2) == 0;
-                    SqliteConnection.ClearAllPools();
                     var outcome = RunDatabase(scratch.FullName, skip, htmlEvery, out var crash);
                     return (outcome, crash);
                 };
@@ -233,7 +233,6 @@ public static class ReportFuzzer
         }
         finally
         {
-            SqliteConnection.ClearAllPools();
             foreach (var scratch in scratches)
             {
                 scratch.Delete(recursive: true);
@@ -242,8 +241,6 @@ public static class ReportFuzzer
     }
 
     private static Random WorkerRandom(int seed, int worker) => new(worker == 0 ? seed : HashCode.Combine(seed, worker));
-
-    private static string ResultsDatabasePath(string directory) => Path.Combine(directory, "results.db");
 
     private static FuzzSummary Run(string kind, int iterations, int workers, Func<int, Func<(FuzzOutcome Outcome, string? Crash)>> worker)
     {
