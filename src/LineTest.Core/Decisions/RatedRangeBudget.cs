@@ -73,6 +73,9 @@ public static class RatedRangeBudget
         }
 
         var shapes = ModelShapes(curve, idealityStdDev, lowC, highC);
+        // The component names of each calibration point, the same at every grid temperature.
+        var labels = curve.PointsC.Select(c => string.Create(CultureInfo.InvariantCulture, $"{c:0.##} degC"))
+            .Select(at => (Reference: $"reference at {at}", Output: $"output at {at}", Soak: $"soak residual at {at}")).ToArray();
         var grid = new RatedRangePoint[gridPoints];
         for (var g = 0; g < gridPoints; g++)
         {
@@ -81,12 +84,11 @@ public static class RatedRangeBudget
             var components = new List<UncertaintyComponent>();
             for (var i = 0; i < points.Count; i++)
             {
-                var at = string.Create(CultureInfo.InvariantCulture, $"{curve.PointsC[i]:0.##} degC");
-                components.Add(UncertaintyComponent.FromStandard($"reference at {at}", points[i].ReferenceC, UncertaintyType.B, w[i], points[i].ReferenceDegreesOfFreedom));
-                components.Add(UncertaintyComponent.FromStandard($"output at {at}", points[i].Output, UncertaintyType.A, w[i] / curve.Slope, points[i].OutputDegreesOfFreedom));
+                components.Add(UncertaintyComponent.FromStandard(labels[i].Reference, points[i].ReferenceC, UncertaintyType.B, w[i], points[i].ReferenceDegreesOfFreedom));
+                components.Add(UncertaintyComponent.FromStandard(labels[i].Output, points[i].Output, UncertaintyType.A, w[i] / curve.Slope, points[i].OutputDegreesOfFreedom));
                 if (soakResidualHalfWidthC > 0)
                 {
-                    components.Add(UncertaintyComponent.FromRectangular($"soak residual at {at}", soakResidualHalfWidthC, w[i]));
+                    components.Add(UncertaintyComponent.FromRectangular(labels[i].Soak, soakResidualHalfWidthC, w[i]));
                 }
             }
 

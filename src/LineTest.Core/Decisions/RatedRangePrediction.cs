@@ -46,23 +46,4 @@ public sealed record RatedRangePrediction(double LowC, double HighC, IReadOnlyLi
     /// <summary>The grid point nearest <paramref name="celsius"/>.</summary>
     public RatedRangePoint Nearest(double celsius) => Grid.MinBy(p => Math.Abs(p.Celsius - celsius))!;
 
-    /// <summary>The predicted error at the grid point nearest <paramref name="celsius"/>, interpolated linearly, °C.</summary>
-    public double ErrorAt(double celsius)
-    {
-        if (celsius <= Grid[0].Celsius)
-        {
-            return Grid[0].ErrorC;
-        }
-
-        for (var i = 1; i < Grid.Count; i++)
-        {
-            if (celsius <= Grid[i].Celsius)
-            {
-                var f = (celsius - Grid[i - 1].Celsius) / (Grid[i].Celsius - Grid[i - 1].Celsius);
-                return Grid[i - 1].ErrorC + (f * (Grid[i].ErrorC - Grid[i - 1].ErrorC));
-            }
-        }
-
-        return Grid[^1].ErrorC;
-    }
 }

@@ -56,7 +56,8 @@ public static class DacCodeSearch
 
         var s = spec.Target.SlopeVoltsPerC;
         var d = new double[temperaturesC.Count];
-        var roundedError = MaxAbsError(roundedGainCode, roundedOffsetCode);
+        Residuals(roundedGainCode);
+        var roundedError = MaxAbsError(roundedOffsetCode);
         var best = (Gain: roundedGainCode, Offset: roundedOffsetCode, Error: roundedError);
         for (var g = roundedGainCode - GainCodeWindow; g <= roundedGainCode + GainCodeWindow; g++)
         {
@@ -81,7 +82,7 @@ public static class DacCodeSearch
                     continue;
                 }
 
-                var error = MaxAbsError(g, o);
+                var error = MaxAbsError(o);
                 if (error < best.Error
                     || (error == best.Error && (Math.Abs(g - roundedGainCode) < Math.Abs(best.Gain - roundedGainCode)
                         || (Math.Abs(g - roundedGainCode) == Math.Abs(best.Gain - roundedGainCode) && o < best.Offset))))
@@ -103,9 +104,9 @@ public static class DacCodeSearch
             }
         }
 
-        double MaxAbsError(long gainCode, long offsetCode)
+        // The largest |error| with the offset code added to the residuals d[] of the gain code last passed to Residuals.
+        double MaxAbsError(long offsetCode)
         {
-            Residuals(gainCode);
             var offsetC = DacTrim.OffsetVolts(spec.Offset, offsetCode) / s;
             return d.Max(x => Math.Abs(x + offsetC));
         }

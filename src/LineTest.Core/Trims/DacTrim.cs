@@ -71,8 +71,10 @@ public static class DacTrim
             return CalculationResult<DacTrimResult>.Failure(fitResult.Reason!);
         }
 
-        var a = line?.Intercept ?? fit.Intercept;
-        var b = line?.Slope ?? fit.Slope;
+        // Without a line of its own the trim maps the least-squares line through the points.
+        line ??= new TrimLine(fit.Intercept, fit.Slope, fit.Evaluate);
+        var a = line.Intercept;
+        var b = line.Slope;
         var s = spec.Target.SlopeVoltsPerC;
         var v0 = spec.Target.OffsetVolts;
 
@@ -116,7 +118,7 @@ public static class DacTrim
         var offsetCode = (long)TrimMath.RoundCode(idealOffsetCode);
         if (objectiveC is { Count: > 0 })
         {
-            var outputs = objectiveC.Select(t => line?.OutputAt(t) ?? fit.Evaluate(t)).ToArray();
+            var outputs = objectiveC.Select(t => line.OutputAt(t)).ToArray();
             var chosen = DacCodeSearch.Choose(spec, gainFactorAtCalibration, offsetAtCalibration, objectiveC, outputs, gainCode, offsetCode);
             if (chosen.GainCode != gainCode)
             {
@@ -152,7 +154,7 @@ public static class DacTrim
 
         foreach (var checkpoint in checkpoints)
         {
-            var trimmed = (ratio * ((line?.OutputAt(checkpoint.TemperatureC) ?? fit.Evaluate(checkpoint.TemperatureC)) - offsetAtCalibration)) + offsetVolts;
+            var trimmed = (ratio * (line.OutputAt(checkpoint.TemperatureC) - offsetAtCalibration)) + offsetVolts;
             errors.Add(new PredictedError(checkpoint.Name, checkpoint.TemperatureC, ErrorC(trimmed, checkpoint.TemperatureC)));
         }
 

@@ -55,8 +55,10 @@ public static class ResistorTrim
             return CalculationResult<ResistorTrimResult>.Failure(fitResult.Reason!);
         }
 
-        var a = line?.Intercept ?? fit.Intercept;
-        var b = line?.Slope ?? fit.Slope;
+        // Without a line of its own the trim maps the least-squares line through the points.
+        line ??= new TrimLine(fit.Intercept, fit.Slope, fit.Evaluate);
+        var a = line.Intercept;
+        var b = line.Slope;
         var s = spec.Target.SlopeVoltsPerC;
         var v0 = spec.Target.OffsetVolts;
         if (!(b * s > 0.0) || Math.Abs(b) <= 1e-9 * Math.Abs(s))
@@ -115,7 +117,7 @@ public static class ResistorTrim
 
         foreach (var checkpoint in checkpoints)
         {
-            errors.Add(Predict(checkpoint.Name, checkpoint.TemperatureC, line?.OutputAt(checkpoint.TemperatureC) ?? fit.Evaluate(checkpoint.TemperatureC), atCalibration: false));
+            errors.Add(Predict(checkpoint.Name, checkpoint.TemperatureC, line.OutputAt(checkpoint.TemperatureC), atCalibration: false));
         }
 
         return CalculationResult<ResistorTrimResult>.Success(new ResistorTrimResult

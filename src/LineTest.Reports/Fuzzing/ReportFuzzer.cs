@@ -8,6 +8,7 @@ using LineTest.Reports.Csv;
 using LineTest.Reports.Html;
 using LineTest.Reports.Json;
 using LineTest.Reports.Loading;
+using LineTest.Storage.Sqlite;
 using LineTest.Storage.Store;
 using Microsoft.Data.Sqlite;
 using Spectre.Console;
@@ -146,11 +147,9 @@ public static class ReportFuzzer
 
     /// <summary>
     /// Runs one results folder through the report path; never throws. With <paramref name="skipBadRows"/> damaged runs
-    /// are left out (<c>--skip-bad-rows</c>), and each must be named in the report.
+    /// are left out (<c>--skip-bad-rows</c>), and each must be named in the report. The HTML page is made for one input
+    /// in <paramref name="htmlEvery"/> (0: never).
     /// </summary>
-    public static FuzzOutcome RunDatabase(string resultsDirectory, bool skipBadRows, out string? crash) =>
-        RunDatabase(resultsDirectory, skipBadRows, DefaultHtmlEvery, out crash);
-
     private static FuzzOutcome RunDatabase(string resultsDirectory, bool skipBadRows, int htmlEvery, out string? crash)
     {
         crash = null;
@@ -179,11 +178,8 @@ public static class ReportFuzzer
         }
     }
 
-    /// <summary>Fuzzes <paramref name="iterations"/> mutations of a readings CSV.</summary>
-    public static FuzzSummary FuzzCsv(string csv, int iterations, int seed) => FuzzCsv(csv, iterations, seed, workers: 1, DefaultHtmlEvery);
-
     /// <summary>
-    /// As <see cref="FuzzCsv(string, int, int)"/> on <paramref name="workers"/> threads, each with its own seeded
+    /// Fuzzes <paramref name="iterations"/> mutations of a readings CSV on <paramref name="workers"/> threads, each with its own seeded
     /// generator (worker 0 draws what one worker draws), so the inputs depend on the seed and the worker count only.
     /// The HTML page is made for one input in <paramref name="htmlEvery"/> (0: never).
     /// </summary>
@@ -211,7 +207,7 @@ public static class ReportFuzzer
     /// </summary>
     public static FuzzSummary FuzzDatabase(string resultsDirectory, int iterations, int seed, int workers, int htmlEvery)
     {
-        var original = File.ReadAllBytes(ResultsDatabasePath(resultsDirectory));
+        var original = File.ReadAllBytes(ResultsDatabase.PathIn(resultsDirectory));
         var scratches = Enumerable.Range(0, Math.Max(1, workers)).Select(_ => Directory.CreateTempSubdirectory("linetest-fuzz-db-")).ToList();
         try
         {
@@ -221,7 +217,7 @@ public static class ReportFuzzer
                 var scratch = scratches[worker];
                 return () =>
                 {
-                    var path = ResultsDatabasePath(scratch.FullName);
+                    var path = ResultsDatabase.PathIn(scratch.FullName);
                     foreach (var file in scratch.GetFiles())
                     {
                         file.Delete();
@@ -230,7 +226,6 @@ public static class ReportFuzzer
                     File.WriteAllBytes(path, original);
                     MutateDatabase(path, random);
                     var skip = random.Next(2) == 0;
-                    SqliteConnection.ClearAllPools();
                     var outcome = RunDatabase(scratch.FullName, skip, htmlEvery, out var crash);
                     return (outcome, crash);
                 };
@@ -238,7 +233,6 @@ public static class ReportFuzzer
         }
         finally
         {
-            SqliteConnection.ClearAllPools();
             foreach (var scratch in scratches)
             {
                 scratch.Delete(recursive: true);
@@ -247,8 +241,6 @@ public static class ReportFuzzer
     }
 
     private static Random WorkerRandom(int seed, int worker) => new(worker == 0 ? seed : HashCode.Combine(seed, worker));
-
-    private static string ResultsDatabasePath(string directory) => Path.Combine(directory, "results.db");
 
     private static FuzzSummary Run(string kind, int iterations, int workers, Func<int, Func<(FuzzOutcome Outcome, string? Crash)>> worker)
     {

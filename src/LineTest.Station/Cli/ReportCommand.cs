@@ -8,6 +8,7 @@ using LineTest.Reports.Fuzzing;
 using LineTest.Reports.Html;
 using LineTest.Reports.Json;
 using LineTest.Reports.Loading;
+using LineTest.Storage.Sqlite;
 using LineTest.Storage.Store;
 using LineTest.Web.Hosting;
 using Microsoft.Extensions.Logging;
@@ -248,7 +249,7 @@ public static class ReportCommand
         else
         {
             var folder = Path.GetFullPath(folders.Length == 0 ? "results" : folders[0]);
-            if (!File.Exists(Path.Combine(folder, "results.db")))
+            if (!File.Exists(ResultsDatabase.PathIn(folder)))
             {
                 return context.BadInput($"'{folder}' holds no results.db to fuzz");
             }

@@ -63,13 +63,13 @@ public sealed class AccuracyDecomposition
         var ideality = IdealityOf(sequence, run);
         Func<double, double> truth = unit.CalibrationOutputVolts;
 
-        var best = sequence.Trim!.Fit == TrimFits.Minimax
-            ? Minimax(truth, range.LowC, range.HighC)
-            : StationLine(sequence, measured.Select(p => p with { Output = truth(p.ReferenceC) }).ToList(), ideality);
+        // Through the points, the best line from the true curve is the station's line through the true outputs.
         var exact = StationLine(sequence, measured.Select(p => p with { Output = truth(p.ReferenceC) }).ToList(), ideality);
+        var best = sequence.Trim!.Fit == TrimFits.Minimax ? Minimax(truth, range.LowC, range.HighC) : exact;
         var well = StationLine(sequence, measured.Select(p => p with { Output = truth(p.ReferenceC - statedWellOffsetC + wellOffsetC) }).ToList(), ideality);
-        var station = StationLine(sequence, measured, ideality);
-        var trim = Trim(sequence, measured, station, ideality);
+        var stationLine = StationTrimLine(sequence, measured, ideality);
+        var station = stationLine is null ? ((double A, double B)?)null : (stationLine.Intercept, stationLine.Slope);
+        var trim = Trim(sequence, measured, stationLine);
         if (trim is null || best is null || exact is null || well is null || station is null)
         {
             Mismatches++;
@@ -133,16 +133,18 @@ public sealed class AccuracyDecomposition
         return (line.Intercept, line.Slope);
     }
 
-    private static (double A, double B)? StationLine(SequenceDefinition sequence, IReadOnlyList<CalibrationPoint> points, double? ideality)
+    private static (double A, double B)? StationLine(SequenceDefinition sequence, IReadOnlyList<CalibrationPoint> points, double? ideality) =>
+        StationTrimLine(sequence, points, ideality) is { } line ? (line.Intercept, line.Slope) : null;
+
+    /// <summary>The line the station's trim maps, with its curve's output (null when there is no curve or line).</summary>
+    private static TrimLine? StationTrimLine(SequenceDefinition sequence, IReadOnlyList<CalibrationPoint> points, double? ideality)
     {
         var curve = TrimAccuracy.Curve(sequence, points, ideality) is { } result && result.TryGetValue(out var c) ? c : null;
-        return TrimAccuracy.Line(sequence, curve, points) is { } line ? (line.Intercept, line.Slope) : null;
+        return TrimAccuracy.Line(sequence, curve, points);
     }
 
-    private static ITrimResult? Trim(SequenceDefinition sequence, IReadOnlyList<CalibrationPoint> points, (double A, double B)? station, double? ideality)
+    private static ITrimResult? Trim(SequenceDefinition sequence, IReadOnlyList<CalibrationPoint> points, TrimLine? line)
     {
-        var curve = TrimAccuracy.Curve(sequence, points, ideality) is { } r && r.TryGetValue(out var c) ? c : null;
-        var line = station is { } s ? new TrimLine(s.A, s.B, curve is null ? _ => double.NaN : curve.OutputAt) : null;
         var trim = sequence.Trim!;
         if (trim.Dac is { } dac)
         {
