@@ -13,11 +13,36 @@ public static class AndersonDarling
     /// </summary>
     public static StatisticOutcome<AndersonDarlingResult> Test(ReadOnlySpan<double> values)
     {
+        if (values.Length < MinimumCount)
+        {
+            return Test(values, []);
+        }
+
+        var sorted = values.ToArray();
+        Array.Sort(sorted);
+        return Test(values, sorted);
+    }
+
+    /// <summary>
+    /// Tests whether the values look normal, with the values already sorted by the caller (so one sort serves this test
+    /// and the percentiles). The mean and σ are taken from <paramref name="values"/> in their own order, so the result
+    /// is exactly that of <see cref="Test(ReadOnlySpan{double})"/>.
+    /// </summary>
+    /// <param name="values">The values, in any order (the order of the report: run order).</param>
+    /// <param name="sorted">The same values in ascending order.</param>
+    /// <exception cref="ArgumentException">The two spans differ in length, or <paramref name="sorted"/> is not ascending.</exception>
+    public static StatisticOutcome<AndersonDarlingResult> Test(ReadOnlySpan<double> values, ReadOnlySpan<double> sorted)
+    {
         var n = values.Length;
         if (n < MinimumCount)
         {
             return StatisticOutcome<AndersonDarlingResult>.NotComputed(
                 $"The normality test needs at least {MinimumCount} values; got {n}.");
+        }
+
+        if (sorted.Length != n)
+        {
+            throw new ArgumentException($"sorted has {sorted.Length} values but values has {n}; pass the same values sorted.", nameof(sorted));
         }
 
         var mean = Descriptive.Mean(values);
@@ -27,8 +52,13 @@ public static class AndersonDarling
             return StatisticOutcome<AndersonDarlingResult>.NotComputed("All values are equal: normality cannot be judged.");
         }
 
-        var sorted = values.ToArray();
-        Array.Sort(sorted);
+        for (var i = 1; i < n; i++)
+        {
+            if (!(sorted[i - 1] <= sorted[i]))
+            {
+                throw new ArgumentException($"sorted[{i - 1}] = {sorted[i - 1]} is above sorted[{i}] = {sorted[i]}; pass the values in ascending order.", nameof(sorted));
+            }
+        }
 
         // A² = −n − (1/n)·Σ (2i − 1)·[ln Φ(z_i) + ln(1 − Φ(z_{n+1−i}))], regrouped so each z is used once:
         // value i (1-based) contributes (2i − 1)·ln Φ(z_i) + (2(n − i) + 1)·ln(1 − Φ(z_i)).

@@ -40,6 +40,40 @@ public static class PercentileCapability
         }
 
         Array.Sort(sorted);
+        return AnalyzeSorted(sorted, limits);
+    }
+
+    /// <summary>
+    /// As <see cref="Analyze"/>, for values the caller has already sorted ascending (so one sort serves the percentiles
+    /// and the normality test).
+    /// </summary>
+    /// <exception cref="ArgumentException">A value is not finite, or <paramref name="sorted"/> is not ascending.</exception>
+    public static StatisticOutcome<PercentileCapabilityResult> AnalyzeSorted(ReadOnlySpan<double> sorted, SpecLimits limits)
+    {
+        if (!limits.Lower.HasValue && !limits.Upper.HasValue)
+        {
+            return StatisticOutcome<PercentileCapabilityResult>.NotComputed("No specification limits: percentile capability is not defined.");
+        }
+
+        if (sorted.Length < MinimumCount)
+        {
+            return StatisticOutcome<PercentileCapabilityResult>.NotComputed(
+                $"Percentile capability needs at least {MinimumCount} values; got {sorted.Length}.");
+        }
+
+        for (var i = 0; i < sorted.Length; i++)
+        {
+            if (!double.IsFinite(sorted[i]))
+            {
+                throw new ArgumentException($"sorted[{i}] is {sorted[i]}; remove missing or non-finite readings first.", nameof(sorted));
+            }
+
+            if (i > 0 && sorted[i - 1] > sorted[i])
+            {
+                throw new ArgumentException($"sorted[{i - 1}] = {sorted[i - 1]} is above sorted[{i}] = {sorted[i]}; pass the values in ascending order.", nameof(sorted));
+            }
+        }
+
         var low = Quantile(sorted, LowerFraction);
         var median = Quantile(sorted, 0.5);
         var high = Quantile(sorted, UpperFraction);

@@ -134,4 +134,30 @@ public sealed class AndersonDarlingTests
     {
         Assert.True(AndersonDarling.PValue(10_000) <= AndersonDarling.PValue(150));
     }
+
+    [Fact]
+    public void Test_WithTheSortedValuesGiven_ExactlyTheResultOfSortingItself()
+    {
+        // The shared-sort overload takes the mean and σ from the values in their own order, so nothing moves, not even
+        // the last bit [derived: same arithmetic in the same order].
+        Gen.Double[-1e3, 1e3].Array[3, 300].Sample(values =>
+        {
+            var sorted = values.Order().ToArray();
+            return Equals(AndersonDarling.Test(values).Value, AndersonDarling.Test(values, sorted).Value);
+        });
+    }
+
+    [Fact]
+    public void Test_SortedNotAscending_ThrowsNamingWhere()
+    {
+        double[] values = [3, 1, 2, 5, 4];
+        var ex = Assert.Throws<ArgumentException>(() => AndersonDarling.Test(values, [1.0, 2, 4, 3, 5]));
+        Assert.Contains("sorted[2]", ex.Message, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Test_SortedOfAnotherLength_Throws()
+    {
+        Assert.Throws<ArgumentException>(() => AndersonDarling.Test([3.0, 1, 2, 5], [1.0, 2, 3]));
+    }
 }

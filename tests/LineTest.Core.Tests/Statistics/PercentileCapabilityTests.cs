@@ -1,3 +1,4 @@
+using CsCheck;
 using LineTest.Core.Statistics;
 using MathNet.Numerics.Distributions;
 using MathNet.Numerics.Statistics;
@@ -75,5 +76,33 @@ public sealed class PercentileCapabilityTests
     public void Analyze_NoLimits_IsNotComputed()
     {
         Assert.Null(PercentileCapability.Analyze([1.0, 2, 3, 4], new SpecLimits(null, null)).Value);
+    }
+
+    [Fact]
+    public void AnalyzeSorted_SameAsAnalyze()
+    {
+        // The same order statistics whichever way the values arrive [derived].
+        Gen.Select(Gen.Double[-100, 100].Array[0, 200], Gen.Double[-150, -1], Gen.Double[1, 150]).Sample(t =>
+        {
+            var (values, low, high) = t;
+            var limits = SpecLimits.Between(low, high);
+            var sorted = values.Order().ToArray();
+            var a = PercentileCapability.Analyze(values, limits);
+            var b = PercentileCapability.AnalyzeSorted(sorted, limits);
+            return Equals(a.Value, b.Value) && a.Reason == b.Reason;
+        });
+    }
+
+    [Fact]
+    public void AnalyzeSorted_NotAscending_ThrowsNamingWhere()
+    {
+        var ex = Assert.Throws<ArgumentException>(() => PercentileCapability.AnalyzeSorted([1.0, 3, 2, 4], SpecLimits.Between(0, 5)));
+        Assert.Contains("sorted[1]", ex.Message, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void AnalyzeSorted_NonFiniteValue_Throws()
+    {
+        Assert.Throws<ArgumentException>(() => PercentileCapability.AnalyzeSorted([1.0, 2, double.PositiveInfinity], SpecLimits.Between(0, 5)));
     }
 }
