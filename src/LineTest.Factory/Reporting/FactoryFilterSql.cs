@@ -17,12 +17,30 @@ internal static class FactoryFilterSql
     /// </summary>
     public static string Where(ReportQuery query, string alias, NpgsqlCommand command, bool runConditions, (DateTime From, DateTime To)? month = null)
     {
-        var conditions = new List<string>();
-        void Add(string condition, string name, NpgsqlDbType type, object value)
+        ArgumentNullException.ThrowIfNull(command);
+        return Where(query, alias, runConditions, month, (name, type, value) =>
         {
-            conditions.Add(condition);
             command.Parameters.Add(new NpgsqlParameter(name, type) { Value = value });
-        }
+            return "@" + name;
+        });
+    }
+
+    /// <summary>
+    /// The same conditions as <see cref="Where(ReportQuery, string, NpgsqlCommand, bool, ValueTuple{DateTime, DateTime}?)"/>
+    /// with the values written in as literals (<see cref="SqlLiteral"/>), for a <c>COPY (query) TO STDOUT</c>, which
+    /// takes no parameters.
+    /// </summary>
+    public static string WhereLiteral(ReportQuery query, string alias, bool runConditions, (DateTime From, DateTime To)? month = null) =>
+        Where(query, alias, runConditions, month, (_, type, value) => SqlLiteral.Of(type, value));
+
+    /// <summary>The conditions, each value written by <paramref name="value"/> (name, type, value → SQL text).</summary>
+    private static string Where(
+        ReportQuery query, string alias, bool runConditions, (DateTime From, DateTime To)? month, Func<string, NpgsqlDbType, object, string> value)
+    {
+        ArgumentNullException.ThrowIfNull(query);
+        var conditions = new List<string>();
+        void Add(string condition, string name, NpgsqlDbType type, object v) =>
+            conditions.Add(condition.Replace("@" + name, value(name, type, v), StringComparison.Ordinal));
 
         if (query.FromUtc is { } from)
         {

@@ -1,3 +1,4 @@
+using System.Diagnostics;
 using LineTest.Reports.Loading;
 using Npgsql;
 
@@ -18,7 +19,8 @@ internal static class FactoryReadingStream
     /// <summary>
     /// Adds every reading of the runs in <paramref name="runs"/> to <paramref name="data"/>'s series, reading the
     /// <paramref name="months"/> (those of the runs, from <see cref="Months"/>) on the given connections (each in a
-    /// transaction on the same snapshot) at once.
+    /// transaction on the same snapshot) at once; with <paramref name="times"/>, notes when the readings were read and
+    /// placed (Stopwatch time since <paramref name="started"/>).
     /// </summary>
     public static async Task ReadAsync(
         IReadOnlyList<(NpgsqlConnection Connection, NpgsqlTransaction Transaction)> connections,
@@ -26,21 +28,35 @@ internal static class FactoryReadingStream
         RunIndex runs,
         IReadOnlyList<(DateTime From, DateTime To)> months,
         ReportData data,
+        FactoryLoadTimes? times,
+        long started,
         CancellationToken ct)
     {
         var parts = await Task.WhenAll(connections.Select((c, k) => Task.Run(
             async () =>
             {
+                // One connection's buckets and texts across its months, so a name is one string and finds its bucket
+                // by reference from the first month to the last.
                 var part = new Dictionary<(string Sequence, string Name), SeriesBucket>();
+                var texts = (Names: new CopyTextCache(), Units: new CopyTextCache());
                 for (var m = k; m < months.Count; m += connections.Count)
                 {
-                    await ReadMonthAsync(c.Connection, c.Transaction, query, months[m], runs, data.Runs, part, ct).ConfigureAwait(false);
+                    await ReadMonthAsync(c.Connection, query, months[m], runs, data.Runs, part, texts, ct).ConfigureAwait(false);
                 }
 
                 return part;
             },
             ct))).ConfigureAwait(false);
+        if (times is not null)
+        {
+            times.ReadingsRead = Stopwatch.GetElapsedTime(started);
+        }
+
         Fill(parts, data);
+        if (times is not null)
+        {
+            times.ReadingsPlaced = Stopwatch.GetElapsedTime(started);
+        }
     }
 
     /// <summary>UTC month starts covering [first, last] ticks: each month is one partition of <c>readings</c>.</summary>
@@ -60,57 +76,85 @@ internal static class FactoryReadingStream
 
     private static async Task ReadMonthAsync(
         NpgsqlConnection connection,
-        NpgsqlTransaction transaction,
         ReportQuery query,
         (DateTime From, DateTime To) month,
         RunIndex runs,
         RunTable table,
         Dictionary<(string Sequence, string Name), SeriesBucket> part,
+        (CopyTextCache Names, CopyTextCache Units) texts,
         CancellationToken ct)
     {
-        await using var command = new NpgsqlCommand(string.Empty, connection, transaction) { CommandTimeout = 0 };
-        var where = FactoryFilterSql.Where(query, "g", command, runConditions: false, month);
-        command.CommandText = $"""
-            SELECT g.chain_id, g.station_seq, g.ordinal, g.name, g.value, g.unit, g.low, g.high
-              FROM readings g{where};
-            """;
-        await using var reader = await command.ExecuteReaderAsync(System.Data.CommandBehavior.SequentialAccess, ct).ConfigureAwait(false);
+        // Binary COPY, decoded in place: no object per reading (see CopyBinaryReader).
+        var where = FactoryFilterSql.WhereLiteral(query, "g", runConditions: false, month);
+        await using var reader = await CopyBinaryReader.StartAsync(
+            connection,
+            $"COPY (SELECT g.chain_id, g.station_seq, g.ordinal, g.name, g.value, g.unit, g.low, g.high FROM readings g{where}) TO STDOUT (FORMAT BINARY)",
+            fields: 8,
+            ct).ConfigureAwait(false);
 
         // Readings are analysed per (sequence, name), never pooled across products, as for station folders. A run's
-        // readings usually come together, so the last bucket is kept at hand.
-        SeriesBucket? bucket = null;
-        while (await reader.ReadAsync(ct).ConfigureAwait(false))
+        // readings come together, one of each name, so the few buckets used last are kept at hand; names and sequence
+        // ids are shared strings, compared by reference.
+        var recent = new SeriesBucket?[8];
+        var chain = Guid.Empty;
+        var chainNumber = -1L;
+        while (await reader.NextRowAsync(ct).ConfigureAwait(false))
         {
-            var run = runs.Find(reader.GetGuid(0), reader.GetInt64(1));
+            var chainId = reader.ReadGuid();
+            if (chainId != chain || chainNumber < 0)
+            {
+                chain = chainId;
+                chainNumber = runs.ChainNumber(chainId);
+            }
+
+            var run = runs.Find(chainNumber, reader.ReadInt64());
             if (run < 0)
             {
                 // A reading of a run the run conditions (slot, lot, sequence) left out.
                 continue;
             }
 
-            var ordinal = reader.GetInt32(2);
+            var ordinal = reader.ReadInt32();
             if (ordinal < 0 || ordinal >= 1 << OrdinalBits)
             {
                 throw new InvalidDataException($"Reading ordinal {ordinal} of run {run} is outside 0…2^{OrdinalBits}.");
             }
 
-            var name = reader.GetString(3);
-            var value = reader.IsDBNull(4) ? double.NaN : reader.GetDouble(4);
-            var unit = reader.GetString(5);
-            double? low = reader.IsDBNull(6) ? null : reader.GetDouble(6);
-            double? high = reader.IsDBNull(7) ? null : reader.GetDouble(7);
+            var name = reader.ReadText(texts.Names) ?? throw new InvalidDataException($"Reading {ordinal} of run {run} has no name.");
+            var value = reader.ReadNullableDouble() ?? double.NaN;
+            var unit = reader.ReadText(texts.Units) ?? throw new InvalidDataException($"Reading {ordinal} of run {run} has no unit.");
+            var low = reader.ReadNullableDouble();
+            var high = reader.ReadNullableDouble();
             var sequence = table.SequenceId(run)!;
-            if (bucket is null || !ReferenceEquals(bucket.Sequence, sequence) || !string.Equals(bucket.Name, name, StringComparison.Ordinal))
-            {
-                if (!part.TryGetValue((sequence, name), out bucket))
-                {
-                    bucket = new SeriesBucket(sequence) { Name = name };
-                    part.Add((sequence, name), bucket);
-                }
-            }
-
+            var bucket = Recent(recent, sequence, name) ?? Remember(recent, part, sequence, name);
             bucket.Add(((long)run << OrdinalBits) | (uint)ordinal, value, new ReadingShape(name, unit, low, high));
         }
+    }
+
+    private static SeriesBucket? Recent(SeriesBucket?[] recent, string sequence, string name)
+    {
+        foreach (var bucket in recent)
+        {
+            if (bucket is not null && ReferenceEquals(bucket.Sequence, sequence) && ReferenceEquals(bucket.Name, name))
+            {
+                return bucket;
+            }
+        }
+
+        return null;
+    }
+
+    private static SeriesBucket Remember(SeriesBucket?[] recent, Dictionary<(string Sequence, string Name), SeriesBucket> part, string sequence, string name)
+    {
+        if (!part.TryGetValue((sequence, name), out var bucket))
+        {
+            bucket = new SeriesBucket(sequence) { Name = name };
+            part.Add((sequence, name), bucket);
+        }
+
+        Array.Copy(recent, 0, recent, 1, recent.Length - 1);
+        recent[0] = bucket;
+        return bucket;
     }
 
     /// <summary>Merges the parts' buckets per (sequence, name), sorts each into run and reading order and fills the series.</summary>

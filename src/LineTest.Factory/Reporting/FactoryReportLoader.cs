@@ -1,3 +1,4 @@
+using System.Diagnostics;
 using LineTest.Factory.Schema;
 using LineTest.Reports.Loading;
 using Npgsql;
@@ -18,7 +19,7 @@ public static class FactoryReportLoader
     /// </summary>
     /// <exception cref="NpgsqlException">The database cannot be reached or read.</exception>
     public static Task<ReportData> LoadAsync(NpgsqlDataSource dataSource, ReportQuery query, CancellationToken ct = default) =>
-        LoadAsync(dataSource, query, countYield: false, ct);
+        LoadAsync(dataSource, query, countYield: false, times: null, ct);
 
     /// <summary>
     /// Loads the data for a report with the yield counted in SQL (<see cref="ReportData.Tally"/>: yield, first-pass
@@ -29,10 +30,22 @@ public static class FactoryReportLoader
     /// </summary>
     /// <exception cref="NpgsqlException">The database cannot be reached or read.</exception>
     public static Task<ReportData> LoadCountedAsync(NpgsqlDataSource dataSource, ReportQuery query, CancellationToken ct = default) =>
-        LoadAsync(dataSource, query, countYield: true, ct);
+        LoadAsync(dataSource, query, countYield: true, times: null, ct);
 
-    private static async Task<ReportData> LoadAsync(NpgsqlDataSource dataSource, ReportQuery query, bool countYield, CancellationToken ct)
+    /// <summary>
+    /// As <see cref="LoadCountedAsync(NpgsqlDataSource, ReportQuery, CancellationToken)"/>, noting in
+    /// <paramref name="times"/> when each part of the load was done (for the benchmark).
+    /// </summary>
+    /// <exception cref="NpgsqlException">The database cannot be reached or read.</exception>
+    public static Task<ReportData> LoadCountedAsync(NpgsqlDataSource dataSource, ReportQuery query, FactoryLoadTimes times, CancellationToken ct = default)
     {
+        ArgumentNullException.ThrowIfNull(times);
+        return LoadAsync(dataSource, query, countYield: true, times, ct);
+    }
+
+    private static async Task<ReportData> LoadAsync(NpgsqlDataSource dataSource, ReportQuery query, bool countYield, FactoryLoadTimes? times, CancellationToken ct)
+    {
+        var started = Stopwatch.GetTimestamp();
         ArgumentNullException.ThrowIfNull(dataSource);
         ArgumentNullException.ThrowIfNull(query);
         var data = new ReportData();
@@ -62,9 +75,14 @@ public static class FactoryReportLoader
                 : [];
             var connections = others.Prepend((session.Connection, session.Transaction)).ToList();
             var (keys, months) = await LoadRunsAsync(connections, query, data, countYield, ct).ConfigureAwait(false);
+            if (times is not null)
+            {
+                times.RunsRead = Stopwatch.GetElapsedTime(started);
+            }
+
             if (keys.Count > 0)
             {
-                await FactoryReadingStream.ReadAsync(connections, query, keys, months, data, ct).ConfigureAwait(false);
+                await FactoryReadingStream.ReadAsync(connections, query, keys, months, data, times, started, ct).ConfigureAwait(false);
             }
 
             if (countYield)
@@ -72,6 +90,11 @@ public static class FactoryReportLoader
                 data.Tally = counting is null
                     ? await FactoryYieldCounter.CountAsync(session.Connection, session.Transaction, query, ct).ConfigureAwait(false)
                     : await counting.ConfigureAwait(false);
+                if (times is not null)
+                {
+                    times.YieldCounted = Stopwatch.GetElapsedTime(started);
+                }
+
                 if (query.FirstRunsOnly)
                 {
                     data.Tally.FirstRunFlags = keys.FirstRunFlags;
@@ -119,7 +142,7 @@ public static class FactoryReportLoader
             {
                 for (var m = k; m < runMonths.Count; m += connections.Count)
                 {
-                    parts[m] = await ReadRunsAsync(c.Connection, c.Transaction, query, countYield, runMonths[m], ct).ConfigureAwait(false);
+                    parts[m] = await ReadRunsAsync(c.Connection, query, countYield, runMonths[m], ct).ConfigureAwait(false);
                 }
             },
             ct))).ConfigureAwait(false);
@@ -164,59 +187,76 @@ public static class FactoryReportLoader
     }
 
     private static async Task<List<RunRow>> ReadRunsAsync(
-        NpgsqlConnection connection, NpgsqlTransaction transaction, ReportQuery query, bool countYield, (DateTime From, DateTime To)? month, CancellationToken ct)
+        NpgsqlConnection connection, ReportQuery query, bool countYield, (DateTime From, DateTime To)? month, CancellationToken ct)
     {
-        await using var command = new NpgsqlCommand(string.Empty, connection, transaction) { CommandTimeout = 0 };
-        var where = FactoryFilterSql.Where(query, "r", command, runConditions: true, month);
-
+        var where = FactoryFilterSql.WhereLiteral(query, "r", runConditions: true, month);
         var operators = query.GroupBy == ReportGrouping.Operator;
         var firstRuns = countYield && query.FirstRunsOnly;
         var outcome = countYield
             ? firstRuns ? $", row_number() OVER (PARTITION BY r.serial ORDER BY {FactoryYieldCounter.RunOrder("r")}) = 1" : string.Empty
             : ", r.serial, r.verdict, r.first_failing_reading, r.reason";
-        command.CommandText = $"""
-            SELECT r.chain_id, r.station_seq, r.ended_ticks, r.station, r.slot, r.lot, r.sequence_id, r.sequence_revision,
-                   r.product, {(operators ? "r.operator" : "NULL::text")}{outcome}
-              FROM runs r{where} ORDER BY {FactoryYieldCounter.RunOrder("r")};
-            """;
-        await using var reader = await command.ExecuteReaderAsync(ct).ConfigureAwait(false);
+        var fields = 10 + (countYield ? firstRuns ? 1 : 0 : 4);
 
-        // Stations, lots and sequences repeat: one string each, not one per run.
-        var texts = new Dictionary<string, string>(StringComparer.Ordinal);
-        string Shared(string text) => texts.TryGetValue(text, out var same) ? same : texts[text] = text;
+        // Binary COPY, decoded in place (see CopyBinaryReader); stations, lots and sequences repeat, so each is one
+        // string, not one per run.
+        await using var reader = await CopyBinaryReader.StartAsync(
+            connection,
+            $"""
+            COPY (SELECT r.chain_id, r.station_seq, r.ended_ticks, r.station, r.slot, r.lot, r.sequence_id, r.sequence_revision,
+                         r.product, {(operators ? "r.operator" : "NULL::text")}{outcome}
+                    FROM runs r{where} ORDER BY {FactoryYieldCounter.RunOrder("r")}) TO STDOUT (FORMAT BINARY)
+            """,
+            fields,
+            ct).ConfigureAwait(false);
+        var texts = new CopyTextCache();
+        var people = new CopyTextCache();
+        var reasons = new CopyTextCache();
         var rows = new List<RunRow>();
         string? lastSequence = null;
-        while (await reader.ReadAsync(ct).ConfigureAwait(false))
+        while (await reader.NextRowAsync(ct).ConfigureAwait(false))
         {
-            var sequenceId = Shared(reader.GetString(6));
+            var chain = reader.ReadGuid();
+            var seq = reader.ReadInt64();
+            var ended = reader.ReadInt64();
+            var station = reader.ReadText(texts) ?? throw NullColumn("station", reader.Row);
+            var slot = reader.ReadInt32();
+            var lot = reader.ReadText(texts);
+            var sequenceId = reader.ReadText(texts) ?? throw NullColumn("sequence_id", reader.Row);
+            var revision = reader.ReadInt32();
+
+            // The product is taken from a sequence's first run only (as the folder loader does).
             string? product = null;
             if (!ReferenceEquals(sequenceId, lastSequence))
             {
-                product = reader.GetString(8);
+                product = reader.ReadText(texts) ?? throw NullColumn("product", reader.Row);
                 lastSequence = sequenceId;
             }
+            else
+            {
+                reader.TryReadText(out _);
+            }
 
-            var lot = NullableString(reader, 5);
+            var person = reader.ReadText(people);
             rows.Add(new RunRow(
-                reader.GetInt64(2),
-                reader.GetGuid(0),
-                reader.GetInt64(1),
-                Shared(reader.GetString(3)),
-                reader.GetInt32(4),
-                lot is null ? null : Shared(lot),
+                ended,
+                chain,
+                seq,
+                station,
+                slot,
+                lot,
                 sequenceId,
-                reader.GetInt32(7),
+                revision,
                 product,
-                operators ? NullableString(reader, 9) : null,
-                countYield ? null : reader.GetString(10),
-                countYield ? default : FactoryYieldCounter.ParseVerdict(reader.GetString(11)),
-                countYield ? null : NullableString(reader, 12),
-                countYield ? null : NullableString(reader, 13),
-                firstRuns && reader.GetBoolean(10)));
+                operators ? person : null,
+                countYield ? null : reader.ReadText() ?? throw NullColumn("serial", reader.Row),
+                countYield ? default : FactoryYieldCounter.ParseVerdict(reader.ReadText(texts) ?? throw NullColumn("verdict", reader.Row)),
+                countYield ? null : reader.ReadText(reasons),
+                countYield ? null : reader.ReadText(reasons),
+                firstRuns && reader.ReadBoolean()));
         }
 
         return rows;
     }
 
-    private static string? NullableString(NpgsqlDataReader reader, int ordinal) => reader.IsDBNull(ordinal) ? null : reader.GetString(ordinal);
+    private static InvalidDataException NullColumn(string column, long row) => new($"Run row {row}: column {column} is NULL, which the schema does not allow.");
 }

@@ -42,6 +42,12 @@ internal sealed class RunIndex
     }
 
     /// <summary>The index of run (<paramref name="chain"/>, <paramref name="seq"/>), or -1 when it was not loaded.</summary>
-    public int Find(Guid chain, long seq) =>
-        _chains.TryGetValue(chain, out var number) && _runs.TryGetValue((number << SeqBits) | seq, out var run) ? run : -1;
+    public int Find(Guid chain, long seq) => Find(ChainNumber(chain), seq);
+
+    /// <summary>The number of station database <paramref name="chain"/> in this index, -1 when none of its runs was loaded.</summary>
+    public long ChainNumber(Guid chain) => _chains.TryGetValue(chain, out var number) ? number : -1;
+
+    /// <summary>The index of run <paramref name="seq"/> of the station database numbered <paramref name="chainNumber"/>, or -1.</summary>
+    public int Find(long chainNumber, long seq) =>
+        chainNumber >= 0 && seq >= 0 && seq < 1L << SeqBits && _runs.TryGetValue((chainNumber << SeqBits) | seq, out var run) ? run : -1;
 }

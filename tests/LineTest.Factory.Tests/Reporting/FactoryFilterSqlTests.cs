@@ -17,7 +17,7 @@ public sealed class FactoryFilterSqlTests
     // query has no serial condition, so the cases have none. One database for all samples; each sample's runs are told
     // apart by their run ids.
     [PostgresFact]
-    public async Task Where_AnyRunsAnyFilters_SameRunsAsTheRunFilterPredicate()
+    public async Task Where_AnyRunsAnyFilters_SameRunsAsTheRunFilterPredicate_WithParametersAndWithLiterals()
     {
         await using var database = await TestDatabase.CreateAsync();
         var forwarder = Support.Factory.Forwarder(database);
@@ -63,8 +63,24 @@ public sealed class FactoryFilterSqlTests
                         }
                     }
 
+                    // The same conditions with the values written in as literals (for COPY, which takes no parameters).
+                    var literal = new List<Guid>();
+                    await using (var plain = database.DataSource.CreateCommand("SELECT r.run_id FROM runs r" + FactoryFilterSql.WhereLiteral(query, "r", runConditions: true) + ";"))
+                    await using (var reader = await plain.ExecuteReaderAsync())
+                    {
+                        while (await reader.ReadAsync())
+                        {
+                            var id = reader.GetGuid(0);
+                            if (ids.Contains(id))
+                            {
+                                literal.Add(id);
+                            }
+                        }
+                    }
+
                     Assert.True(runs.Where(f.Expects).Select(r => r.Id).Order().SequenceEqual(predicate), $"C# predicate: {f}");
                     Assert.True(predicate.SequenceEqual(sql.Order()), $"factory SQL: {f} over {Describe(runs)}");
+                    Assert.True(predicate.SequenceEqual(literal.Order()), $"factory SQL with literals: {f} over {Describe(runs)}");
                 }
             },
             iter: 25,
