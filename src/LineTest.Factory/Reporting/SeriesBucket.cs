@@ -86,6 +86,7 @@ internal sealed class SeriesBucket(string sequence)
     /// <summary>Adds the sorted readings to <paramref name="series"/>, one by one, and lets them go.</summary>
     public void FillInto(ReadingSeries series, int ordinalBits)
     {
+        series.EnsureCapacity(series.Count + _keys.Count);
         for (var i = 0; i < _keys.Count; i++)
         {
             var shape = _shapes[_shapeOf[i]];

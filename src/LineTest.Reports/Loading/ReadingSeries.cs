@@ -49,6 +49,17 @@ public sealed class ReadingSeries
     /// <summary>For each value, the index of its run.</summary>
     public ReadOnlySpan<int> Runs => System.Runtime.InteropServices.CollectionsMarshal.AsSpan(_runs);
 
+    /// <summary>
+    /// Makes room for <paramref name="count"/> values in all, so a source that knows how many are coming (a factory
+    /// database streams a million at a time) does not have the lists grow and copy themselves step by step.
+    /// </summary>
+    public void EnsureCapacity(int count)
+    {
+        ArgumentOutOfRangeException.ThrowIfNegative(count);
+        _values.EnsureCapacity(count);
+        _runs.EnsureCapacity(count);
+    }
+
     /// <summary>Adds one reading of run <paramref name="run"/>.</summary>
     public void Add(int run, double? value, string unit, double? low, double? high)
     {
