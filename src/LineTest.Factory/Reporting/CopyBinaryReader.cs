@@ -25,6 +25,7 @@ internal sealed class CopyBinaryReader : IAsyncDisposable
     private int _rowEnd;
     private int _field;
     private bool _done;
+    private bool _ended;
     private bool _lastWasNull;
 
     private CopyBinaryReader(Stream stream, int fields)
@@ -75,7 +76,7 @@ internal sealed class CopyBinaryReader : IAsyncDisposable
             {
                 // The end-of-data marker is the last of the data: the stream ends with it.
                 _done = true;
-                while (await _stream.ReadAsync(_buffer, ct).ConfigureAwait(false) > 0)
+                while (!_ended && await _stream.ReadAsync(_buffer, ct).ConfigureAwait(false) > 0)
                 {
                 }
 
@@ -214,9 +215,18 @@ internal sealed class CopyBinaryReader : IAsyncDisposable
         return at - _start;
     }
 
-    /// <summary>Keeps the unread bytes from <see cref="_start"/>, growing the buffer for a long row, and reads more.</summary>
+    /// <summary>
+    /// Keeps the unread bytes from <see cref="_start"/>, growing the buffer for a long row, and reads more: until the
+    /// buffer is three quarters full or the data ends. The stream gives one row (one CopyData message) per read, so the
+    /// rows are gathered here and then decoded in one run, not one wait per row.
+    /// </summary>
     private async ValueTask FillAsync(CancellationToken ct)
     {
+        if (_ended)
+        {
+            throw new InvalidDataException($"The COPY data ended inside row {Row + 1}, before its end-of-data marker.");
+        }
+
         var kept = _end - _start;
         if (kept == _buffer.Length)
         {
@@ -231,13 +241,24 @@ internal sealed class CopyBinaryReader : IAsyncDisposable
         _position = 0;
         _rowEnd = 0;
         _end = kept;
-        var read = await _stream.ReadAsync(_buffer.AsMemory(_end), ct).ConfigureAwait(false);
-        if (read == 0)
+        var enough = _buffer.Length - (_buffer.Length / 4);
+        do
+        {
+            var read = await _stream.ReadAsync(_buffer.AsMemory(_end), ct).ConfigureAwait(false);
+            if (read == 0)
+            {
+                _ended = true;
+                break;
+            }
+
+            _end += read;
+        }
+        while (_end < enough);
+
+        if (_end == kept)
         {
             throw new InvalidDataException($"The COPY data ended inside row {Row + 1}, before its end-of-data marker.");
         }
-
-        _end += read;
     }
 
     private async Task ReadHeaderAsync(CancellationToken ct)

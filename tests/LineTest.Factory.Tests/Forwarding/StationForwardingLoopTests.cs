@@ -84,7 +84,7 @@ public sealed class StationForwardingLoopTests
     public async Task RunAsync_ServerUnreachable_LogsTheBacklogCountAndOldestRunAndTheScreenSeesThem()
     {
         // Nothing listens on port 1 of the loopback: every attempt is refused at once.
-        await using var dataSource = Schema.FactoryConnection.Create("Host=127.0.0.1;Port=1;Username=postgres;Database=none;Timeout=2");
+        await using var dataSource = global::LineTest.Factory.Schema.FactoryConnection.Create("Host=127.0.0.1;Port=1;Username=postgres;Database=none;Timeout=2");
         await using var station = new StationFolder("ST-07", Start);
         await station.AddRunsAsync(4);
         var logger = new RecordingLogger<StationForwardingLoop>();
