@@ -83,6 +83,9 @@ public static class FactoryBenchCommand
                     $"report --factory --json over {data.Runs.Count} runs: {watch.Elapsed.TotalSeconds:F2} s (load {loaded:F2} s, statistics {built - loaded:F2} s, JSON {watch.Elapsed.TotalSeconds - built:F2} s), {json.Length / 1024} KiB of JSON, peak working set {process.PeakWorkingSet64 / (1024 * 1024)} MB; {watch.Elapsed.TotalSeconds / floor:F1} x the floor"));
                 context.Output.WriteLine(string.Create(
                     inv,
+                    $"  garbage collections {GC.CollectionCount(0)}/{GC.CollectionCount(1)}/{GC.CollectionCount(2)} (gen 0/1/2), paused {GC.GetTotalPauseDuration().TotalSeconds:F2} s; processor time of this process {process.TotalProcessorTime.TotalSeconds:F2} s"));
+                context.Output.WriteLine(string.Create(
+                    inv,
                     $"  load, from its start: runs read {times.RunsRead.TotalSeconds:F2} s, readings read {times.ReadingsRead.TotalSeconds:F2} s, placed in run order {times.ReadingsPlaced.TotalSeconds:F2} s, yield count received {times.YieldCounted.TotalSeconds:F2} s"));
                 return ExitCodes.Done;
             }
