@@ -136,44 +136,72 @@ public static class FactoryReportLoader
         IReadOnlyList<(DateTime From, DateTime To)?> runMonths = query.FirstRunsOnly || connections.Count == 1
             ? [null]
             : [.. months.Select(m => ((DateTime, DateTime)?)m)];
-        var parts = new List<RunRow>[runMonths.Count];
-        await Task.WhenAll(connections.Select((c, k) => Task.Run(
-            async () =>
-            {
-                for (var m = k; m < runMonths.Count; m += connections.Count)
-                {
-                    parts[m] = await ReadRunsAsync(c.Connection, query, countYield, runMonths[m], ct).ConfigureAwait(false);
-                }
-            },
-            ct))).ConfigureAwait(false);
-
-        var runs = data.Runs;
-        for (var m = 0; m < parts.Length; m++)
+        // Each connection reads its months in turn; the months are appended here in order as soon as each is read, so
+        // only the months in flight are held, not all the runs twice.
+        var ready = runMonths.Select(_ => new TaskCompletionSource<List<RunRow>>(TaskCreationOptions.RunContinuationsAsynchronously)).ToArray();
+        using var stop = CancellationTokenSource.CreateLinkedTokenSource(ct);
+        var readers = connections.Select((c, k) => Task.Run(async () =>
         {
-            foreach (var row in parts[m])
+            for (var m = k; m < runMonths.Count; m += connections.Count)
             {
-                if (row.Product is { } product && !data.Products.ContainsKey(row.SequenceId))
+                try
                 {
-                    // The product of a sequence's first run, as the folder loader takes it.
-                    data.AddProduct(row.SequenceId, product);
+                    ready[m].SetResult(await ReadRunsAsync(c.Connection, query, countYield, runMonths[m], stop.Token).ConfigureAwait(false));
                 }
-
-                var ended = new DateTimeOffset(row.EndedTicks, TimeSpan.Zero);
-                var run = countYield
-                    ? runs.AddWithoutOutcome(ended, row.Station, row.Slot, row.Lot, row.SequenceId, row.Revision)
-                    : runs.Add(row.Serial!, ended, row.Verdict, row.Station, row.Slot, row.Lot, row.SequenceId, row.Revision, row.Failure, row.Reason);
-                if (query.GroupBy == ReportGrouping.Operator)
+                catch (Exception ex)
                 {
-                    runs.SetOperator(run, row.Operator);
-                }
+                    ready[m].SetException(ex);
+                    for (var later = m + connections.Count; later < runMonths.Count; later += connections.Count)
+                    {
+                        ready[later].SetCanceled(stop.Token);
+                    }
 
-                index.Add(row.Chain, row.Seq, row.FirstRun);
+                    return;
+                }
             }
+        })).ToList();
 
-            parts[m] = [];
+        try
+        {
+            for (var m = 0; m < ready.Length; m++)
+            {
+                Append(await ready[m].Task.ConfigureAwait(false), data, index, query, countYield);
+            }
+        }
+        catch
+        {
+            // The other readers stop before their connections are closed with the session.
+            await stop.CancelAsync().ConfigureAwait(false);
+            await Task.WhenAll(readers.Select(r => r.ContinueWith(_ => { }, CancellationToken.None, TaskContinuationOptions.None, TaskScheduler.Default))).ConfigureAwait(false);
+            throw;
         }
 
+        await Task.WhenAll(readers).ConfigureAwait(false);
         return (index, months);
+    }
+
+    private static void Append(List<RunRow> rows, ReportData data, RunIndex index, ReportQuery query, bool countYield)
+    {
+        var runs = data.Runs;
+        foreach (var row in rows)
+        {
+            if (row.Product is { } product && !data.Products.ContainsKey(row.SequenceId))
+            {
+                // The product of a sequence's first run, as the folder loader takes it.
+                data.AddProduct(row.SequenceId, product);
+            }
+
+            var ended = new DateTimeOffset(row.EndedTicks, TimeSpan.Zero);
+            var run = countYield
+                ? runs.AddWithoutOutcome(ended, row.Station, row.Slot, row.Lot, row.SequenceId, row.Revision)
+                : runs.Add(row.Serial!, ended, row.Verdict, row.Station, row.Slot, row.Lot, row.SequenceId, row.Revision, row.Failure, row.Reason);
+            if (query.GroupBy == ReportGrouping.Operator)
+            {
+                runs.SetOperator(run, row.Operator);
+            }
+
+            index.Add(row.Chain, row.Seq, row.FirstRun);
+        }
     }
 
     /// <summary>The first and last end (ticks) of the runs matching <paramref name="query"/>; null when none match.</summary>
