@@ -59,6 +59,16 @@ public sealed class SqlLiteralTests
         Assert.Equal(["a'b", @"c\d"], reader.GetFieldValue<string[]>(3));
     }
 
+    [PostgresFact]
+    public async Task Of_MostNegativeBigint_ReadAsOneLiteralNotAnOverflowingNegation()
+    {
+        // Unquoted, -9223372036854775808::bigint is the negation of 9223372036854775808::bigint, which overflows.
+        await using var database = await TestDatabase.CreateAsync();
+        await using var connection = await database.DataSource.OpenConnectionAsync();
+        await using var command = new NpgsqlCommand($"SELECT {SqlLiteral.Of(NpgsqlDbType.Bigint, long.MinValue)} < {SqlLiteral.Of(NpgsqlDbType.Integer, int.MinValue)};", connection);
+        Assert.True((bool)(await command.ExecuteScalarAsync())!);
+    }
+
     [Fact]
     public void Of_TextWithNul_ThrowsSayingWhy()
     {
