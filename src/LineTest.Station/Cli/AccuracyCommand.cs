@@ -80,6 +80,19 @@ public static class AccuracyCommand
                 $"{f.SequenceId,-18} {f.Fit,-15} {f.Units,6}  {f.RmsErrorC,8:F4}  {f.MaxAbsErrorC,11:F4}  {f.FloorRmsC,9:F4}  {f.Ratio,5:F2}  {Signed(f.VerifyBiasC),11}  {Signed(f.VerifyReadingMeanC),11}/{f.VerifyReadingSdC:F4}  {Signed(f.PredictedVerifyMeanC),9}/{f.PredictedVerifySdC:F4}"));
         }
 
+        // The linear variants' target: minimax's largest error as a share of the line through the points', per sequence.
+        o.WriteLine();
+        foreach (var group in figures.GroupBy(f => f.SequenceId))
+        {
+            var minimax = group.FirstOrDefault(f => f.Fit == TrimFits.Minimax);
+            var through = group.FirstOrDefault(f => f.Fit == TrimFits.ThroughPoints);
+            if (minimax is not null && through is not null && through.MaxAbsErrorC > 0)
+            {
+                o.WriteLine(string.Create(inv,
+                    $"{group.Key,-18} max|e| minimax / through-points = {minimax.MaxAbsErrorC:F4} / {through.MaxAbsErrorC:F4} = {minimax.MaxAbsErrorC / through.MaxAbsErrorC:F3}"));
+            }
+        }
+
         var decomposed = figures.Where(f => f.Stages.Count > 0).ToList();
         if (decomposed.Count == 0)
         {
