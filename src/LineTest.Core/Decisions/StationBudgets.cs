@@ -23,7 +23,8 @@ public static class StationBudgets
     /// <summary>
     /// The extrapolation's own component of a reading taken in predictive settle mode: the standard uncertainty of the
     /// fitted final value u(y∞) (<see cref="ExponentialApproachFit"/>, Gauss–Newton covariance scaled by the residual
-    /// variance), Type A with ν = n − 3 (JCGM 100:2008 §4.2, §H.3: three parameters fitted to n readings), through
+    /// variance), Type A with ν = n − p (JCGM 100:2008 §4.2, §H.3: p parameters fitted to n readings; p = 3 for the
+    /// reference's first-order fit, 4 for a unit's follower fit, <see cref="ExponentialApproachResult.FittedParameters"/>), through
     /// <paramref name="sensitivity"/> into the reading's unit.
     /// </summary>
     public static UncertaintyComponent Extrapolation(ExponentialApproachResult fit, double sensitivity = 1.0)
@@ -35,7 +36,7 @@ public static class StationBudgets
         }
 
         return UncertaintyComponent.FromStandard(
-            ExtrapolationComponent, fit.FinalValueStandardUncertainty, UncertaintyType.A, sensitivity, Math.Max(1, fit.Readings - 3));
+            ExtrapolationComponent, fit.FinalValueStandardUncertainty, UncertaintyType.A, sensitivity, Math.Max(1, fit.Readings - fit.FittedParameters));
     }
 
     /// <summary>

@@ -29,8 +29,8 @@ public static class SettleRules
     {
         if (!SettleModes.All.Contains(settle.Mode, StringComparer.Ordinal))
         {
+            // Not returning: the uncertainty beside an unknown mode is still checked, so every problem is listed at once.
             problems.Add($"{path}.mode", $"'{settle.Mode}' is not a settle mode: use {string.Join(" or ", SettleModes.All.Select(m => $"\"{m}\""))}");
-            return;
         }
 
         if (settle.MaxExtrapolationUncertaintyC is not { } u)

@@ -14,9 +14,7 @@ public static class ExponentialApproachFit
     /// <summary>Fewest readings a fit accepts: three parameters and at least three degrees of freedom.</summary>
     public const int MinimumReadings = 6;
 
-    private const int GridPoints = 60;
     private const int GoldenIterations = 80;
-    private static readonly double InverseGolden = (Math.Sqrt(5) - 1) / 2;
 
     /// <summary>Fits the approach to <paramref name="readings"/> (time-ordered, seconds and value).</summary>
     /// <param name="readings">The readings; times must be finite and non-decreasing.</param>
@@ -62,27 +60,15 @@ public static class ExponentialApproachFit
         // means the data hold no usable curvature (already flat, or far too early on the curve to extrapolate).
         var logLow = Math.Log(span * options.MinTauFractionOfSpan);
         var logHigh = Math.Log(span * options.MaxTauMultipleOfSpan);
-        var bestIndex = 0;
-        var bestSsr = double.PositiveInfinity;
-        for (var k = 0; k < GridPoints; k++)
-        {
-            var ssr = ProjectedSsr(t, y, Math.Exp(logLow + ((logHigh - logLow) * k / (GridPoints - 1))), out _, out _);
-            if (ssr < bestSsr)
-            {
-                bestSsr = ssr;
-                bestIndex = k;
-            }
-        }
-
-        if (bestIndex == 0 || bestIndex == GridPoints - 1)
+        double Ssr(double tau) => ProjectedSsr(t, y, tau, out _, out _);
+        var bestIndex = Math.Max(0, TimeConstantSearch.BestGridPoint(Ssr, logLow, logHigh));
+        if (bestIndex == 0 || bestIndex == TimeConstantSearch.GridPoints - 1)
         {
             var edge = bestIndex == 0 ? "shorter than the search range" : "longer than the search range (too early to extrapolate)";
             return ExponentialApproachResult.NotConverged(n, $"best time constant is {edge}");
         }
 
-        var step = (logHigh - logLow) / (GridPoints - 1);
-        var logTau = GoldenSection(t, y, logLow + (step * (bestIndex - 1)), logLow + (step * (bestIndex + 1)));
-        var tau = Math.Exp(logTau);
+        var tau = Math.Exp(TimeConstantSearch.Refine(Ssr, logLow, logHigh, bestIndex, GoldenIterations, 1e-12));
         var finalSsr = ProjectedSsr(t, y, tau, out var yInf, out var amplitude);
         return Assemble(t, y, tau, yInf, amplitude, finalSsr, options);
     }
@@ -170,34 +156,5 @@ public static class ExponentialApproachFit
         }
 
         return ssr;
-    }
-
-    private static double GoldenSection(double[] t, double[] y, double low, double high)
-    {
-        var c = high - (InverseGolden * (high - low));
-        var d = low + (InverseGolden * (high - low));
-        var fc = ProjectedSsr(t, y, Math.Exp(c), out _, out _);
-        var fd = ProjectedSsr(t, y, Math.Exp(d), out _, out _);
-        for (var k = 0; k < GoldenIterations && high - low > 1e-12; k++)
-        {
-            if (fc <= fd)
-            {
-                high = d;
-                d = c;
-                fd = fc;
-                c = high - (InverseGolden * (high - low));
-                fc = ProjectedSsr(t, y, Math.Exp(c), out _, out _);
-            }
-            else
-            {
-                low = c;
-                c = d;
-                fc = fd;
-                d = low + (InverseGolden * (high - low));
-                fd = ProjectedSsr(t, y, Math.Exp(d), out _, out _);
-            }
-        }
-
-        return (low + high) / 2;
     }
 }

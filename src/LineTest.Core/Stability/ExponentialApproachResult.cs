@@ -36,6 +36,9 @@ public sealed record ExponentialApproachResult(
     /// <summary>The amplitude of the leader's term of a follower fit.</summary>
     public double LeaderAmplitude { get; init; }
 
+    /// <summary>How many parameters were fitted: three for a first-order approach (y∞, A, τ), four for a follower (and the leader's amplitude).</summary>
+    public int FittedParameters => LeaderTimeConstantSeconds is null ? 3 : 4;
+
     /// <summary>True when the fit can be used to predict: converged and undisturbed.</summary>
     public bool IsUsable => Converged && !Disturbed;
 

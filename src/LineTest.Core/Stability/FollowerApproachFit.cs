@@ -16,9 +16,7 @@ public static class FollowerApproachFit
     /// <summary>Fewest readings a fit accepts: four parameters and at least three degrees of freedom.</summary>
     public const int MinimumReadings = 7;
 
-    private const int GridPoints = 60;
     private const int GoldenIterations = 60;
-    private static readonly double InverseGolden = (Math.Sqrt(5) - 1) / 2;
 
     /// <summary>φ(t) = (exp(−t/τ) − exp(−t/τ_L))/(1/τ_L − 1/τ), computed without cancellation.</summary>
     public static double Phi(double seconds, double tau, double leaderTau)
@@ -96,47 +94,15 @@ public static class FollowerApproachFit
     {
         var logLow = Math.Log(span * options.MinTauFractionOfSpan);
         var logHigh = Math.Log(span * options.MaxTauMultipleOfSpan);
-        var bestIndex = -1;
-        var bestSsr = double.PositiveInfinity;
-        for (var k = 0; k < GridPoints; k++)
-        {
-            var ssr = Solve(t, y, leaderTau, Math.Exp(logLow + ((logHigh - logLow) * k / (GridPoints - 1))), out _);
-            if (ssr < bestSsr)
-            {
-                bestSsr = ssr;
-                bestIndex = k;
-            }
-        }
-
-        if (bestIndex <= 0 || bestIndex >= GridPoints - 1)
+        double Ssr(double tau) => Solve(t, y, leaderTau, tau, out _);
+        var bestIndex = TimeConstantSearch.BestGridPoint(Ssr, logLow, logHigh);
+        if (bestIndex <= 0 || bestIndex >= TimeConstantSearch.GridPoints - 1)
         {
             why = bestIndex < 0 ? "no time constant gives a fit" : "the follower's best time constant is at the edge of the search range";
             return null;
         }
 
-        var step = (logHigh - logLow) / (GridPoints - 1);
-        double low = logLow + (step * (bestIndex - 1)), high = logLow + (step * (bestIndex + 1));
-        var c = high - (InverseGolden * (high - low));
-        var d = low + (InverseGolden * (high - low));
-        var fc = Solve(t, y, leaderTau, Math.Exp(c), out _);
-        var fd = Solve(t, y, leaderTau, Math.Exp(d), out _);
-        for (var k = 0; k < GoldenIterations && high - low > 1e-10; k++)
-        {
-            if (fc <= fd)
-            {
-                (high, d, fd) = (d, c, fc);
-                c = high - (InverseGolden * (high - low));
-                fc = Solve(t, y, leaderTau, Math.Exp(c), out _);
-            }
-            else
-            {
-                (low, c, fc) = (c, d, fd);
-                d = low + (InverseGolden * (high - low));
-                fd = Solve(t, y, leaderTau, Math.Exp(d), out _);
-            }
-        }
-
-        var tau = Math.Exp((low + high) / 2);
+        var tau = Math.Exp(TimeConstantSearch.Refine(Ssr, logLow, logHigh, bestIndex, GoldenIterations, 1e-10));
         var final = Solve(t, y, leaderTau, tau, out var beta);
         if (!double.IsFinite(final) || beta.Any(b => !double.IsFinite(b)))
         {

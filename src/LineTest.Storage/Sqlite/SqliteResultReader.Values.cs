@@ -144,9 +144,15 @@ public sealed partial class SqliteResultReader
     public async Task<SeqRange?> ReadSeqRangeAsync(RunFilter? filter = null, CancellationToken ct = default)
     {
         await using var connection = await OpenAsync(ct).ConfigureAwait(false);
+        return SeqRangeOf(connection, filter ?? RunFilter.All) is var (low, high) ? new SeqRange(low, high) : null;
+    }
+
+    /// <summary><see cref="FilterSql.SeqRange"/> with SQLite's errors (a damaged page met on the way) as damaged-database errors.</summary>
+    private (long Low, long High)? SeqRangeOf(SqliteConnection connection, RunFilter filter)
+    {
         try
         {
-            return FilterSql.SeqRange(connection, filter ?? RunFilter.All) is var (low, high) ? new SeqRange(low, high) : null;
+            return FilterSql.SeqRange(connection, filter);
         }
         catch (SqliteException ex)
         {
@@ -182,7 +188,7 @@ public sealed partial class SqliteResultReader
         {
             if (conditions.Count > 0 && conditions[0].StartsWith("g.run_seq", StringComparison.Ordinal))
             {
-                var (low, high) = FilterSql.SeqRange(connection, filter) ?? (0, -1);
+                var (low, high) = SeqRangeOf(connection, filter) ?? (0, -1);
                 Check(db, raw.sqlite3_bind_int64(statement, 1, low));
                 Check(db, raw.sqlite3_bind_int64(statement, 2, high));
             }

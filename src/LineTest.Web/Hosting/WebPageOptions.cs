@@ -1,4 +1,3 @@
-using System.Globalization;
 using LineTest.Web.Access;
 
 namespace LineTest.Web.Hosting;
@@ -27,12 +26,6 @@ public sealed class WebPageOptions
 
     /// <summary>The user's password as <c>pbkdf2-sha256$ITERATIONS$SALT$HASH</c> (<c>linetest serve --hash-password</c>).</summary>
     public string? PasswordHash { get; set; }
-
-    /// <summary>
-    /// Deprecated: the shifts are <c>Station:Shifts</c> now, for the page and the reports alike (<see cref="ShiftSettings"/>
-    /// reads this list, with a warning, only when <c>Station:Shifts</c> is not set). Start of each shift, UTC, HH:mm.
-    /// </summary>
-    public IList<string> ShiftStartsUtc { get; set; } = [];
 
     /// <summary>Seconds between looks at the results for the live line page. Default 2.</summary>
     public double RefreshSeconds { get; set; } = 2;
@@ -64,19 +57,6 @@ public sealed class WebPageOptions
             problems.Add(
                 $"listening on {listen} lets other computers connect, so a credential is needed: set Station:Web:TokenSha256 "
                 + "(or Station:Web:User and Station:Web:PasswordHash) in appsettings.json, or listen on 127.0.0.1");
-        }
-
-        foreach (var start in ShiftStartsUtc)
-        {
-            if (!TimeOnly.TryParseExact(start?.Trim(), "HH:mm", CultureInfo.InvariantCulture, DateTimeStyles.None, out _))
-            {
-                problems.Add($"Station:Web:ShiftStartsUtc: '{start}' is not a time of day HH:mm");
-            }
-        }
-
-        if (ShiftStartsUtc.Select(s => s?.Trim()).Distinct(StringComparer.Ordinal).Count() != ShiftStartsUtc.Count)
-        {
-            problems.Add("Station:Web:ShiftStartsUtc lists a shift start twice");
         }
 
         if (!(RefreshSeconds >= 0.1 && RefreshSeconds <= 600))

@@ -6,7 +6,8 @@ namespace LineTest.Web.Live;
 /// Pages that read many runs (yield and its Pareto chart), kept per URL: a page asked for again within
 /// <see cref="MaxAge"/> is served as made, and after that made again only when the results changed (the source's change
 /// mark moved). So a yield page left open and reloaded, or opened by several people, costs one reading per
-/// <see cref="MaxAge"/> while a station writes, and none while it is idle.
+/// <see cref="MaxAge"/> while a station writes, and none while it is idle. A page made on an earlier UTC day is always
+/// made again: without chosen dates a page shows the last days up to today, so its window moves at midnight.
 /// </summary>
 public sealed class PageSnapshots : IDisposable
 {
@@ -21,7 +22,7 @@ public sealed class PageSnapshots : IDisposable
 
     // Guards the pages: one page made at a time, so a burst of the same request costs one reading.
     private readonly SemaphoreSlim _gate = new(1, 1);
-    private readonly Dictionary<string, (DateTimeOffset At, string Mark, object Page)> _pages = new(StringComparer.Ordinal);
+    private readonly Dictionary<string, (DateTimeOffset At, DateOnly Day, string Mark, object Page)> _pages = new(StringComparer.Ordinal);
 
     /// <summary>Creates the cache over <paramref name="source"/>.</summary>
     public PageSnapshots(IResultsSource source, TimeProvider time)
@@ -42,7 +43,8 @@ public sealed class PageSnapshots : IDisposable
         try
         {
             var now = _time.GetUtcNow();
-            var found = _pages.TryGetValue(key, out var kept) && kept.Page is T;
+            var today = DateOnly.FromDateTime(now.UtcDateTime);
+            var found = _pages.TryGetValue(key, out var kept) && kept.Page is T && kept.Day == today;
             if (found && now >= kept.At && now - kept.At < MaxAge)
             {
                 return (T)kept.Page;
@@ -51,17 +53,17 @@ public sealed class PageSnapshots : IDisposable
             var mark = await _source.ReadChangeMarkAsync(ct).ConfigureAwait(false);
             if (found && kept.Mark == mark)
             {
-                _pages[key] = (now, mark, kept.Page);
+                _pages[key] = (now, today, mark, kept.Page);
                 return (T)kept.Page;
             }
 
             var page = await make().ConfigureAwait(false);
-            if (!found && _pages.Count >= Capacity)
+            if (!_pages.ContainsKey(key) && _pages.Count >= Capacity)
             {
                 _pages.Remove(_pages.MinBy(p => p.Value.At).Key);
             }
 
-            _pages[key] = (now, mark, page);
+            _pages[key] = (now, today, mark, page);
             return page;
         }
         finally

@@ -24,6 +24,17 @@ public sealed class StationBudgetsTests
         Assert.True(predicted.Expand().Expanded > reference.Expand().Expanded);
     }
 
+    // Found in review: a unit's follower fit has four parameters (y∞, the leader's amplitude, its own amplitude and τ),
+    // but its extrapolation line was given ν = n − 3 like the reference's three-parameter fit.
+    [Fact]
+    public void Extrapolation_FollowerFit_DegreesOfFreedomAreReadingsLessFour()
+    {
+        // [published] JCGM 100:2008 §H.3: a least-squares fit of p parameters to n readings leaves ν = n − p.
+        var follower = new ExponentialApproachResult(true, 0.3, 0.004, 0.1, 45, 2, 0.003, 30, 0, false, "converged") { LeaderTimeConstantSeconds = 40, LeaderAmplitude = -0.2 };
+
+        Assert.Equal(26, StationBudgets.Extrapolation(follower).DegreesOfFreedom);
+    }
+
     [Fact]
     public void Extrapolation_ThroughASensitivity_ScalesTheContribution()
     {

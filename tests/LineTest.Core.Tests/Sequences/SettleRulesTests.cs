@@ -50,6 +50,18 @@ public sealed class SettleRulesTests
         Assert.Equal("'guess' is not a settle mode: use \"window\" or \"predictive\"", problem.Reason);
     }
 
+    // Found when trying `check` on a mutated sequence: an unknown mode hid a bad uncertainty beside it, so the engineer
+    // fixed one problem and met the next on the following run.
+    [Fact]
+    public void Check_UnknownModeAndNegativeUncertainty_BothListed()
+    {
+        var problems = new ProblemList();
+
+        SettleRules.Check(Sequence with { Settle = new SettleSettings { Mode = "guess", MaxExtrapolationUncertaintyC = -1 } }, problems);
+
+        Assert.Equal(["$.settle.mode", "$.settle.maxExtrapolationUncertaintyC"], problems.Items.Select(p => p.Path));
+    }
+
     [Fact]
     public void Check_PredictiveWithoutUncertainty_IsRefusedAtTheSetpointsPath()
     {

@@ -24,9 +24,12 @@ public sealed class StationFailureTests
         var results = Path.Combine(Some.TempDirectory(), "results");
         var output = new StringWriter();
         var error = new StringWriter();
+        // The fault comes as the source starts for the first setpoint, with both runs under way. (It came at Soaking
+        // before: at 4000 × real time a loaded machine could not take the stability readings within the timeout, the
+        // units ended as errors of an unstable source, Soaking never came, and the exit code was 0.)
         var context = new StationServiceContext(RepoFiles.Root, Options(results), new StringReader("CTP40A-2612-000501\nCTP40A-2612-000502\n\n"), output, error)
         {
-            Observe = screen => new FailingObserver(screen, UnitState.Soaking),
+            Observe = screen => new FailingObserver(screen, UnitState.WaitingForSource),
         };
         using var lifetime = new StoppingLifetime();
         var service = new StationService(context, NullLoggerFactory.Instance, lifetime);

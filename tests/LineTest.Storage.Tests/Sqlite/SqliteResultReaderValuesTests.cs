@@ -100,4 +100,79 @@ public sealed class SqliteResultReaderValuesTests
 
         Assert.Equal(ResultStoreFailure.CannotOpen, ex.Failure);
     }
+
+    // Found by `report --fuzz` on damaged databases: a page at the far end of the runs' summary index broken. The scan
+    // of the matching runs reads that index from its first page on, then the filter's seq range looks up its last run
+    // from the other end and meets the broken page, where SQLite says "database disk image is malformed"; that came out
+    // as a bare SqliteException (a stack trace) instead of a damaged-database error.
+    [Fact]
+    public async Task ReadReadingValuesAsync_LastPageOfRunsIndexMalformed_DamagedDatabaseErrorNotSqliteException()
+    {
+        var (directory, _) = await SqliteResultReaderTests.StoreSample();
+        BreakLastLeafOfRunsSummaryIndex(ResultsDatabase.PathIn(directory));
+        var reader = SqliteResultReader.InDirectory(directory);
+
+        var ex = await Record.ExceptionAsync(() => SqliteResultReaderTests.ToList(reader.ReadReadingValuesAsync(new RunFilter { Station = "ST-02" })));
+
+        var failure = Assert.IsType<ResultStoreException>(ex);
+        Assert.Equal(ResultStoreFailure.Incompatible, failure.Failure);
+        Assert.Contains("is damaged", failure.Message, StringComparison.Ordinal);
+    }
+
+    private static void BreakLastLeafOfRunsSummaryIndex(string path)
+    {
+        long page;
+        long pageSize;
+        using (var connection = new Microsoft.Data.Sqlite.SqliteConnection($"Data Source={path};Pooling=False"))
+        {
+            connection.Open();
+            using var command = connection.CreateCommand();
+
+            // Copies of the eight runs under new seqs and ids, so the index spans many pages.
+            command.CommandText = "SELECT name FROM pragma_table_info('runs') ORDER BY cid;";
+            var columns = new List<string>();
+            using (var names = command.ExecuteReader())
+            {
+                while (names.Read())
+                {
+                    columns.Add(names.GetString(0));
+                }
+            }
+
+            var copied = columns.Select(c => c switch { "seq" => "seq + 8 * k.n", "id" => "id || '-' || k.n", _ => c });
+            command.CommandText =
+                $"WITH RECURSIVE k(n) AS (SELECT 1 UNION ALL SELECT n + 1 FROM k WHERE n < 200) " +
+                $"INSERT INTO runs ({string.Join(", ", columns)}) SELECT {string.Join(", ", copied)} FROM runs, k;";
+            command.ExecuteNonQuery();
+            command.CommandText = "PRAGMA wal_checkpoint(TRUNCATE); PRAGMA journal_mode=DELETE;";
+            command.ExecuteNonQuery();
+            command.CommandText = "SELECT rootpage FROM sqlite_master WHERE type = 'index' AND name = 'ix_runs_summary';";
+            page = (long)command.ExecuteScalar()!;
+            command.CommandText = "PRAGMA page_size;";
+            pageSize = (long)command.ExecuteScalar()!;
+        }
+
+        using var file = new FileStream(path, FileMode.Open, FileAccess.ReadWrite);
+        var header = new byte[12];
+
+        // Down the b-tree's right edge (SQLite file format: an interior index page, type 0x02, keeps its right-most
+        // child's page number big-endian at header offset 8) to the last leaf (type 0x0A).
+        while (true)
+        {
+            file.Position = (page - 1) * pageSize;
+            file.ReadExactly(header);
+            if (header[0] != 0x02)
+            {
+                break;
+            }
+
+            page = System.Buffers.Binary.BinaryPrimitives.ReadUInt32BigEndian(header.AsSpan(8));
+        }
+
+        Assert.Equal(0x0A, header[0]);
+
+        // An invalid b-tree page type (0x00) in that leaf's header.
+        file.Position = (page - 1) * pageSize;
+        file.WriteByte(0x00);
+    }
 }

@@ -65,12 +65,22 @@ public sealed class ShiftSettingsTests
     [Theory]
     [InlineData("Station:Shifts:day", "25:00", "Station:Shifts: shift 'day=25:00' is not name=HH:mm")]
     [InlineData("Station:Web:ShiftStartsUtc:0", "6 o'clock", "Station:Web:ShiftStartsUtc: '6 o'clock' is not a time of day HH:mm")]
+    [InlineData("Station:Web:ShiftStartsUtc:0", "25:00", "Station:Web:ShiftStartsUtc: '25:00' is not a time of day HH:mm")]
     public void Read_BadEntry_ErrorNamesTheSettingAndTheEntry(string key, string value, string expected)
     {
         var (shifts, error, _) = ShiftSettings.Read(Config(new() { [key] = value }));
 
         Assert.Null(shifts);
         Assert.StartsWith(expected, error, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Read_OldStartListedTwice_IsAnError()
+    {
+        var (shifts, error, _) = ShiftSettings.Read(Config(new() { ["Station:Web:ShiftStartsUtc:0"] = "06:00", ["Station:Web:ShiftStartsUtc:1"] = "06:00" }));
+
+        Assert.Null(shifts);
+        Assert.StartsWith("Station:Web:ShiftStartsUtc: ", error, StringComparison.Ordinal);
     }
 
     [Fact]
@@ -82,6 +92,31 @@ public sealed class ShiftSettingsTests
             Config(new() { ["Station:Web:Listen"] = "127.0.0.1:5080", ["Station:Shifts:day"] = "7h" }), "results"));
 
         Assert.Contains("Station:Shifts: shift 'day=7h'", ex.Message, StringComparison.Ordinal);
+    }
+
+    // Found when trying the settings as a station would: the page's own options still checked the old key too, so a
+    // bad old start was reported twice, and blocked the page even when Station:Shifts (which wins) was set.
+    [Fact]
+    public void AddStationWebPage_BadOldStart_ReportedOnce()
+    {
+        var services = new ServiceCollection();
+
+        var ex = Assert.Throws<InvalidOperationException>(() => services.AddStationWebPage(
+            Config(new() { ["Station:Web:Listen"] = "127.0.0.1:5080", ["Station:Web:ShiftStartsUtc:0"] = "6h" }), "results"));
+
+        Assert.Single(System.Text.RegularExpressions.Regex.Matches(ex.Message, "'6h'"));
+    }
+
+    [Fact]
+    public void AddStationWebPage_BadOldStartBesideStationShifts_PageStartsAndTheOldKeyIsIgnored()
+    {
+        var services = new ServiceCollection();
+
+        var added = services.AddStationWebPage(
+            Config(new() { ["Station:Web:Listen"] = "127.0.0.1:5080", ["Station:Shifts:day"] = "07:00", ["Station:Web:ShiftStartsUtc:0"] = "6h" }),
+            "results");
+
+        Assert.True(added);
     }
 
     [Fact]

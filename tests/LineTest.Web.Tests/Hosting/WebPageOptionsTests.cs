@@ -36,7 +36,6 @@ public sealed class WebPageOptionsTests
         {
             TokenSha256 = "plain-token-not-a-hash",
             User = "qe",
-            ShiftStartsUtc = ["06:00", "25:00", "06:00"],
             RefreshSeconds = 0,
         };
 
@@ -44,8 +43,6 @@ public sealed class WebPageOptionsTests
 
         Assert.Contains(problems, p => p.StartsWith("Station:Web:TokenSha256 must be 64 hex digits", StringComparison.Ordinal));
         Assert.Contains(problems, p => p.StartsWith("Station:Web:User and Station:Web:PasswordHash go together", StringComparison.Ordinal));
-        Assert.Contains(problems, p => p.Contains("'25:00' is not a time of day", StringComparison.Ordinal));
-        Assert.Contains(problems, p => p.Contains("lists a shift start twice", StringComparison.Ordinal));
         Assert.Contains(problems, p => p.StartsWith("Station:Web:RefreshSeconds", StringComparison.Ordinal));
     }
 }
