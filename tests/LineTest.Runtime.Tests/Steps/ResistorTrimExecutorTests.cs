@@ -49,6 +49,9 @@ public sealed class ResistorTrimExecutorTests
         var predicted = outcome.Runs.Average(r => r.Readings.Single(x => x.Name == "trim.predicted.verify").Value!.Value);
         Assert.InRange(verify - predicted, -0.05, 0.05);
         Assert.InRange(predicted, -0.2, -0.03);
+        // The prediction at the inner point carries the budget's uncertainty, fitted-part tolerance included (0.1 % parts
+        // move the output by a few hundredths of a degree).
+        Assert.All(outcome.Runs, r => Assert.InRange(r.Readings.Single(x => x.Name == "trim.predicted.verify").StandardUncertainty ?? 0, 0.01, 0.1));
     }
 
     [Fact]
