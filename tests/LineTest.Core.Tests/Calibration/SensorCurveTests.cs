@@ -1,3 +1,4 @@
+using CsCheck;
 using LineTest.Core.Calibration;
 using LineTest.Core.Characterisation;
 
@@ -160,5 +161,38 @@ public sealed class SensorCurveTests
 
         Assert.False(result.Succeeded);
         Assert.Contains("three distinct temperatures", result.Reason, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void FitWithCurvature_RandomPoints_AgreesWithMathNetLinearCombination()
+    {
+        // MathNet.Numerics Fit.LinearCombination (least squares over the basis 1, T, c(T)) as an independent reference:
+        // a, b and the curved term's coefficient λ·κ must agree, for 3 to 8 points with noise on the outputs.
+        var model = Model;
+        double C(double celsius) => DiodeTemperatureModel.CurvatureVolts(celsius + 273.15, 298.15, 3, 1.05);
+        Gen.Int[-400, 1200].Select(i => i * 0.1 - 40).Array[3, 8]
+            .Select(Gen.Double[-0.002, 0.002].Array[8], Gen.Double[2.6, 3.4], Gen.Double[0.58, 0.62])
+            .Where(t => t.Item1.Distinct().Count() == t.Item1.Length && t.Item1.Max() - t.Item1.Min() > 20)
+            .Sample((celsius, noise, xti, vf25) =>
+            {
+                var points = celsius.Select((c, i) => new CalibrationPoint($"p{i}", c, AnalogVolts(c, vf25, xti) + noise[i])).ToList();
+                var reference = MathNet.Numerics.Fit.LinearCombination(celsius, points.Select(p => p.Output).ToArray(), _ => 1.0, t => t, C);
+
+                var curve = SensorCurve.FitWithCurvature(points, model).Value;
+
+                Assert.Equal(reference[0], curve.Intercept, 1e-7);
+                Assert.Equal(reference[1], curve.Slope, 1e-9);
+                Assert.Equal(reference[2], curve.CurvatureScale * curve.OutputPerDiodeVolt, 1e-5 * Math.Max(1, Math.Abs(reference[2])));
+            }, iter: 200);
+    }
+
+    [Fact]
+    public void FitWithCurvature_PointsThatCannotShowTheBow_SaysWhy()
+    {
+        // Two of three points a micro-kelvin apart: the three-term fit is singular for practical purposes.
+        var result = SensorCurve.FitWithCurvature(Points(c => AnalogVolts(c), -20, -20.000001, 40), Model);
+
+        Assert.False(result.Succeeded);
+        Assert.Contains("do not show the diode's curvature", result.Reason, StringComparison.Ordinal);
     }
 }
