@@ -22,7 +22,12 @@ public sealed class SensorCurve
     private readonly double _meanC;
     private readonly double _sxx;
 
-    private SensorCurve(DiodeSensorModel? model, double ideality, double outputPerDiodeVolt, double intercept, double slope, double[] pointsC, double[] residuals)
+    // With the curvature fitted: the three-term least squares (1, T, κ·c(T)) in a centred and scaled basis.
+    private readonly CurvatureBasis? _basis;
+
+    private SensorCurve(
+        DiodeSensorModel? model, double ideality, double outputPerDiodeVolt, double intercept, double slope, double[] pointsC, double[] residuals,
+        CurvatureBasis? basis = null, double curvatureScale = 1.0)
     {
         Model = model;
         Ideality = ideality;
@@ -33,6 +38,8 @@ public sealed class SensorCurve
         _meanC = pointsC.Average();
         _sxx = pointsC.Sum(t => (t - _meanC) * (t - _meanC));
         Residuals = residuals;
+        _basis = basis;
+        CurvatureScale = curvatureScale;
     }
 
     /// <summary>The sensor model, or null for a straight line.</summary>
@@ -49,6 +56,22 @@ public sealed class SensorCurve
 
     /// <summary>b, output per °C of the straight part.</summary>
     public double Slope { get; }
+
+    /// <summary>
+    /// λ, this unit's bow over the model's: 1 when the curvature is taken from the model, fitted to the points by
+    /// <see cref="FitWithCurvature"/> (the unit's XTI·n over the model's, with the read-out non-linearity absorbed).
+    /// </summary>
+    public double CurvatureScale { get; }
+
+    /// <summary>Whether <see cref="CurvatureScale"/> was fitted to this unit's points (<see cref="FitWithCurvature"/>).</summary>
+    public bool CurvatureFitted => _basis is not null;
+
+    /// <summary>
+    /// With the curvature fitted: each point's measured output minus the model's nominal curve (λ = 1) through the two
+    /// outer points, in the points' order (zero at the outer points; the bow this unit shows beyond the model's); empty
+    /// otherwise.
+    /// </summary>
+    public IReadOnlyList<double> ResidualsFromNominalBow { get; private init; } = [];
 
     /// <summary>Measured minus modelled output at each calibration point, in the points' order (zero for two points).</summary>
     public IReadOnlyList<double> Residuals { get; }
@@ -89,6 +112,62 @@ public sealed class SensorCurve
         return CalculationResult<SensorCurve>.Success(new SensorCurve(model, n, kappa, lineFit.Intercept, lineFit.Slope, t, lineFit.Residuals.ToArray()));
     }
 
+    /// <summary>
+    /// Fits the curve with this unit's own curvature: y(T) = a + b·T + λ·κ·c(T), least squares in a, b and λ over three
+    /// or more calibration points at distinct temperatures (through all three when there are three).
+    /// </summary>
+    /// <remarks>
+    /// <para>Why one curvature parameter: in the published form only −XTI·(n·k·T/q)·ln(T/T1) is curved, and it scales
+    /// with XTI·n; the stage after the diode adds β·(V_f − V_c)², whose curved part over a span of tens of kelvin is a
+    /// parabola in T, as is T·ln T to within a few per cent of its bow (its second derivative is 1/T, which changes by
+    /// 24 % from −20 to +40 °C). Two such shapes cannot be told apart by one further point, so a single scale λ of the
+    /// model's curved term takes up all of them: λ − 1 is the unit's departure from the nominal bow.</para>
+    /// <para>κ is the same as in <see cref="Fit"/> (the straight-line slope over the model's typical dV_f/dT). The
+    /// normal equations are solved in a centred and scaled basis (1, (T − T̄)/s_T, (g − ḡ)/s_g), which leaves the fit
+    /// unchanged and keeps the 3×3 system well conditioned.</para>
+    /// </remarks>
+    /// <param name="points">Three or more calibration points at distinct temperatures.</param>
+    /// <param name="model">The sensor model that gives the shape of the curved term.</param>
+    /// <param name="ideality">The unit's ideality from an I–V sweep, or null for the model's typical value.</param>
+    public static CalculationResult<SensorCurve> FitWithCurvature(IReadOnlyList<CalibrationPoint> points, DiodeSensorModel model, double? ideality = null)
+    {
+        ArgumentNullException.ThrowIfNull(points);
+        ArgumentNullException.ThrowIfNull(model);
+        if (points.Select(p => p.ReferenceC).Distinct().Count() < 3)
+        {
+            return CalculationResult<SensorCurve>.Failure(
+                $"fitting the unit's own curvature needs calibration points at three distinct temperatures or more, not {points.Select(p => p.ReferenceC).Distinct().Count()}");
+        }
+
+        var nominalFit = Fit(points, model, ideality);
+        if (!nominalFit.TryGetValue(out var nominal))
+        {
+            return nominalFit;
+        }
+
+        var t = points.Select(p => p.ReferenceC).ToArray();
+        var g = t.Select(c => nominal.OutputPerDiodeVolt * nominal.DiodeCurvatureVolts(c)).ToArray();
+        var basis = CurvatureBasis.Create(t, g);
+        if (basis is null)
+        {
+            return CalculationResult<SensorCurve>.Failure(
+                "the calibration points do not show the diode's curvature (the points are too close together or the model has no bow): the unit's curvature cannot be fitted");
+        }
+
+        var y = points.Select(p => p.Output).ToArray();
+        var (a, b, lambda) = basis.Coefficients(y);
+        var fitted = new SensorCurve(model, nominal.Ideality, nominal.OutputPerDiodeVolt, a, b, t, [], basis, lambda);
+        var residuals = points.Select(p => p.Output - fitted.OutputAt(p.ReferenceC)).ToArray();
+        // The evidence for λ: each point against the model's nominal curve through the two outer points.
+        // The nominal curve through the outer points has the same κ: y_lo + (y_hi − y_lo)·f + κ·(c(T) − chord of c at T).
+        var (lo, hi) = (points.MinBy(p => p.ReferenceC)!, points.MaxBy(p => p.ReferenceC)!);
+        double Chord(double yLo, double yHi, double celsius) => yLo + ((yHi - yLo) * (celsius - lo.ReferenceC) / (hi.ReferenceC - lo.ReferenceC));
+        var (gLo, gHi) = (nominal.OutputPerDiodeVolt * nominal.DiodeCurvatureVolts(lo.ReferenceC), nominal.OutputPerDiodeVolt * nominal.DiodeCurvatureVolts(hi.ReferenceC));
+        var bow = points.Select((p, i) => p.Output - Chord(lo.Output, hi.Output, p.ReferenceC) - (g[i] - Chord(gLo, gHi, p.ReferenceC))).ToArray();
+        return CalculationResult<SensorCurve>.Success(
+            new SensorCurve(model, nominal.Ideality, nominal.OutputPerDiodeVolt, a, b, t, residuals, basis, lambda) { ResidualsFromNominalBow = bow });
+    }
+
     /// <summary>The curved term c(T) of the diode, volts (referred to the model's <see cref="DiodeSensorModel.ForwardAtC"/>).</summary>
     public double DiodeCurvatureVolts(double celsius) => Model is null
         ? 0.0
@@ -96,14 +175,17 @@ public sealed class SensorCurve
             celsius + ThermalVoltage.ZeroCelsiusKelvin, Model.ForwardAtC + ThermalVoltage.ZeroCelsiusKelvin, Model.Xti, Ideality);
 
     /// <summary>The modelled output at <paramref name="celsius"/>.</summary>
-    public double OutputAt(double celsius) => Intercept + (Slope * celsius) + (OutputPerDiodeVolt * DiodeCurvatureVolts(celsius));
+    public double OutputAt(double celsius) => Intercept + (Slope * celsius) + (CurvatureScale * OutputPerDiodeVolt * DiodeCurvatureVolts(celsius));
 
     /// <summary>
-    /// The least-squares weights wᵢ(T) of the calibration points in the straight part at <paramref name="celsius"/>:
-    /// an error δᵢ in point i moves the fitted curve at T by wᵢ(T)·δᵢ (wᵢ = 1/N + (T − T̄)(Tᵢ − T̄)/Sxx).
+    /// The least-squares weights wᵢ(T) of the calibration points at <paramref name="celsius"/>: an error δᵢ in point i
+    /// moves the fitted curve at T by wᵢ(T)·δᵢ. With the curvature from the model, the straight part's
+    /// (wᵢ = 1/N + (T − T̄)(Tᵢ − T̄)/Sxx); with the curvature fitted, the three-term fit's (x(T)ᵀ·(XᵀX)⁻¹·xᵢ, which for
+    /// three points are the Lagrange-like weights that are 1 at their own point and 0 at the others).
     /// </summary>
-    public double[] Weights(double celsius) =>
-        _pointsC.Select(ti => (1.0 / _pointsC.Length) + ((celsius - _meanC) * (ti - _meanC) / _sxx)).ToArray();
+    public double[] Weights(double celsius) => _basis is { } basis
+        ? basis.Weights(celsius, OutputPerDiodeVolt * DiodeCurvatureVolts(celsius))
+        : _pointsC.Select(ti => (1.0 / _pointsC.Length) + ((celsius - _meanC) * (ti - _meanC) / _sxx)).ToArray();
 
     /// <summary>
     /// The temperature error at <paramref name="celsius"/>, °C, left by a true output that differs from the model by

@@ -15,20 +15,49 @@ public static class TrimAccuracy
 {
     /// <summary>
     /// The unit's curve through <paramref name="points"/> with the trim's sensor model (a straight line without one);
-    /// null when the sequence has neither a sensor model nor a rated range (nothing to do).
+    /// null when the sequence has neither a sensor model nor a rated range (nothing to do). A gain-and-offset trim
+    /// (DAC, resistor) with a sensor model and three calibration points fits the unit's own curvature to them
+    /// (<see cref="SensorCurve.FitWithCurvature"/>); otherwise the curvature is the model's.
     /// </summary>
     public static CalculationResult<SensorCurve>? Curve(SequenceDefinition sequence, IReadOnlyList<CalibrationPoint> points, double? unitIdeality)
     {
         ArgumentNullException.ThrowIfNull(sequence);
         ArgumentNullException.ThrowIfNull(points);
-        return sequence.Trim?.SensorModel is null && sequence.RatedRange is null
-            ? null
+        if (sequence.Trim?.SensorModel is null && sequence.RatedRange is null)
+        {
+            return null;
+        }
+
+        return FitsUnitCurvature(sequence, points.Count)
+            ? SensorCurve.FitWithCurvature(points, sequence.Trim!.SensorModel!, unitIdeality)
             : SensorCurve.Fit(points, sequence.Trim?.SensorModel, unitIdeality);
     }
 
     /// <summary>
-    /// The line a DAC or resistor trim maps onto its target: minimax over the rated range for <c>"fit": "minimax"</c>,
-    /// otherwise the least-squares line through <paramref name="points"/>; either way with the curve's output for predictions.
+    /// Whether a trim with <paramref name="pointCount"/> calibration points fits each unit's own curvature: a
+    /// gain-and-offset trim (DAC or resistor) with a sensor model and three points (the checker allows no more).
+    /// </summary>
+    public static bool FitsUnitCurvature(SequenceDefinition sequence, int pointCount)
+    {
+        ArgumentNullException.ThrowIfNull(sequence);
+        return pointCount >= 3 && sequence.Trim is { Method: TrimMethods.Dac or TrimMethods.Resistor, SensorModel: not null };
+    }
+
+    /// <summary>
+    /// The two outer calibration points (lowest and highest temperature): the points a <c>through-points</c>
+    /// gain-and-offset line goes through. With two points, both.
+    /// </summary>
+    public static IReadOnlyList<CalibrationPoint> OuterPoints(IReadOnlyList<CalibrationPoint> points)
+    {
+        ArgumentNullException.ThrowIfNull(points);
+        return points.Count <= 2 ? points : [points.MinBy(p => p.ReferenceC)!, points.MaxBy(p => p.ReferenceC)!];
+    }
+
+    /// <summary>
+    /// The line a DAC or resistor trim maps onto its target: minimax over the rated range of the unit's curve for
+    /// <c>"fit": "minimax"</c>, otherwise the line through the two outer points (<see cref="OuterPoints"/>: with three
+    /// points the middle one only measures the curvature, and its error is recorded, not spread over the line); either
+    /// way with the curve's output for predictions.
     /// </summary>
     public static TrimLine? Line(SequenceDefinition sequence, SensorCurve? curve, IReadOnlyList<CalibrationPoint> points)
     {
@@ -45,7 +74,7 @@ public static class TrimAccuracy
             return new TrimLine(best.Intercept, best.Slope, curve.OutputAt);
         }
 
-        return CalibrationFit.OutputVersusTemperature(points).TryGetValue(out var fit)
+        return CalibrationFit.OutputVersusTemperature(OuterPoints(points)).TryGetValue(out var fit)
             ? new TrimLine(fit.Intercept, fit.Slope, curve.OutputAt)
             : null;
     }
@@ -55,8 +84,8 @@ public static class TrimAccuracy
 
     /// <summary>
     /// Where a DAC trim's two codes are chosen together (<see cref="Trims.DacCodeSearch"/>), °C: for <c>"fit": "minimax"</c>
-    /// over the rated range (the fit's own objective, now on whole codes), for <c>through-points</c> at the calibration
-    /// points; null (each code rounded on its own) when the sequence states neither a sensor model nor a rated range.
+    /// over the rated range (the fit's own objective, now on whole codes), for <c>through-points</c> at the outer
+    /// calibration points (<see cref="OuterPoints"/>); null (each code rounded on its own) when the sequence states neither a sensor model nor a rated range.
     /// </summary>
     public static IReadOnlyList<double>? CodeObjectiveC(SequenceDefinition sequence, IReadOnlyList<CalibrationPoint> points)
     {
@@ -69,7 +98,7 @@ public static class TrimAccuracy
 
         return sequence.Trim?.Fit == TrimFits.Minimax && sequence.RatedRange is { } range
             ? Enumerable.Range(0, CodeObjectiveSamples).Select(i => range.LowC + ((range.HighC - range.LowC) * i / (CodeObjectiveSamples - 1))).ToArray()
-            : points.Select(p => p.ReferenceC).ToArray();
+            : OuterPoints(points).Select(p => p.ReferenceC).ToArray();
     }
 
     /// <summary>Samples of the curve over the rated range for a firmware polynomial, or null (fit the calibration points).</summary>
@@ -134,7 +163,10 @@ public static class TrimAccuracy
     /// <summary>
     /// The readings of the budget for the trim step <paramref name="name"/>: <c>.predicted.maxAbs</c> (U at the worst
     /// point), <c>.predicted.maxAbsAtC</c>, <c>.predicted.rms</c>, <c>.predicted.floorRms</c>, and with more than two
-    /// calibration points each point's residual from the sensor curve, <c>.model.residual.&lt;setpoint&gt;</c> (°C).
+    /// calibration points each point's residual from the sensor curve, <c>.model.residual.&lt;setpoint&gt;</c> (°C). With
+    /// the unit's curvature fitted (<see cref="SensorCurve.CurvatureFitted"/>) instead: <c>.model.curvature</c> (λ, the
+    /// unit's bow over the model's) and each inner point's residual from the model's nominal curve through the outer
+    /// points, <c>.model.residual.&lt;setpoint&gt;</c> (°C; what λ was fitted to).
     /// </summary>
     public static IReadOnlyList<Reading> Readings(
         string name, RatedRangeDefinition range, RatedRangePrediction prediction, SensorCurve curve, IReadOnlyList<string> pointNames, DateTimeOffset at)
@@ -155,7 +187,24 @@ public static class TrimAccuracy
             Judged($"{name}.predicted.rms", prediction.RmsErrorC, range.RmsErrorLimits, prediction.RmsUncertainty, at),
             Unjudged($"{name}.predicted.floorRms", prediction.FloorRmsC, at),
         };
-        if (curve.Residuals.Count > 2)
+        if (curve.CurvatureFitted)
+        {
+            readings.Add(new Reading($"{name}.model.curvature", curve.CurvatureScale, "1", null, null, Verdict.Pass)
+            {
+                At = at,
+                Note = string.Create(CultureInfo.InvariantCulture,
+                    $"this unit's diode bow is {curve.CurvatureScale:0.000} x the sensor model's (XTI*n {curve.CurvatureScale * (curve.Model?.Xti ?? 0) * curve.Ideality:0.000} equivalent)"),
+            });
+            var outer = (Low: curve.PointsC.Min(), High: curve.PointsC.Max());
+            for (var i = 0; i < curve.ResidualsFromNominalBow.Count && i < pointNames.Count; i++)
+            {
+                if (curve.PointsC[i] != outer.Low && curve.PointsC[i] != outer.High)
+                {
+                    readings.Add(Unjudged($"{name}.model.residual.{pointNames[i]}", curve.ResidualsFromNominalBow[i] / curve.Slope, at));
+                }
+            }
+        }
+        else if (curve.Residuals.Count > 2)
         {
             for (var i = 0; i < curve.Residuals.Count && i < pointNames.Count; i++)
             {

@@ -175,8 +175,12 @@ public static class DefinitionBounds
     public static object? ForProperty(Type declaringType, string propertyName) =>
         ByProperty.TryGetValue((declaringType, propertyName), out var bound) ? bound : null;
 
+    /// <summary>A trim step's calibration points: two setpoints or more, each once (a gain-and-offset trim takes at most three).</summary>
+    public static readonly ListBound TrimPoints = new(2, Unique: true);
+
     private static readonly Dictionary<(Type, string), object> ByProperty = new()
     {
+        [(typeof(TrimStep), nameof(TrimStep.Points))] = TrimPoints,
         [(typeof(SourceDefinition), nameof(SourceDefinition.SafeMinC))] = TemperatureC,
         [(typeof(SourceDefinition), nameof(SourceDefinition.SafeMaxC))] = TemperatureC,
         [(typeof(SourceDefinition), nameof(SourceDefinition.StandbyC))] = TemperatureC,

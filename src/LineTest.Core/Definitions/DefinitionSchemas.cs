@@ -82,6 +82,15 @@ public static class DefinitionSchemas
                 target["maximum"] = number.Maximum;
                 text = $"{text} Allowed: {number.Describe()}.";
                 break;
+            case ListBound list:
+                schema["minItems"] = list.MinItems;
+                if (list.Unique)
+                {
+                    schema["uniqueItems"] = true;
+                }
+
+                text = $"{text} Allowed: {list.Describe()}.";
+                break;
             case TextBound name:
                 schema["pattern"] = name.Pattern;
                 schema["maxLength"] = name.MaxLength;

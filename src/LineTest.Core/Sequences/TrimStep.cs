@@ -12,7 +12,10 @@ public sealed record TrimStep : StepDefinition
     [JsonIgnore]
     public override string Kind => "trim";
 
-    /// <summary>Setpoints whose measure steps supply the calibration points (two or more).</summary>
+    /// <summary>
+    /// Setpoints whose measure steps supply the calibration points (two or more). A DAC or resistor trim takes two, or
+    /// three: the outer two for the line, the inner one to measure the unit's own curvature (needs the sensor model).
+    /// </summary>
     public required IReadOnlyList<string> Points { get; init; }
 
     /// <summary>Further setpoints to predict the remaining error at (e.g. the verify setpoint).</summary>

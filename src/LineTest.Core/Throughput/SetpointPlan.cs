@@ -10,7 +10,9 @@ namespace LineTest.Core.Throughput;
 /// and blocks within a group do not depend on each other (a step whose kind is a <see cref="PlannerRole.Barrier"/>, such
 /// as a trim, prompt, identify, supply-current or iv-sweep step, ends the group). For a sequence whose <c>setpointOrder</c> is <c>free</c>, each group is visited in the order with the
 /// least predicted source travel (<see cref="ThermalBound.TravelSeconds"/>) from where the block is, through the
-/// group, to the setpoint that follows it; ties keep the file order. A <c>fixed</c> sequence is returned unchanged.
+/// group, to the setpoint that follows it; ties keep the file order. When a step after the group reads at a setpoint
+/// before any settle of its own (a verify after the trim, in the block the group left the source at), the block at
+/// that setpoint stays last in the group. A <c>fixed</c> sequence is returned unchanged.
 /// </summary>
 /// <remarks>
 /// Travel is the only part of a batch's time that depends on the order (stability windows, soaks and measurements
@@ -55,7 +57,10 @@ public static class SetpointPlan
             var consumed = blocks.Sum(b => b.Count);
             double? nextC = NextSettle(steps, i + consumed) is { } next && celsius.TryGetValue(next, out var n) ? n : null;
             var targets = blocks.Select(b => celsius.TryGetValue(SettlesAt(b[0])!, out var t) ? t : current).ToArray();
-            var order = BestOrder(source, sequence.Stability.BandC, current, targets, nextC);
+            var pinned = ReadBeforeNextSettle(steps, i + consumed) is { } reads
+                ? blocks.FindLastIndex(b => string.Equals(SettlesAt(b[0]), reads, StringComparison.Ordinal))
+                : -1;
+            var order = BestOrder(source, sequence.Stability.BandC, current, targets, nextC, pinned < 0 ? null : pinned);
             foreach (var index in order)
             {
                 result.AddRange(blocks[index]);
@@ -125,29 +130,57 @@ public static class SetpointPlan
         return null;
     }
 
-    private static int[] BestOrder(SourceDefinition source, double bandC, double startC, double[] targets, double? nextC)
+    /// <summary>The setpoint the first step from <paramref name="from"/> reads at, if it does so before any settle step; otherwise null.</summary>
+    private static string? ReadBeforeNextSettle(IReadOnlyList<StepDefinition> steps, int from)
+    {
+        for (var i = from; i < steps.Count && SettlesAt(steps[i]) is null; i++)
+        {
+            if (StepKinds.SetpointOf(steps[i]) is { } setpoint)
+            {
+                return setpoint;
+            }
+        }
+
+        return null;
+    }
+
+    /// <summary>The order of least travel; with <paramref name="last"/>, only orders that end with that block.</summary>
+    private static int[] BestOrder(SourceDefinition source, double bandC, double startC, double[] targets, double? nextC, int? last)
     {
         var identity = Enumerable.Range(0, targets.Length).ToArray();
         if (targets.Length > ExhaustiveLimit)
         {
-            return NearestFirst(startC, targets);
+            if (last is not { } keep)
+            {
+                return NearestFirst(startC, targets);
+            }
+
+            var others = identity.Where(k => k != keep).ToArray();
+            return [.. NearestFirst(startC, others.Select(k => targets[k]).ToArray()).Select(k => others[k]), keep];
         }
 
-        var best = identity;
-        var bestSeconds = Travel(source, bandC, startC, targets, identity, nextC);
-        foreach (var order in Permutations(identity))
+        int[]? best = null;
+        var bestSeconds = double.PositiveInfinity;
+
+        // File order first, so that ties keep it (the permutations start with it too, but may be refused below).
+        foreach (var order in Permutations(identity).Prepend(identity))
         {
+            if (last is { } keep && order[^1] != keep)
+            {
+                continue;
+            }
+
             var seconds = Travel(source, bandC, startC, targets, order, nextC);
 
             // A strictly shorter travel only (with a little slack against rounding), so ties keep the file order.
-            if (seconds < bestSeconds - 1e-9)
+            if (best is null || seconds < bestSeconds - 1e-9)
             {
                 best = order;
                 bestSeconds = seconds;
             }
         }
 
-        return best;
+        return best!;
     }
 
     private static double Travel(SourceDefinition source, double bandC, double startC, double[] targets, int[] order, double? nextC)

@@ -105,6 +105,27 @@ internal static class TrimInputs
             }
         }
 
+        // With the unit's curvature fitted, a calibration point's prediction (from its measured output) carries the budget's
+        // uncertainty there too: the inner point is often the verify setpoint, and the curve passes through every point.
+        if (curve.CurvatureFitted)
+        {
+            for (var i = 0; i < step.Points.Count; i++)
+            {
+                var index = unit.Readings.FindLastIndex(r => r.Name == $"{step.DisplayName}.predicted.{step.Points[i]}");
+                if (index >= 0)
+                {
+                    var at = prediction.Nearest(curve.PointsC[i]);
+                    var u = new ExpandedUncertainty(at.StandardUncertaintyC, CoverageFactor.ForDegreesOfFreedom(at.EffectiveDegreesOfFreedom));
+                    unit.Readings[index] = unit.Readings[index] with
+                    {
+                        StandardUncertainty = u.StandardUncertainty,
+                        ExpandedUncertainty = u.Expanded,
+                        CoverageFactor = u.CoverageFactor,
+                    };
+                }
+            }
+        }
+
         foreach (var reading in TrimAccuracy.Readings(step.DisplayName, range, prediction, curve, step.Points, now))
         {
             unit.Add(reading);

@@ -73,11 +73,24 @@ public static class AccuracyCommand
         var inv = CultureInfo.InvariantCulture;
         o.WriteLine($"True post-trim error over each sequence's rated range on fixture {fixtureId} (simulator ground truth, passing units)");
         o.WriteLine();
-        o.WriteLine("sequence           fit              units  rms degC  max|e| degC  floor rms  ratio  verify bias  verify reading mean/sd  predicted mean/sd");
+        o.WriteLine("sequence             fit              units  rms degC  max|e| degC  floor rms  ratio  verify bias  verify reading mean/sd  predicted mean/sd");
         foreach (var f in figures)
         {
             o.WriteLine(string.Create(inv,
-                $"{f.SequenceId,-18} {f.Fit,-15} {f.Units,6}  {f.RmsErrorC,8:F4}  {f.MaxAbsErrorC,11:F4}  {f.FloorRmsC,9:F4}  {f.Ratio,5:F2}  {Signed(f.VerifyBiasC),11}  {Signed(f.VerifyReadingMeanC),11}/{f.VerifyReadingSdC:F4}  {Signed(f.PredictedVerifyMeanC),9}/{f.PredictedVerifySdC:F4}"));
+                $"{f.SequenceId,-20} {f.Fit,-15} {f.Units,6}  {f.RmsErrorC,8:F4}  {f.MaxAbsErrorC,11:F4}  {f.FloorRmsC,9:F4}  {f.Ratio,5:F2}  {Signed(f.VerifyBiasC),11}  {Signed(f.VerifyReadingMeanC),11}/{f.VerifyReadingSdC:F4}  {Signed(f.PredictedVerifyMeanC),9}/{f.PredictedVerifySdC:F4}"));
+        }
+
+        // The linear variants' target: minimax's largest error as a share of the line through the points', per sequence.
+        o.WriteLine();
+        foreach (var group in figures.GroupBy(f => f.SequenceId))
+        {
+            var minimax = group.FirstOrDefault(f => f.Fit == TrimFits.Minimax);
+            var through = group.FirstOrDefault(f => f.Fit == TrimFits.ThroughPoints);
+            if (minimax is not null && through is not null && through.MaxAbsErrorC > 0)
+            {
+                o.WriteLine(string.Create(inv,
+                    $"{group.Key,-20} max|e| minimax / through-points = {minimax.MaxAbsErrorC:F4} / {through.MaxAbsErrorC:F4} = {minimax.MaxAbsErrorC / through.MaxAbsErrorC:F3}"));
+            }
         }
 
         var decomposed = figures.Where(f => f.Stages.Count > 0).ToList();
@@ -89,18 +102,18 @@ public static class AccuracyCommand
         o.WriteLine();
         o.WriteLine("Where the error of a gain-and-offset trim comes from (ground truth; each stage adds one source to the ones above it):");
         o.WriteLine();
-        o.WriteLine("sequence           fit              stage                         max|e| degC  rms degC   adds max  adds rms");
+        o.WriteLine("sequence             fit              stage                         max|e| degC  rms degC   adds max  adds rms");
         foreach (var f in decomposed)
         {
             foreach (var s in f.Stages)
             {
                 o.WriteLine(string.Create(inv,
-                    $"{f.SequenceId,-18} {f.Fit,-15}  {s.Name,-28} {s.MaxAbsErrorC,11:F4}  {s.RmsErrorC,8:F4}  {s.StepMaxAbsC,9:F4}  {s.StepRmsC,8:F4}"));
+                    $"{f.SequenceId,-20} {f.Fit,-15}  {s.Name,-28} {s.MaxAbsErrorC,11:F4}  {s.RmsErrorC,8:F4}  {s.StepMaxAbsC,9:F4}  {s.StepRmsC,8:F4}"));
             }
 
             if (f.DecompositionMismatches > 0)
             {
-                o.WriteLine(string.Create(inv, $"{f.SequenceId,-18} {f.Fit,-15}  ({f.DecompositionMismatches} units' trims could not be recomputed exactly: the stages are approximate)"));
+                o.WriteLine(string.Create(inv, $"{f.SequenceId,-20} {f.Fit,-15}  ({f.DecompositionMismatches} units' trims could not be recomputed exactly: the stages are approximate)"));
             }
         }
     }

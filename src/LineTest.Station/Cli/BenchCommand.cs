@@ -16,11 +16,18 @@ public static class BenchCommand
     public static IReadOnlyList<string> DemoSequences { get; } =
         ["sequences/ctp40a-dac.json", "sequences/ctp40r-resistor.json", "sequences/ctp40d-firmware.json"];
 
+    /// <summary>
+    /// The sequences <c>--accuracy</c> measures when none is given: the demo sequences and the three-point variants of the
+    /// gain-and-offset ones (their third calibration point measures each unit's curvature).
+    /// </summary>
+    public static IReadOnlyList<string> AccuracySequences { get; } =
+        [.. DemoSequences, "sequences/ctp40a-dac-3pt.json", "sequences/ctp40r-resistor-3pt.json"];
+
     /// <summary>Builds the command.</summary>
     public static Command Create(CliContext context)
     {
         ArgumentNullException.ThrowIfNull(context);
-        var sequences = new Option<string[]>("--sequence") { Description = "Sequence file (repeatable; default: the three demo sequences)", AllowMultipleArgumentsPerToken = false };
+        var sequences = new Option<string[]>("--sequence") { Description = "Sequence file (repeatable; default: the three demo sequences, with --accuracy also their three-point variants)", AllowMultipleArgumentsPerToken = false };
         var fixture = new Option<string?>("--fixture") { Description = "Simulated fixture (default: the station's)" };
         var batches = new Option<int>("--batches") { Description = "Full batches per sequence for the throughput figures", DefaultValueFactory = _ => 5 };
         var shiftUnits = new Option<int>("--shift-units") { Description = "Units in the shift whose wall time and memory are measured (0: skip)", DefaultValueFactory = _ => 1000 };
@@ -85,7 +92,7 @@ public static class BenchCommand
 
             var files = parse.GetValue(sequences) is { Length: > 0 } given
                 ? given.Select(Path.GetFullPath).ToList()
-                : DemoSequences.Select(s => ContentRoot.Resolve(context.Root, s)).ToList();
+                : (parse.GetValue(accuracy) ? AccuracySequences : DemoSequences).Select(s => ContentRoot.Resolve(context.Root, s)).ToList();
             var loaded = new List<(Core.Sequences.SequenceDefinition Sequence, string Sha256)>();
             foreach (var file in files)
             {

@@ -15,8 +15,9 @@ namespace LineTest.Station.Demo;
 /// <remarks>
 /// Stages: (1) <c>best line</c>: the line the fit objective would choose from the true curve itself (minimax over the
 /// range, or through the true outputs at the calibration temperatures) — the floor of a straight-line trim;
-/// (2) <c>sensor model</c>: the station's curve (nominal XTI, no read-out non-linearity, the unit's measured n) through
-/// the true outputs at the reference temperatures; (3) <c>well offset</c>: the unit's well is not the reference's
+/// (2) <c>sensor model</c>: the station's curve (nominal XTI, no read-out non-linearity, the unit's measured n; with a
+/// third calibration point the unit's own curvature fitted to the three) through the true outputs at the reference
+/// temperatures; (3) <c>well offset</c>: the unit's well is not the reference's
 /// (the simulator's static slot offset, less what the fixture states for the slot and the station corrects); (4) <c>soak lag, noise, reference</c>: the measured points themselves (what is
 /// left: the unit still following its well, output and reference noise); (5) <c>trim resolution</c>: the codes rounded or
 /// the E-series parts chosen (the trim's own prediction applied to the true curve); (6) <c>as built</c>: the unit's

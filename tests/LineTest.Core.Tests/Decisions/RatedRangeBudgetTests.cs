@@ -85,4 +85,30 @@ public sealed class RatedRangeBudgetTests
     {
         Assert.Throws<ArgumentException>(() => RatedRangeBudget.Predict(Straight(), c => c, [Us[0]], -20, 40));
     }
+
+    [Fact]
+    public void Predict_HandWorkedThreePointsWithTheUnitsCurvature_FollowsLawOfPropagation()
+    {
+        // Three points at −20, +5 and +40 °C, each with reference u = 0.010 °C (ν infinite) and mean output u = 0.1 mV
+        // (ν = 9; slope ≈ 10 mV/°C, so 0.010 °C). Fitting a, b and the unit's curvature λ through three points, the weights
+        // are 1 at their own point and 0 at the others, so at +5 °C the budget is that point's alone [JCGM 100:2008 §5.1.2,
+        // eq. (10); G.4.1]: u_c = √(0.01² + 0.01²) = 0.01414 °C and ν_eff = (2·10⁻⁴)²/(0.01⁴/9) = 36. Between the points the
+        // weights are nearly those of the parabola through them, since c(T) ∝ T·ln(T/T1) is within a few per cent of a
+        // parabola over 60 K: at +10 °C Lagrange's are −0.1, 1.028571, 0.071429 [derived], so u_c ≈ 0.01414·√1.0681 =
+        // 0.01462 °C. XTI's and n's spread scale the curved term, which λ takes up: they leave nothing.
+        var model = new DiodeSensorModel { Xti = 3, XtiStdDev = 0.3, Ideality = 1.05, IdealityStdDev = 0.05 };
+        double Volts(double c) => 3.75 - (5 * model.TypicalForwardVolts(c, 1.05));
+        var points = new List<CalibrationPoint> { new("low", -20, Volts(-20)), new("mid", 5, Volts(5)), new("high", 40, Volts(40)) };
+        Assert.True(SensorCurve.FitWithCurvature(points, model).TryGetValue(out var curve));
+        PointUncertainty[] us = [.. Enumerable.Repeat(new PointUncertainty(0.010, null, 0.0001 * curve.Slope / 0.01, 9), 3)];
+
+        var prediction = RatedRangeBudget.Predict(curve, c => c, us, -20, 40, gridPoints: 61);
+
+        var at5 = prediction.Nearest(5);
+        Assert.Equal(Math.Sqrt(2e-4), at5.StandardUncertaintyC, 9);
+        Assert.Equal(36.0, at5.EffectiveDegreesOfFreedom!.Value, 6);
+        Assert.Equal(Math.Sqrt(2e-4) * Math.Sqrt((0.1 * 0.1) + (1.028571 * 1.028571) + (0.071429 * 0.071429)), prediction.Nearest(10).StandardUncertaintyC, 3);
+        Assert.All(prediction.Grid, p => Assert.Equal(0.0, p.Budget!.Components.Single(c => c.Name == "sensor model XTI").Contribution, 9));
+        Assert.All(prediction.Grid, p => Assert.Equal(0.0, p.Budget!.Components.Single(c => c.Name == "sensor model ideality").Contribution, 9));
+    }
 }

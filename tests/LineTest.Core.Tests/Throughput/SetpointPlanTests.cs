@@ -106,6 +106,56 @@ public sealed class SetpointPlanTests
         Assert.Equal(steps.Count, ordered.Count);
     }
 
+    // Found when the three-point resistor sequence was tried with "setpointOrder": "free": its third point is measured
+    // in a block at the verify setpoint, then the trim and verify follow with no settle of their own. The planner moved
+    // that block away from the end of the group, so the trim and verify ran at -20 °C while verify reported +5 °C.
+    [Fact]
+    public void Order_ReaderAfterTheGroupWithoutItsOwnSettle_ItsBlockStaysLast()
+    {
+        var threePoint = LoadSequence("ctp40r-resistor-3pt.json") with { SetpointOrder = SetpointOrders.Free };
+
+        foreach (var start in new[] { -30.0, -20, -5, 0, 5, 10, 23, 40, 60, 125 })
+        {
+            var ordered = SetpointPlan.Order(threePoint, Fixture.Source, start);
+
+            Assert.Equal(threePoint.Steps.Count, ordered.Count);
+            AssertEveryReadingAtItsSettle(ordered, $"start {start}");
+            Assert.Equal("verify", ordered.OfType<SettleStep>().Last().Setpoint);
+        }
+    }
+
+    [Fact]
+    public void Order_ShippedSequencesMadeFree_EveryReadingAtItsSettle()
+    {
+        // Property: whatever the start, a step that reads at a setpoint runs after a settle at that setpoint and before
+        // any other settle, for every shipped sequence with its blocks set free.
+        foreach (var file in Directory.GetFiles(Path.GetDirectoryName(TestFiles.ShippedSequencePath)!, "ctp40*.json"))
+        {
+            var free = LoadSequence(Path.GetFileName(file)) with { SetpointOrder = SetpointOrders.Free };
+            foreach (var start in new[] { -30.0, -20, 5, 23, 40, 125 })
+            {
+                AssertEveryReadingAtItsSettle(SetpointPlan.Order(free, Fixture.Source, start), $"{Path.GetFileName(file)} from {start}");
+            }
+        }
+    }
+
+    private static void AssertEveryReadingAtItsSettle(IReadOnlyList<StepDefinition> steps, string what)
+    {
+        string? at = null;
+        foreach (var step in steps)
+        {
+            var kind = LineTest.Core.Sequences.Steps.StepKinds.Of(step);
+            if (kind?.PlannerRole == LineTest.Core.Sequences.Steps.PlannerRole.Settle)
+            {
+                at = kind.SetpointOf(step);
+            }
+            else if (kind?.SetpointOf(step) is { } reads)
+            {
+                Assert.True(reads == at, $"{what}: {step.GetType().Name} '{step.Name}' reads at '{reads}' while the block was last settled at '{at}'");
+            }
+        }
+    }
+
     private static double Travel(IReadOnlyList<StepDefinition> steps, double startC)
     {
         var total = 0.0;
@@ -139,6 +189,13 @@ public sealed class SetpointPlanTests
     private static FixtureDefinition LoadFixture()
     {
         var result = DefinitionFile.Fixture(TestFiles.ShippedFixturePath);
+        Assert.True(result.IsSuccess, string.Join(Environment.NewLine, result.Problems));
+        return result.Value!;
+    }
+
+    private static SequenceDefinition LoadSequence(string file)
+    {
+        var result = DefinitionFile.Sequence(Path.Combine(Path.GetDirectoryName(TestFiles.ShippedSequencePath)!, file), LoadFixture());
         Assert.True(result.IsSuccess, string.Join(Environment.NewLine, result.Problems));
         return result.Value!;
     }

@@ -1,3 +1,4 @@
+using LineTest.Core.Calibration;
 using LineTest.Core.Fixtures;
 using LineTest.Core.Results;
 using LineTest.Core.Trims;
@@ -58,6 +59,33 @@ public sealed class DacTrimExecutorTests
         {
             var offset = fixture.WellOffsetC(slot);
             Assert.InRange(stated[slot] - unstated[slot], offset - 0.008, offset + 0.008);
+        }
+    }
+
+    /// <summary>
+    /// Three calibration points: the trim fits each unit's own curvature λ (its bow over the sensor model's) and records it
+    /// with the inner point's residual from the nominal bow. The λ it records must be the one the unit's true untrimmed
+    /// curve gives through the same temperatures, within what the points' noise and lag allow (a 0.01 °C error of the
+    /// inner point is about 5 % of the 0.21 °C bow at +5 °C [derived]); the units' own λ spread over ±0.1 and more.
+    /// </summary>
+    [Fact]
+    public async Task RunAsync_ThreeCalibrationPoints_RecordsEachUnitsOwnCurvature()
+    {
+        var h = new CoordinatorHarness(seed: 91, sequenceFile: "sequences/ctp40a-dac-3pt.json");
+        var units = h.Load(UnitDefect.None, UnitDefect.None, UnitDefect.None, UnitDefect.None);
+
+        var outcome = await h.RunAsync(units);
+
+        var model = h.Sequence.Trim!.SensorModel!;
+        foreach (var unit in units)
+        {
+            var run = outcome.Runs.Single(r => r.Serial == unit.Serial);
+            Assert.Equal(Verdict.Pass, run.Verdict);
+            var ideality = run.Readings.Where(r => r.Name is "iv-low.n" or "iv-high.n").Average(r => r.Value!.Value);
+            var truth = SensorCurve.FitWithCurvature([.. new[] { -20.0, 5, 40 }.Select(c => new CalibrationPoint("t", c, unit.CalibrationOutputVolts(c)))], model, ideality).Value;
+            var recorded = run.Readings.Single(r => r.Name == "trim.model.curvature").Value!.Value;
+            Assert.InRange(recorded - truth.CurvatureScale, -0.06, 0.06);
+            Assert.Contains(run.Readings, r => r.Name == "trim.model.residual.verify" && r.Unit == "degC");
         }
     }
 

@@ -30,6 +30,30 @@ public sealed class ResistorTrimExecutorTests
         Assert.All(units, u => Assert.NotEqual(h.Design.GainFittedOhms, u.FittedOhms["R7"]));
     }
 
+    /// <summary>
+    /// Three calibration points with the parts fitted at the inner one (+5 °C, also the verify setpoint): the units pass,
+    /// the trim records each unit's curvature, and verify reads the unit with its new parts, not its calibration parts —
+    /// its mean over the units within 0.05 °C of the minimax line's predicted error there.
+    /// </summary>
+    [Fact]
+    public async Task RunAsync_ThreeCalibrationPoints_PassAndVerifyReadsTheFittedParts()
+    {
+        var h = new CoordinatorHarness(seed: 5, sequenceFile: "sequences/ctp40r-resistor-3pt.json");
+        var units = h.Load(UnitDefect.None, UnitDefect.None, UnitDefect.None, UnitDefect.None);
+
+        var outcome = await h.RunAsync(units);
+
+        Assert.All(outcome.Runs, r => Assert.Equal(Verdict.Pass, r.Verdict));
+        Assert.All(outcome.Runs, r => Assert.Contains(r.Readings, x => x.Name == "trim.model.curvature"));
+        var verify = outcome.Runs.Average(r => r.Readings.Single(x => x.Name == "verify.error").Value!.Value);
+        var predicted = outcome.Runs.Average(r => r.Readings.Single(x => x.Name == "trim.predicted.verify").Value!.Value);
+        Assert.InRange(verify - predicted, -0.05, 0.05);
+        Assert.InRange(predicted, -0.2, -0.03);
+        // The prediction at the inner point carries the budget's uncertainty, fitted-part tolerance included (0.1 % parts
+        // move the output by a few hundredths of a degree).
+        Assert.All(outcome.Runs, r => Assert.InRange(r.Readings.Single(x => x.Name == "trim.predicted.verify").StandardUncertainty ?? 0, 0.01, 0.1));
+    }
+
     [Fact]
     public async Task RunAsync_GoodUnit_PromptNamesSlotSerialValuesAndPositions()
     {

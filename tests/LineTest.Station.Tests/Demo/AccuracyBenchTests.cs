@@ -82,4 +82,25 @@ public sealed class AccuracyBenchTests
         Assert.InRange(minimax.Stages[0].MaxAbsErrorC / through.Stages[0].MaxAbsErrorC, 0.49, 0.51);
         Assert.Equal(0.0, through.Stages[1].StepMaxAbsC, 9);
     }
+
+    /// <summary>
+    /// With a third calibration point the minimax line is the best line for each unit's own curve: the decomposition's
+    /// sensor-model stage (the station's curve through the true outputs) then adds almost nothing to the Chebyshev floor,
+    /// where with two points the unmeasured spread of XTI and of the read-out non-linearity added about 0.013 °C. The trims
+    /// recomputed from the stored points are the ones the station wrote.
+    /// </summary>
+    [Theory]
+    [InlineData("ctp40a-dac-3pt.json")]
+    [InlineData("ctp40r-resistor-3pt.json")]
+    public async Task MeasureAsync_ThreePointSequence_SensorModelStageAddsNothingToTheFloor(string file)
+    {
+        var variant = AccuracyBench.Variants(Sequence(file)).Single(v => v.Fit == TrimFits.Minimax);
+
+        var figures = await AccuracyBench.MeasureAsync(Fixture, variant.Sequence, "mm", 3, 7, null, CancellationToken.None);
+
+        Assert.Equal(0, figures.DecompositionMismatches);
+        Assert.True(figures.Units >= 10, $"{figures.Units} passing units");
+        Assert.InRange(figures.Stages[1].StepMaxAbsC, 0, 0.001);
+        Assert.InRange(figures.VerifyReadingMeanC - figures.PredictedVerifyMeanC, -0.02, 0.02);
+    }
 }

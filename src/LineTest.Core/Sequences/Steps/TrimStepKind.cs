@@ -1,8 +1,8 @@
 namespace LineTest.Core.Sequences.Steps;
 
 /// <summary>
-/// The <c>trim</c> step: needs the sequence's trim object and two or more measured, distinct calibration points;
-/// predict-at setpoints must exist. Never crossed by the planner (a verify block stays after its trim). Computing and
+/// The <c>trim</c> step: needs the sequence's trim object and two or more measured, distinct calibration points (a
+/// gain-and-offset trim two or three: <see cref="AccuracyRules.CheckTrimPoints"/>); predict-at setpoints must exist. Never crossed by the planner (a verify block stays after its trim). Computing and
 /// writing a trim takes well under a second per unit, so it adds nothing to the bound.
 /// </summary>
 public sealed class TrimStepKind : StepKind<TrimStep>
@@ -35,6 +35,8 @@ public sealed class TrimStepKind : StepKind<TrimStep>
         {
             context.RequireSetpoint(step.PredictAt[p], $"{path}.predictAt[{p}]");
         }
+
+        AccuracyRules.CheckTrimPoints(context.Sequence, step, path, problems);
     }
 
     /// <inheritdoc />
