@@ -74,6 +74,15 @@ internal sealed record PageFilters
     public (ReportQuery? Query, IReadOnlyList<string> Problems) ToQuery(IReadOnlyList<ProductSequence> products)
     {
         var problems = new List<string>();
+        foreach (var (name, value) in new[] { ("station", Station), ("lot", Lot), ("product", Product), ("sequence", Sequence) })
+        {
+            // No stored name holds one, and a NUL cannot even be sent to the factory database as text.
+            if (value is not null && value.Any(char.IsControl))
+            {
+                problems.Add($"'{name}' holds a control character; type the {name} as it is written on the unit or the batch");
+            }
+        }
+
         var from = Date(From, "from", 0, problems);
         var to = Date(To, "to", 1, problems);
         if (from is { } f && to is { } t && !(f < t))
