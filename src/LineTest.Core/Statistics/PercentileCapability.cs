@@ -19,15 +19,10 @@ public static class PercentileCapability
     /// <summary>Computes the percentile indices; not computed without limits, with too few values or no spread.</summary>
     public static StatisticOutcome<PercentileCapabilityResult> Analyze(ReadOnlySpan<double> values, SpecLimits limits)
     {
-        if (!limits.Lower.HasValue && !limits.Upper.HasValue)
+        if ((!limits.Lower.HasValue && !limits.Upper.HasValue) || values.Length < MinimumCount)
         {
-            return StatisticOutcome<PercentileCapabilityResult>.NotComputed("No specification limits: percentile capability is not defined.");
-        }
-
-        if (values.Length < MinimumCount)
-        {
-            return StatisticOutcome<PercentileCapabilityResult>.NotComputed(
-                $"Percentile capability needs at least {MinimumCount} values; got {values.Length}.");
+            // Not computed either way, before any order is asked for: nothing to copy or sort.
+            return AnalyzeSorted(values, limits);
         }
 
         var sorted = values.ToArray();
