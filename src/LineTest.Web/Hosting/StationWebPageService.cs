@@ -5,8 +5,12 @@ using Microsoft.Extensions.Logging;
 
 namespace LineTest.Web.Hosting;
 
-/// <summary>The live page inside the hosted station: started and stopped with the station, read-only on its own results.</summary>
-internal sealed class StationWebPageService : IHostedService, IAsyncDisposable
+/// <summary>
+/// The live page inside the hosted station: started and stopped with the station, read-only on its own results. A page
+/// that cannot listen (its port held by another program) does not stop the station: it runs without the page and the
+/// log says why.
+/// </summary>
+internal sealed partial class StationWebPageService : IHostedService, IAsyncDisposable
 {
     private readonly WebPageSetup _setup;
     private WebApplication? _app;
@@ -15,9 +19,25 @@ internal sealed class StationWebPageService : IHostedService, IAsyncDisposable
 
     public async Task StartAsync(CancellationToken cancellationToken)
     {
-        _app = WebPageApp.Create(_setup);
-        await _app.StartAsync(cancellationToken).ConfigureAwait(false);
+        var app = WebPageApp.Create(_setup);
+        try
+        {
+            await app.StartAsync(cancellationToken).ConfigureAwait(false);
+            _app = app;
+        }
+        catch (IOException ex)
+        {
+            await app.DisposeAsync().ConfigureAwait(false);
+            if (_setup.Loggers is { } loggers)
+            {
+                LogCannotListen(loggers.CreateLogger<StationWebPageService>(), _setup.Listen.ToString(), ex.Message);
+            }
+        }
     }
+
+    [LoggerMessage(EventId = 4091, Level = LogLevel.Warning,
+        Message = "The live page cannot listen on {Listen} ({Reason}); the station tests without the live page. Free the port or set another Station:Web:Listen, then restart the station to have the page")]
+    private static partial void LogCannotListen(ILogger logger, string listen, string reason);
 
     public async Task StopAsync(CancellationToken cancellationToken)
     {
