@@ -93,6 +93,12 @@ public static class ServeCommand
 
             await using var owned = source as IAsyncDisposable;
             var setup = new WebPageSetup(address, options, source) { Time = context.Clock, Loggers = context.Loggers, Shifts = shifts! };
+            if (WebPageApp.CannotListen(address) is { } reason)
+            {
+                context.Error.WriteLine($"linetest: serve cannot listen on {address}: {reason}");
+                return ExitCodes.RuntimeFailure;
+            }
+
             await using var app = WebPageApp.Create(setup);
             try
             {

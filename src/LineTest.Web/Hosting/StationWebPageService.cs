@@ -19,6 +19,17 @@ internal sealed partial class StationWebPageService : IHostedService, IAsyncDisp
 
     public async Task StartAsync(CancellationToken cancellationToken)
     {
+        if (WebPageApp.CannotListen(_setup.Listen) is { } reason)
+        {
+            if (_setup.Loggers is { } loggers)
+            {
+                LogCannotListen(loggers.CreateLogger<StationWebPageService>(), _setup.Listen.ToString(), reason);
+            }
+
+            return;
+        }
+
+        // The port may still be taken between the look and the start: the same warning then.
         var app = WebPageApp.Create(_setup);
         try
         {

@@ -13,6 +13,27 @@ namespace LineTest.Web.Hosting;
 public static class WebPageApp
 {
     /// <summary>
+    /// Why the page cannot listen on <paramref name="listen"/> now (its port held by another program, an address this
+    /// computer does not have), or null when it can: asked before the web host is made, whose own failed start would
+    /// log an error with a stack trace. Port 0 (any free port) always can.
+    /// </summary>
+    public static string? CannotListen(ListenAddress listen)
+    {
+        ArgumentNullException.ThrowIfNull(listen);
+        try
+        {
+            var probe = new System.Net.Sockets.TcpListener(listen.Address, listen.Port);
+            probe.Start();
+            probe.Stop();
+            return null;
+        }
+        catch (System.Net.Sockets.SocketException ex)
+        {
+            return ex.Message;
+        }
+    }
+
+    /// <summary>
     /// Builds the application. <paramref name="configure"/> may change the builder before it is built (tests put
     /// the test server in Kestrel's place).
     /// </summary>
