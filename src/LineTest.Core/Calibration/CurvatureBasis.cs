@@ -92,29 +92,19 @@ internal sealed class CurvatureBasis
         return (beta[0] - (b * _meanC) - (lambda * _meanG), b, lambda);
     }
 
-    /// <summary>The inverse of a symmetric 3×3 matrix by its adjugate; null when it is (near) singular.</summary>
+    /// <summary>The inverse of the 3×3 normal matrix (<see cref="Stability.SmallMatrix"/>); null when it is (near) singular.</summary>
     private static double[,]? Invert(double[,] m, int count)
     {
-        var c00 = (m[1, 1] * m[2, 2]) - (m[1, 2] * m[2, 1]);
-        var c01 = (m[1, 2] * m[2, 0]) - (m[1, 0] * m[2, 2]);
-        var c02 = (m[1, 0] * m[2, 1]) - (m[1, 1] * m[2, 0]);
-        var det = (m[0, 0] * c00) + (m[0, 1] * c01) + (m[0, 2] * c02);
+        var det = (m[0, 0] * ((m[1, 1] * m[2, 2]) - (m[1, 2] * m[2, 1])))
+            + (m[0, 1] * ((m[1, 2] * m[2, 0]) - (m[1, 0] * m[2, 2])))
+            + (m[0, 2] * ((m[1, 0] * m[2, 1]) - (m[1, 1] * m[2, 0])));
+
         // The scaled columns have unit length (and the first √N), so the determinant compares with 1 per point.
         if (!(Math.Abs(det) > SingularDeterminant * count) || !double.IsFinite(det))
         {
             return null;
         }
 
-        var inverse = new double[3, 3];
-        inverse[0, 0] = c00 / det;
-        inverse[1, 0] = c01 / det;
-        inverse[2, 0] = c02 / det;
-        inverse[0, 1] = ((m[0, 2] * m[2, 1]) - (m[0, 1] * m[2, 2])) / det;
-        inverse[1, 1] = ((m[0, 0] * m[2, 2]) - (m[0, 2] * m[2, 0])) / det;
-        inverse[2, 1] = ((m[0, 1] * m[2, 0]) - (m[0, 0] * m[2, 1])) / det;
-        inverse[0, 2] = ((m[0, 1] * m[1, 2]) - (m[0, 2] * m[1, 1])) / det;
-        inverse[1, 2] = ((m[0, 2] * m[1, 0]) - (m[0, 0] * m[1, 2])) / det;
-        inverse[2, 2] = ((m[0, 0] * m[1, 1]) - (m[0, 1] * m[1, 0])) / det;
-        return inverse;
+        return Stability.SmallMatrix.TryInvert(m, out var inverse) ? inverse : null;
     }
 }

@@ -156,14 +156,14 @@ public sealed class SensorCurve
 
         var y = points.Select(p => p.Output).ToArray();
         var (a, b, lambda) = basis.Coefficients(y);
-        var fitted = new SensorCurve(model, nominal.Ideality, nominal.OutputPerDiodeVolt, a, b, t, [], basis, lambda);
-        var residuals = points.Select(p => p.Output - fitted.OutputAt(p.ReferenceC)).ToArray();
+        var residuals = y.Select((yi, i) => yi - (a + (b * t[i]) + (lambda * g[i]))).ToArray();
+
         // The evidence for λ: each point against the model's nominal curve through the two outer points.
         // The nominal curve through the outer points has the same κ: y_lo + (y_hi − y_lo)·f + κ·(c(T) − chord of c at T).
-        var (lo, hi) = (points.MinBy(p => p.ReferenceC)!, points.MaxBy(p => p.ReferenceC)!);
-        double Chord(double yLo, double yHi, double celsius) => yLo + ((yHi - yLo) * (celsius - lo.ReferenceC) / (hi.ReferenceC - lo.ReferenceC));
-        var (gLo, gHi) = (nominal.OutputPerDiodeVolt * nominal.DiodeCurvatureVolts(lo.ReferenceC), nominal.OutputPerDiodeVolt * nominal.DiodeCurvatureVolts(hi.ReferenceC));
-        var bow = points.Select((p, i) => p.Output - Chord(lo.Output, hi.Output, p.ReferenceC) - (g[i] - Chord(gLo, gHi, p.ReferenceC))).ToArray();
+        var lo = Array.IndexOf(t, t.Min());
+        var hi = Array.IndexOf(t, t.Max());
+        double Chord(double atLo, double atHi, double celsius) => atLo + ((atHi - atLo) * (celsius - t[lo]) / (t[hi] - t[lo]));
+        var bow = t.Select((c, i) => y[i] - Chord(y[lo], y[hi], c) - (g[i] - Chord(g[lo], g[hi], c))).ToArray();
         return CalculationResult<SensorCurve>.Success(
             new SensorCurve(model, nominal.Ideality, nominal.OutputPerDiodeVolt, a, b, t, residuals, basis, lambda) { ResidualsFromNominalBow = bow });
     }

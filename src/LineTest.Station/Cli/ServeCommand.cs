@@ -93,10 +93,15 @@ public static class ServeCommand
 
             await using var owned = source as IAsyncDisposable;
             var setup = new WebPageSetup(address, options, source) { Time = context.Clock, Loggers = context.Loggers, Shifts = shifts! };
+            int CannotListen(string why)
+            {
+                context.Error.WriteLine($"linetest: serve cannot listen on {address}: {why}");
+                return ExitCodes.RuntimeFailure;
+            }
+
             if (WebPageApp.CannotListen(address) is { } reason)
             {
-                context.Error.WriteLine($"linetest: serve cannot listen on {address}: {reason}");
-                return ExitCodes.RuntimeFailure;
+                return CannotListen(reason);
             }
 
             await using var app = WebPageApp.Create(setup);
@@ -106,8 +111,8 @@ public static class ServeCommand
             }
             catch (IOException ex)
             {
-                context.Error.WriteLine($"linetest: serve cannot listen on {address}: {ex.Message}");
-                return ExitCodes.RuntimeFailure;
+                // The port was taken between the look and the start.
+                return CannotListen(ex.Message);
             }
 
             foreach (var url in WebPageApp.Addresses(app))

@@ -21,11 +21,7 @@ internal sealed partial class StationWebPageService : IHostedService, IAsyncDisp
     {
         if (WebPageApp.CannotListen(_setup.Listen) is { } reason)
         {
-            if (_setup.Loggers is { } loggers)
-            {
-                LogCannotListen(loggers.CreateLogger<StationWebPageService>(), _setup.Listen.ToString(), reason);
-            }
-
+            WarnCannotListen(reason);
             return;
         }
 
@@ -39,10 +35,15 @@ internal sealed partial class StationWebPageService : IHostedService, IAsyncDisp
         catch (IOException ex)
         {
             await app.DisposeAsync().ConfigureAwait(false);
-            if (_setup.Loggers is { } loggers)
-            {
-                LogCannotListen(loggers.CreateLogger<StationWebPageService>(), _setup.Listen.ToString(), ex.Message);
-            }
+            WarnCannotListen(ex.Message);
+        }
+    }
+
+    private void WarnCannotListen(string reason)
+    {
+        if (_setup.Loggers is { } loggers)
+        {
+            LogCannotListen(loggers.CreateLogger<StationWebPageService>(), _setup.Listen.ToString(), reason);
         }
     }
 
