@@ -2,7 +2,7 @@ using LineTest.Storage.Proof;
 
 namespace LineTest.Storage.Backup;
 
-/// <summary>The outcome of <see cref="ResultsBackup.CreateAsync"/>.</summary>
+/// <summary>The outcome of <see cref="ResultsBackup.CreateAsync(string, string, CancellationToken)"/>.</summary>
 /// <param name="File">The backup file, or null when no backup was made.</param>
 /// <param name="HeadFile">The head written beside it (<c>FILE.head</c>), or null.</param>
 /// <param name="Head">The state the backup holds.</param>
