@@ -6,6 +6,15 @@ namespace LineTest.Factory.Reporting;
 /// </summary>
 public sealed class FactoryLoadTimes
 {
+    /// <summary>The packs of runs were brought up to date (<see cref="PacksWritten"/> written); zero when not asked.</summary>
+    public TimeSpan PacksBuilt { get; internal set; }
+
+    /// <summary>How many packs that wrote (none when they were current).</summary>
+    public int PacksWritten { get; internal set; }
+
+    /// <summary>True when the report was read from the packs, false when from the rows.</summary>
+    public bool FromPacks { get; internal set; }
+
     /// <summary>The runs were read and indexed.</summary>
     public TimeSpan RunsRead { get; internal set; }
 

@@ -1,4 +1,5 @@
 using System.Diagnostics;
+using LineTest.Factory.Reporting.Packs;
 using LineTest.Factory.Schema;
 using LineTest.Reports.Loading;
 using Npgsql;
@@ -42,6 +43,78 @@ public static class FactoryReportLoader
         ArgumentNullException.ThrowIfNull(times);
         return LoadAsync(dataSource, query, countYield: true, times, ct);
     }
+
+    /// <summary>
+    /// Loads the data for a report from the packs of runs (<c>run_packs</c>), first building the packs of runs forwarded
+    /// since they were last built: a report over a million runs reads about a hundred packs instead of six million rows.
+    /// The runs come with their outcomes and the yield is counted from them, as for station folders, so the report is the
+    /// same as from <see cref="LoadAsync(NpgsqlDataSource, ReportQuery, CancellationToken)"/>. Where the packs cannot be
+    /// built (a read-only replica, a database of schema version 1) or keep falling behind stations that forward while the
+    /// report starts, the rows are read instead (<see cref="LoadCountedAsync(NpgsqlDataSource, ReportQuery, CancellationToken)"/>).
+    /// </summary>
+    /// <exception cref="NpgsqlException">The database cannot be reached or read.</exception>
+    /// <exception cref="InvalidDataException">A stored pack is damaged (the message says how to have it built again).</exception>
+    public static async Task<ReportData> LoadPackedAsync(NpgsqlDataSource dataSource, ReportQuery query, FactoryLoadTimes? times = null, CancellationToken ct = default)
+    {
+        ArgumentNullException.ThrowIfNull(dataSource);
+        ArgumentNullException.ThrowIfNull(query);
+        var started = Stopwatch.GetTimestamp();
+        for (var attempt = 0; attempt < 3; attempt++)
+        {
+            PackRefresh refresh;
+            try
+            {
+                refresh = await RunPackBuilder.RefreshAsync(dataSource, ct).ConfigureAwait(false);
+            }
+            catch (PostgresException ex) when (CannotBuildPacks(ex))
+            {
+                if (attempt == 0 && ex.SqlState == PostgresErrorCodes.UndefinedTable)
+                {
+                    // No run_packs (schema version 1) or no factory database at all: the rows say which.
+                    break;
+                }
+
+                // A read-only server: packs built elsewhere are used if they are current.
+                refresh = default;
+                attempt = 2;
+            }
+
+            if (times is not null)
+            {
+                times.PacksBuilt = Stopwatch.GetElapsedTime(started);
+                times.PacksWritten += refresh.Packs;
+            }
+
+            if (await PackedReportLoader.TryLoadAsync(dataSource, query, times, started, ct).ConfigureAwait(false) is { } data)
+            {
+                if (times is not null)
+                {
+                    times.FromPacks = true;
+                }
+
+                return data;
+            }
+        }
+
+        return await LoadAsync(dataSource, query, countYield: true, times, ct).ConfigureAwait(false);
+    }
+
+    /// <summary>
+    /// Builds the packs of runs forwarded since they were last built (all of them the first time), as a report does before
+    /// it reads them; returns how many packs were written, the runs they hold and how long it took.
+    /// </summary>
+    /// <exception cref="NpgsqlException">The database cannot be reached, read or written.</exception>
+    public static async Task<(int Packs, long Runs, TimeSpan Elapsed)> BuildPacksAsync(NpgsqlDataSource dataSource, CancellationToken ct = default)
+    {
+        var refresh = await RunPackBuilder.RefreshAsync(dataSource, ct).ConfigureAwait(false);
+        return (refresh.Packs, refresh.Runs, refresh.Elapsed);
+    }
+
+    /// <summary>The server will not let this connection build packs (no table, read-only, no right to write).</summary>
+    private static bool CannotBuildPacks(PostgresException ex) => ex.SqlState is PostgresErrorCodes.UndefinedTable
+        or PostgresErrorCodes.ReadOnlySqlTransaction
+        or PostgresErrorCodes.InsufficientPrivilege
+        or PostgresErrorCodes.ObjectNotInPrerequisiteState;
 
     private static async Task<ReportData> LoadAsync(NpgsqlDataSource dataSource, ReportQuery query, bool countYield, FactoryLoadTimes? times, CancellationToken ct)
     {

@@ -66,12 +66,15 @@ public static class FactoryBenchCommand
                     context.Output.WriteLine(string.Create(inv, $"filled {total} runs x 5 readings in {fill:F1} s"));
                 }
 
+                await FactoryMigrations.ApplyAsync(dataSource, ct).ConfigureAwait(false);
+                var (packs, packedRuns, packTime) = await FactoryReportLoader.BuildPacksAsync(dataSource, ct).ConfigureAwait(false);
+                context.Output.WriteLine(string.Create(inv, $"packs of runs built: {packs} packs ({packedRuns} runs) in {packTime.TotalSeconds:F1} s{(packs == 0 ? " (already current)" : string.Empty)}"));
                 var floor = await FactoryBench.FloorAsync(dataSource, ct).ConfigureAwait(false);
                 context.Output.WriteLine(string.Create(inv, $"floor (plain SQL aggregate: yield counts, per-reading count/mean/sd/min/max): {floor:F2} s"));
                 await FactoryBench.FloorAsync(dataSource, ct).ConfigureAwait(false);
                 var watch = Stopwatch.StartNew();
                 var times = new FactoryLoadTimes();
-                var data = await FactoryReportLoader.LoadCountedAsync(dataSource, ReportQuery.All, times, ct).ConfigureAwait(false);
+                var data = await FactoryReportLoader.LoadPackedAsync(dataSource, ReportQuery.All, times, ct).ConfigureAwait(false);
                 var loaded = watch.Elapsed.TotalSeconds;
                 var report = ReportBuilder.Build(data, ReportQuery.All, context.Clock);
                 var built = watch.Elapsed.TotalSeconds;
@@ -86,7 +89,7 @@ public static class FactoryBenchCommand
                     $"  garbage collections {GC.CollectionCount(0)}/{GC.CollectionCount(1)}/{GC.CollectionCount(2)} (gen 0/1/2), paused {GC.GetTotalPauseDuration().TotalSeconds:F2} s; processor time of this process {process.TotalProcessorTime.TotalSeconds:F2} s"));
                 context.Output.WriteLine(string.Create(
                     inv,
-                    $"  load, from its start: runs read {times.RunsRead.TotalSeconds:F2} s, readings read {times.ReadingsRead.TotalSeconds:F2} s, placed in run order {times.ReadingsPlaced.TotalSeconds:F2} s, yield count received {times.YieldCounted.TotalSeconds:F2} s"));
+                    $"  load, from its start: packs of runs current {times.PacksBuilt.TotalSeconds:F2} s ({times.PacksWritten} written), read from {(times.FromPacks ? "the packs" : "the rows")}; runs read {times.RunsRead.TotalSeconds:F2} s, readings read {times.ReadingsRead.TotalSeconds:F2} s, placed in run order {times.ReadingsPlaced.TotalSeconds:F2} s, yield count received {times.YieldCounted.TotalSeconds:F2} s"));
                 return ExitCodes.Done;
             }
             catch (NpgsqlException ex)

@@ -25,11 +25,15 @@ internal static class FactoryReportSource
         {
             try
             {
-                return (await FactoryReportLoader.LoadCountedAsync(dataSource, query, ct).ConfigureAwait(false), ExitCodes.Done);
+                return (await FactoryReportLoader.LoadPackedAsync(dataSource, query, ct: ct).ConfigureAwait(false), ExitCodes.Done);
             }
             catch (PostgresException ex) when (ex.SqlState == PostgresErrorCodes.UndefinedTable)
             {
                 return (null, context.BadInput($"{FactoryConnection.Describe(dataSource)} is not a LineTest factory database (no runs were ever forwarded to it)"));
+            }
+            catch (InvalidDataException ex)
+            {
+                return (null, context.BadInput($"{FactoryConnection.Describe(dataSource)}: {ex.Message}"));
             }
             catch (NpgsqlException ex)
             {

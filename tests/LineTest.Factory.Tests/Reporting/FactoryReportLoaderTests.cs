@@ -96,11 +96,15 @@ public sealed class FactoryReportLoaderTests
             var fromFolders = await ResultsLoader.LoadAsync(stations.Select(s => s.Directory).ToList(), query);
             var fromFactory = await FactoryReportLoader.LoadAsync(database.DataSource, query);
             var counted = await FactoryReportLoader.LoadCountedAsync(database.DataSource, query);
+            var times = new FactoryLoadTimes();
+            var packed = await FactoryReportLoader.LoadPackedAsync(database.DataSource, query, times);
 
             Assert.True(fromFolders.Runs.Count > 0, what);
+            Assert.True(times.FromPacks, what);
             var expected = Json(fromFolders, query);
             Assert.Equal(expected, Json(fromFactory, query));
             Assert.Equal(expected, Json(counted, query));
+            Assert.Equal(expected, Json(packed, query));
         }
         finally
         {

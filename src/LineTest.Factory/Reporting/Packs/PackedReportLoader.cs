@@ -1,0 +1,321 @@
+using System.Diagnostics;
+using System.Text;
+using LineTest.Reports.Loading;
+using Npgsql;
+
+namespace LineTest.Factory.Reporting.Packs;
+
+/// <summary>
+/// Loads a report's runs and readings from <c>run_packs</c> (see <see cref="RunPack"/>) in one repeatable-read
+/// snapshot, once the packs hold every run of that snapshot: the months of packs are read on several connections at
+/// once, each run is kept or left out by the report's conditions exactly as the SQL conditions of the row path would,
+/// and runs and readings are put into the factory's run order (end instant, station, station database, seq) and
+/// reading order, as the rows would have come. The report (yield counted from the runs, as for station folders) is
+/// therefore the same as from the rows or from the folders.
+/// </summary>
+internal static class PackedReportLoader
+{
+    /// <summary>
+    /// The data, or null when the snapshot has runs the packs do not hold yet (forwarded since they were built): the
+    /// caller builds again or reads the rows.
+    /// </summary>
+    public static async Task<ReportData?> TryLoadAsync(NpgsqlDataSource dataSource, ReportQuery query, FactoryLoadTimes? times, long started, CancellationToken ct)
+    {
+        await using var session = await SharedSnapshot.OpenAsync(dataSource, ct).ConfigureAwait(false);
+        if ((await RunPackBuilder.StaleChainsAsync(session.Connection, session.Transaction, ct).ConfigureAwait(false)).Count > 0)
+        {
+            return null;
+        }
+
+        var marks = await MarksAsync(session, ct).ConfigureAwait(false);
+        var months = await MonthsAsync(session, query, ct).ConfigureAwait(false);
+        var data = new ReportData();
+        data.AddSource(Schema.FactoryConnection.Describe(dataSource));
+        if (months.Count == 0)
+        {
+            return data;
+        }
+
+        var connections = new List<(NpgsqlConnection Connection, NpgsqlTransaction Transaction)> { (session.Connection, session.Transaction) };
+        if (session.Shared)
+        {
+            connections.AddRange(await Task.WhenAll(Enumerable.Range(1, Math.Min(months.Count, Math.Max(2, Environment.ProcessorCount)) - 1)
+                .Select(_ => session.JoinAsync(ct))).ConfigureAwait(false));
+        }
+
+        // Each connection reads and orders its months in turn; the months are placed here in order as each is ready,
+        // and let go once placed.
+        var ready = months.Select(_ => new TaskCompletionSource<MonthRuns>(TaskCreationOptions.RunContinuationsAsynchronously)).ToArray();
+        using var stop = CancellationTokenSource.CreateLinkedTokenSource(ct);
+        var readers = connections.Select((c, k) => Task.Run(async () =>
+        {
+            for (var m = k; m < months.Count; m += connections.Count)
+            {
+                try
+                {
+                    var packs = await ReadMonthAsync(c.Connection, c.Transaction, months[m], stop.Token).ConfigureAwait(false);
+                    ready[m].SetResult(MonthRuns.Select(packs, query, marks));
+                }
+                catch (Exception ex)
+                {
+                    ready[m].SetException(ex);
+                    for (var later = m + connections.Count; later < months.Count; later += connections.Count)
+                    {
+                        ready[later].SetCanceled(stop.Token);
+                    }
+
+                    return;
+                }
+            }
+        })).ToList();
+
+        try
+        {
+            var placer = new Placer(data, query);
+            for (var m = 0; m < ready.Length; m++)
+            {
+                var month = await ready[m].Task.ConfigureAwait(false);
+                placer.Place(month);
+                ready[m] = null!;
+            }
+
+            if (times is not null)
+            {
+                times.RunsRead = times.ReadingsRead = times.ReadingsPlaced = Stopwatch.GetElapsedTime(started);
+            }
+        }
+        catch
+        {
+            await stop.CancelAsync().ConfigureAwait(false);
+            await Task.WhenAll(readers.Select(r => r.ContinueWith(_ => { }, CancellationToken.None, TaskContinuationOptions.None, TaskScheduler.Default))).ConfigureAwait(false);
+            throw;
+        }
+
+        await Task.WhenAll(readers).ConfigureAwait(false);
+        return data;
+    }
+
+    private static async Task<Dictionary<Guid, long>> MarksAsync(SharedSnapshot session, CancellationToken ct)
+    {
+        await using var command = new NpgsqlCommand("SELECT chain_id, packed_seq FROM run_pack_marks;", session.Connection, session.Transaction);
+        var marks = new Dictionary<Guid, long>();
+        await using var reader = await command.ExecuteReaderAsync(ct).ConfigureAwait(false);
+        while (await reader.ReadAsync(ct).ConfigureAwait(false))
+        {
+            marks.Add(reader.GetGuid(0), reader.GetInt64(1));
+        }
+
+        return marks;
+    }
+
+    /// <summary>The months of packs that can hold runs in the report's time window, in order.</summary>
+    private static async Task<List<DateTime>> MonthsAsync(SharedSnapshot session, ReportQuery query, CancellationToken ct)
+    {
+        await using var command = new NpgsqlCommand(string.Empty, session.Connection, session.Transaction);
+        var conditions = new List<string>();
+        if (query.FromUtc is { } from)
+        {
+            conditions.Add("month >= @from");
+            command.Parameters.AddWithValue("from", MonthOf(from.UtcTicks));
+        }
+
+        if (query.ToUtc is { } to)
+        {
+            conditions.Add("month <= @to");
+            command.Parameters.AddWithValue("to", MonthOf(to.UtcTicks));
+        }
+
+        command.CommandText = $"SELECT DISTINCT month FROM run_packs{(conditions.Count == 0 ? string.Empty : " WHERE " + string.Join(" AND ", conditions))} ORDER BY month;";
+        var months = new List<DateTime>();
+        await using var reader = await command.ExecuteReaderAsync(ct).ConfigureAwait(false);
+        while (await reader.ReadAsync(ct).ConfigureAwait(false))
+        {
+            months.Add(DateTime.SpecifyKind(reader.GetDateTime(0), DateTimeKind.Utc));
+        }
+
+        return months;
+    }
+
+    private static DateTime MonthOf(long ticks)
+    {
+        var at = new DateTime(ticks, DateTimeKind.Utc);
+        return new DateTime(at.Year, at.Month, 1, 0, 0, 0, DateTimeKind.Utc);
+    }
+
+    private static async Task<List<RunPack>> ReadMonthAsync(NpgsqlConnection connection, NpgsqlTransaction transaction, DateTime month, CancellationToken ct)
+    {
+        await using var command = new NpgsqlCommand("SELECT chain_id, body FROM run_packs WHERE month = @m;", connection, transaction) { CommandTimeout = 0 };
+        command.Parameters.AddWithValue("m", month);
+        var packs = new List<RunPack>();
+        await using var reader = await command.ExecuteReaderAsync(System.Data.CommandBehavior.SequentialAccess, ct).ConfigureAwait(false);
+        while (await reader.ReadAsync(ct).ConfigureAwait(false))
+        {
+            var chain = reader.GetGuid(0);
+            var body = await reader.GetFieldValueAsync<byte[]>(1, ct).ConfigureAwait(false);
+            RunPack pack;
+            try
+            {
+                pack = RunPack.FromBytes(body);
+            }
+            catch (InvalidDataException ex)
+            {
+                throw new InvalidDataException($"The run pack of station database {chain:D} for {month:yyyy-MM} cannot be read: {ex.Message} Delete it (DELETE FROM run_packs WHERE chain_id = '{chain:D}'; DELETE FROM run_pack_marks WHERE chain_id = '{chain:D}';) and it is built again from the runs.", ex);
+            }
+
+            if (pack.Chain != chain)
+            {
+                throw new InvalidDataException($"The run pack stored for station database {chain:D} ({month:yyyy-MM}) holds station database {pack.Chain:D}.");
+            }
+
+            packs.Add(pack);
+        }
+
+        return packs;
+    }
+
+    /// <summary>One month's packs and the runs kept from them, in run order.</summary>
+    private sealed class MonthRuns
+    {
+        public required List<RunPack> Packs { get; init; }
+
+        /// <summary>The kept runs in run order: pack number in the high 32 bits, run in the low.</summary>
+        public required long[] Order { get; init; }
+
+        public static MonthRuns Select(List<RunPack> packs, ReportQuery query, Dictionary<Guid, long> marks)
+        {
+            var stations = new Dictionary<string, byte[]>(StringComparer.Ordinal);
+            var chainBytes = packs.Select(p => p.Chain.ToByteArray(bigEndian: true)).ToArray();
+            var kept = new List<long>();
+            for (var p = 0; p < packs.Count; p++)
+            {
+                var pack = packs[p];
+                var mark = marks.TryGetValue(pack.Chain, out var m) ? m : long.MinValue;
+                var wanted = Wanted(pack, query);
+                for (var r = 0; r < pack.Runs; r++)
+                {
+                    if (pack.Seq[r] <= mark && wanted(r))
+                    {
+                        kept.Add(((long)p << 32) | (uint)r);
+                    }
+                }
+            }
+
+            var order = kept.ToArray();
+            byte[] StationBytes(RunPack pack, int run)
+            {
+                var text = pack.Texts[pack.Station[run]];
+                if (!stations.TryGetValue(text, out var bytes))
+                {
+                    bytes = Encoding.UTF8.GetBytes(text);
+                    stations.Add(text, bytes);
+                }
+
+                return bytes;
+            }
+
+            // The factory's run order: end instant, station (bytewise, COLLATE "C"), station database (uuid order:
+            // bytewise), seq.
+            Array.Sort(order, (a, b) =>
+            {
+                var (pa, ra) = ((int)(a >> 32), (int)a);
+                var (pb, rb) = ((int)(b >> 32), (int)b);
+                var packA = packs[pa];
+                var packB = packs[pb];
+                var c = packA.EndedTicks[ra].CompareTo(packB.EndedTicks[rb]);
+                if (c != 0)
+                {
+                    return c;
+                }
+
+                c = StationBytes(packA, ra).AsSpan().SequenceCompareTo(StationBytes(packB, rb));
+                if (c != 0)
+                {
+                    return c;
+                }
+
+                c = chainBytes[pa].AsSpan().SequenceCompareTo(chainBytes[pb]);
+                return c != 0 ? c : packA.Seq[ra].CompareTo(packB.Seq[rb]);
+            });
+            return new MonthRuns { Packs = packs, Order = order };
+        }
+
+        /// <summary>The run conditions of <see cref="FactoryFilterSql"/>, asked of a pack's runs.</summary>
+        private static Func<int, bool> Wanted(RunPack pack, ReportQuery query)
+        {
+            var from = query.FromUtc?.UtcTicks ?? long.MinValue;
+            var to = query.ToUtc?.UtcTicks ?? long.MaxValue;
+            int Number(string? text) => text is null ? -2 : Array.IndexOf(pack.Texts, text);
+            var station = Number(query.Station);
+            var lot = Number(query.Lot);
+            var sequence = Number(query.SequenceId);
+            return r =>
+                pack.EndedTicks[r] >= from && pack.EndedTicks[r] < to
+                && (query.Station is null || pack.Station[r] == station)
+                && (query.Slot is not int slot || pack.Slot[r] == slot)
+                && (query.Lot is null || pack.Lot[r] == lot)
+                && (query.SequenceId is null || pack.Sequence[r] == sequence)
+                && (query.SequenceRevision is not int revision || pack.Revision[r] == revision);
+        }
+    }
+
+    /// <summary>Adds months of runs, in order, to the report's runs and series.</summary>
+    private sealed class Placer(ReportData data, ReportQuery query)
+    {
+        private readonly bool _operators = query.GroupBy == ReportGrouping.Operator;
+
+        public void Place(MonthRuns month)
+        {
+            var runs = data.Runs;
+            // Per pack and sequence (a pack mostly holds one), the series of each shape once asked for.
+            var series = month.Packs.Select(_ => new Dictionary<int, ReadingSeries?[]>()).ToArray();
+            var wantsShape = month.Packs.Select(p => p.Shapes.Select(s => query.WantsReading(p.Texts[s.Name])).ToArray()).ToArray();
+            foreach (var key in month.Order)
+            {
+                var (p, r) = ((int)(key >> 32), (int)key);
+                var pack = month.Packs[p];
+                var sequence = pack.Texts[pack.Sequence[r]];
+                if (!data.Products.ContainsKey(sequence))
+                {
+                    // The product of a sequence's first run, as the folder loader takes it.
+                    data.AddProduct(sequence, pack.Texts[pack.Product[r]]);
+                }
+
+                var run = runs.Add(
+                    pack.Serial[r],
+                    new DateTimeOffset(pack.EndedTicks[r], TimeSpan.Zero),
+                    pack.Verdict[r],
+                    pack.Texts[pack.Station[r]],
+                    pack.Slot[r],
+                    pack.Text(pack.Lot[r]),
+                    sequence,
+                    pack.Revision[r],
+                    pack.Text(pack.Failure[r]),
+                    pack.Text(pack.Reason[r]));
+                if (_operators)
+                {
+                    runs.SetOperator(run, pack.Text(pack.Operator[r]));
+                }
+
+                if (!series[p].TryGetValue(pack.Sequence[r], out var ofShape))
+                {
+                    ofShape = new ReadingSeries?[pack.Shapes.Length];
+                    series[p].Add(pack.Sequence[r], ofShape);
+                }
+
+                for (var i = pack.ReadingStart[r]; i < pack.ReadingStart[r + 1]; i++)
+                {
+                    var s = pack.ReadingShape[i];
+                    if (!wantsShape[p][s])
+                    {
+                        continue;
+                    }
+
+                    var shape = pack.Shapes[s];
+                    var into = ofShape[s] ??= data.Series(sequence, pack.Texts[shape.Name], pack.Texts[shape.Unit]);
+                    var value = pack.ReadingValue[i];
+                    into.Add(run, double.IsNaN(value) ? null : value, pack.Texts[shape.Unit], shape.Low, shape.High);
+                }
+            }
+        }
+    }
+}
