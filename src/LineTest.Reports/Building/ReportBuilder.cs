@@ -24,41 +24,56 @@ public static class ReportBuilder
         ArgumentNullException.ThrowIfNull(time);
 
         var tally = data.Tally;
+        if (tally is null)
+        {
+            // Made once here, before the work below shares the table across threads.
+            data.Runs.Units();
+        }
+
         var firstRuns = !query.FirstRunsOnly ? null
             : tally is null ? data.Runs.FirstRuns()
             : tally.FirstRunFlags ?? throw new ArgumentException("The source counted yield but did not mark each unit's first run, which --first-runs needs.", nameof(data));
 
         // Series are independent and their analysis only reads the loaded data, so a large report uses every core;
-        // results go into their series' position, so the order stays the load order.
+        // results go into their series' position, so the order stays the load order. The yield, the groups and the days
+        // only read the runs, and are counted meanwhile.
         var series = data.Readings.ToList();
         var readings = new ReadingStatistics[series.Count];
         var slots = new SlotBiasEntry[series.Count];
-        Parallel.For(0, series.Count, i =>
-        {
-            var (values, kept) = Selected(series[i], firstRuns);
-            var runs = kept is null ? series[i].Runs : kept;
-            readings[i] = Analyze(series[i], values, runs, data);
-            slots[i] = SlotBiasOf(series[i], values, runs, data.Runs);
-        });
-
-        var yield = tally is null ? YieldAnalysis.Summarize(data.Runs.Outcomes()) : YieldAnalysis.Summarize(tally.Overall);
-        if (firstRuns is not null)
-        {
-            // First-pass figures are already about first runs; the Pareto of failures is narrowed to them.
-            var first = tally is null ? YieldAnalysis.Summarize(data.Runs.Outcomes(Indices(firstRuns))) : YieldAnalysis.Summarize(tally.FirstRuns);
-            yield = yield with { FailurePareto = first.FailurePareto, ErrorReasons = first.ErrorReasons };
-        }
+        YieldSummary? yield = null;
+        List<GroupReport> groups = [];
+        List<DailyYield> daily = [];
+        Parallel.Invoke(
+            () => Parallel.For(0, series.Count, i =>
+            {
+                var (values, kept) = Selected(series[i], firstRuns);
+                var runs = kept is null ? series[i].Runs : kept;
+                readings[i] = Analyze(series[i], values, runs, data);
+                slots[i] = SlotBiasOf(series[i], values, runs, data.Runs);
+            }),
+            () =>
+            {
+                yield = tally is null ? YieldAnalysis.Summarize(data.Runs.CountYield()) : YieldAnalysis.Summarize(tally.Overall);
+                if (firstRuns is not null)
+                {
+                    // First-pass figures are already about first runs; the Pareto of failures is narrowed to them.
+                    var first = tally is null ? YieldAnalysis.Summarize(data.Runs.CountYield(Indices(firstRuns))) : YieldAnalysis.Summarize(tally.FirstRuns);
+                    yield = yield with { FailurePareto = first.FailurePareto, ErrorReasons = first.ErrorReasons };
+                }
+            },
+            () => groups = query.GroupBy == ReportGrouping.None ? [] : Groups(data, query, firstRuns),
+            () => daily = data.Runs.HasTimes ? Daily(data.Runs, tally) : []);
 
         return new QualityReport
         {
             GeneratedUtc = time.GetUtcNow(),
             Sources = data.Sources,
             Query = query,
-            Yield = yield,
+            Yield = yield!,
             Readings = readings,
             Slots = slots,
-            Groups = query.GroupBy == ReportGrouping.None ? [] : Groups(data, query, firstRuns),
-            DailyYield = data.Runs.HasTimes ? Daily(data.Runs, tally) : [],
+            Groups = groups,
+            DailyYield = daily,
             SkippedRows = data.SkippedRows,
         };
     }
@@ -191,14 +206,34 @@ public static class ReportBuilder
         var ids = new Dictionary<string, int>(StringComparer.Ordinal);
         var keys = new List<string>();
         var groupOfRun = new int[runs.Count];
+
+        // Days and slots are numbers: the key text is made once per day or slot, not once per run.
+        var byNumber = grouping switch
+        {
+            ReportGrouping.Day when runs.HasTimes => (Func<int, long>)(r => runs.EndedUtc(r).UtcTicks / TimeSpan.TicksPerDay),
+            ReportGrouping.Slot => r => runs.Slot(r),
+            _ => null,
+        };
+        var known = new Dictionary<long, int>();
         for (var r = 0; r < runs.Count; r++)
         {
+            if (byNumber is not null && known.TryGetValue(byNumber(r), out var seen))
+            {
+                groupOfRun[r] = seen;
+                continue;
+            }
+
             var key = runs.GroupKey(r, grouping, shifts);
             if (!ids.TryGetValue(key, out var id))
             {
                 id = keys.Count;
                 ids.Add(key, id);
                 keys.Add(key);
+            }
+
+            if (byNumber is not null)
+            {
+                known[byNumber(r)] = id;
             }
 
             groupOfRun[r] = id;
@@ -211,19 +246,20 @@ public static class ReportBuilder
     private static int[] UnitGroups(RunTable runs, int[] groupOfRun)
     {
         var first = runs.FirstRuns();
-        var groupOfSerial = new Dictionary<string, int>(StringComparer.Ordinal);
+        var (unitOf, units) = runs.Units();
+        var groupOfUnit = new int[units];
         for (var r = 0; r < runs.Count; r++)
         {
             if (first[r])
             {
-                groupOfSerial[runs.Serial(r)] = groupOfRun[r];
+                groupOfUnit[unitOf[r]] = groupOfRun[r];
             }
         }
 
         var unitGroup = new int[runs.Count];
         for (var r = 0; r < runs.Count; r++)
         {
-            unitGroup[r] = groupOfSerial[runs.Serial(r)];
+            unitGroup[r] = groupOfUnit[unitOf[r]];
         }
 
         return unitGroup;
@@ -303,7 +339,7 @@ public static class ReportBuilder
     {
         if (runsOf is not null)
         {
-            return YieldAnalysis.Summarize(runs.Outcomes(runsOf[g]));
+            return YieldAnalysis.Summarize(runs.CountYield(runsOf[g]));
         }
 
         return YieldAnalysis.Summarize(counted!.TryGetValue(key, out var counts) ? counts : new YieldCounts());

@@ -89,7 +89,7 @@ public static class FactoryBenchCommand
                     $"  garbage collections {GC.CollectionCount(0)}/{GC.CollectionCount(1)}/{GC.CollectionCount(2)} (gen 0/1/2), paused {GC.GetTotalPauseDuration().TotalSeconds:F2} s; processor time of this process {process.TotalProcessorTime.TotalSeconds:F2} s"));
                 context.Output.WriteLine(string.Create(
                     inv,
-                    $"  load, from its start: packs of runs current {times.PacksBuilt.TotalSeconds:F2} s ({times.PacksWritten} written), read from {(times.FromPacks ? "the packs" : "the rows")}; runs read {times.RunsRead.TotalSeconds:F2} s, readings read {times.ReadingsRead.TotalSeconds:F2} s, placed in run order {times.ReadingsPlaced.TotalSeconds:F2} s, yield count received {times.YieldCounted.TotalSeconds:F2} s"));
+                    $"  load, from its start: packs of runs current {times.PacksBuilt.TotalSeconds:F2} s ({times.PacksWritten} written), read from {(times.FromPacks ? "the packs" : "the rows")}; {(times.FromPacks ? "packs read" : "runs read")} {times.RunsRead.TotalSeconds:F2} s, {(times.FromPacks ? "runs ordered" : "readings read")} {times.ReadingsRead.TotalSeconds:F2} s, placed in run order {times.ReadingsPlaced.TotalSeconds:F2} s, yield count received {times.YieldCounted.TotalSeconds:F2} s"));
                 return ExitCodes.Done;
             }
             catch (NpgsqlException ex)

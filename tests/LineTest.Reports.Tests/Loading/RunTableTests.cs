@@ -1,4 +1,6 @@
+using CsCheck;
 using LineTest.Core.Results;
+using LineTest.Core.Statistics;
 using LineTest.Reports.Loading;
 
 namespace LineTest.Reports.Tests.Loading;
@@ -23,6 +25,50 @@ public sealed class RunTableTests
         Assert.Throws<InvalidOperationException>(() => table.FirstRuns());
         Assert.Throws<InvalidOperationException>(() => table.Add("CTP40-00001", T0, Verdict.Pass, "ST-01", 1, null, null, null, null, null));
     }
+
+    /// <summary>
+    /// The array count of yield must give exactly what <see cref="YieldAnalysis.Summarize(IReadOnlyList{RunOutcome})"/>
+    /// gives for the same runs (the rule of record): retests, equal end times (first given is the first run, last given
+    /// the last), blank and padded failure names, over every run and over subsets in increasing order.
+    /// </summary>
+    [Fact]
+    public void CountYield_AnyRunsAndSubsets_SameSummaryAsTheOutcomeRule()
+    {
+        var run = Gen.Select(Gen.Int[0, 6], Gen.Int[0, 4], Gen.Int[0, 2], Gen.Int[0, 3]);
+        Gen.Select(run.List[0, 40], Gen.Int[0, 1000]).Sample(sample =>
+        {
+            var (runs, seed) = sample;
+            var table = new RunTable();
+            foreach (var (unit, minute, verdict, name) in runs)
+            {
+                var why = name switch { 0 => null, 1 => "  ", 2 => " verify.error ", _ => "reference lost" };
+                table.Add($"U-{unit}", T0.AddMinutes(minute), (Verdict)verdict, "ST-01", 1, null, null, null, why, why);
+            }
+
+            var random = new Random(seed);
+            var subset = Enumerable.Range(0, table.Count).Where(_ => random.Next(2) == 0).ToList();
+            Assert.Equal(Describe(YieldAnalysis.Summarize(table.Outcomes())), Describe(YieldAnalysis.Summarize(table.CountYield())));
+            Assert.Equal(Describe(YieldAnalysis.Summarize(table.Outcomes(subset))), Describe(YieldAnalysis.Summarize(table.CountYield(subset))));
+        });
+    }
+
+    [Fact]
+    public void FirstRuns_EqualEndTimes_TheFirstAddedIsTheFirstRun()
+    {
+        var table = new RunTable();
+        table.Add("U-1", T0.AddMinutes(5), Verdict.Fail, "ST-01", 1, null, null, null, "x", null);
+        table.Add("U-2", T0, Verdict.Pass, "ST-01", 1, null, null, null, null, null);
+        table.Add("U-1", T0, Verdict.Pass, "ST-01", 1, null, null, null, null, null);
+        table.Add("U-1", T0, Verdict.Fail, "ST-01", 1, null, null, null, "x", null);
+
+        Assert.Equal([false, true, true, false], table.FirstRuns());
+        Assert.Equal([0, 1, 0, 0], table.Units().UnitOf);
+        Assert.Equal(2, table.Units().Units);
+    }
+
+    private static string Describe(YieldSummary y) =>
+        $"{y.Runs} {y.Units} {y.PassRuns} {y.FailRuns} {y.ErrorRuns} {y.UnitsPassedFirstRun} {y.UnitsPassedLastRun} {y.FirstPassYield} {y.FinalYield} {y.RetestRate} "
+        + string.Join(";", y.FailurePareto.Select(b => $"{b.Name}={b.Count}")) + " | " + string.Join(";", y.ErrorReasons.Select(b => $"{b.Name}={b.Count}"));
 
     [Fact]
     public void AddWithoutOutcome_AfterRunsWithOutcomes_Refused()

@@ -45,6 +45,7 @@ internal static class PackedReportLoader
 
         // Each connection reads and orders its months in turn; the months are placed here in order as each is ready,
         // and let go once placed.
+        var readTimes = new ReadTimes();
         var ready = months.Select(_ => new TaskCompletionSource<MonthRuns>(TaskCreationOptions.RunContinuationsAsynchronously)).ToArray();
         using var stop = CancellationTokenSource.CreateLinkedTokenSource(ct);
         var readers = connections.Select((c, k) => Task.Run(async () =>
@@ -54,7 +55,15 @@ internal static class PackedReportLoader
                 try
                 {
                     var packs = await ReadMonthAsync(c.Connection, c.Transaction, months[m], stop.Token).ConfigureAwait(false);
-                    ready[m].SetResult(MonthRuns.Select(packs, query, marks));
+                    var read = Stopwatch.GetElapsedTime(started);
+                    var selected = MonthRuns.Select(packs, query, marks);
+                    lock (readTimes)
+                    {
+                        readTimes.Read = read > readTimes.Read ? read : readTimes.Read;
+                        readTimes.Ordered = Stopwatch.GetElapsedTime(started);
+                    }
+
+                    ready[m].SetResult(selected);
                 }
                 catch (Exception ex)
                 {
@@ -81,7 +90,9 @@ internal static class PackedReportLoader
 
             if (times is not null)
             {
-                times.RunsRead = times.ReadingsRead = times.ReadingsPlaced = Stopwatch.GetElapsedTime(started);
+                times.RunsRead = readTimes.Read;
+                times.ReadingsRead = readTimes.Ordered;
+                times.ReadingsPlaced = Stopwatch.GetElapsedTime(started);
             }
         }
         catch
@@ -173,6 +184,14 @@ internal static class PackedReportLoader
         return packs;
     }
 
+    /// <summary>When the last month's packs were read and when its runs were put in order.</summary>
+    private sealed class ReadTimes
+    {
+        public TimeSpan Read { get; set; }
+
+        public TimeSpan Ordered { get; set; }
+    }
+
     /// <summary>One month's packs and the runs kept from them, in run order.</summary>
     private sealed class MonthRuns
     {
@@ -181,80 +200,103 @@ internal static class PackedReportLoader
         /// <summary>The kept runs in run order: pack number in the high 32 bits, run in the low.</summary>
         public required long[] Order { get; init; }
 
-        public static MonthRuns Select(List<RunPack> packs, ReportQuery query, Dictionary<Guid, long> marks)
+            public static MonthRuns Select(List<RunPack> packs, ReportQuery query, Dictionary<Guid, long> marks)
         {
-            var stations = new Dictionary<string, byte[]>(StringComparer.Ordinal);
-            var chainBytes = packs.Select(p => p.Chain.ToByteArray(bigEndian: true)).ToArray();
-            var kept = new List<long>();
+            var total = packs.Sum(p => p.Runs);
+            var order = new long[total];
+            var ticks = new long[total];
+            var n = 0;
+            var from = query.FromUtc?.UtcTicks ?? long.MinValue;
+            var to = query.ToUtc?.UtcTicks ?? long.MaxValue;
             for (var p = 0; p < packs.Count; p++)
             {
                 var pack = packs[p];
                 var mark = marks.TryGetValue(pack.Chain, out var m) ? m : long.MinValue;
-                var wanted = Wanted(pack, query);
+
+                // The run conditions of FactoryFilterSql, asked of the pack's runs (a text the pack does not hold matches
+                // none of its runs).
+                int Number(string? text) => text is null ? -2 : Array.IndexOf(pack.Texts, text);
+                var station = Number(query.Station);
+                var lot = Number(query.Lot);
+                var sequence = Number(query.SequenceId);
+                var slot = query.Slot ?? int.MinValue;
+                var revision = query.SequenceRevision ?? int.MinValue;
                 for (var r = 0; r < pack.Runs; r++)
                 {
-                    if (pack.Seq[r] <= mark && wanted(r))
+                    var ended = pack.EndedTicks[r];
+                    if (pack.Seq[r] > mark || ended < from || ended >= to
+                        || (station != -2 && pack.Station[r] != station)
+                        || (query.Slot is not null && pack.Slot[r] != slot)
+                        || (lot != -2 && pack.Lot[r] != lot)
+                        || (sequence != -2 && pack.Sequence[r] != sequence)
+                        || (query.SequenceRevision is not null && pack.Revision[r] != revision))
                     {
-                        kept.Add(((long)p << 32) | (uint)r);
+                        continue;
                     }
+
+                    order[n] = ((long)p << 32) | (uint)r;
+                    ticks[n] = ended;
+                    n++;
                 }
             }
 
-            var order = kept.ToArray();
-            byte[] StationBytes(RunPack pack, int run)
-            {
-                var text = pack.Texts[pack.Station[run]];
-                if (!stations.TryGetValue(text, out var bytes))
-                {
-                    bytes = Encoding.UTF8.GetBytes(text);
-                    stations.Add(text, bytes);
-                }
-
-                return bytes;
-            }
+            Array.Resize(ref order, n);
+            Array.Resize(ref ticks, n);
 
             // The factory's run order: end instant, station (bytewise, COLLATE "C"), station database (uuid order:
-            // bytewise), seq.
-            Array.Sort(order, (a, b) =>
+            // bytewise), seq. Sorted by the instant as numbers, then each run of equal instants by the rest.
+            Array.Sort(ticks, order);
+            var ties = new TieOrder(packs);
+            for (var i = 0; i < n;)
             {
-                var (pa, ra) = ((int)(a >> 32), (int)a);
-                var (pb, rb) = ((int)(b >> 32), (int)b);
-                var packA = packs[pa];
-                var packB = packs[pb];
-                var c = packA.EndedTicks[ra].CompareTo(packB.EndedTicks[rb]);
-                if (c != 0)
+                var j = i + 1;
+                while (j < n && ticks[j] == ticks[i])
                 {
-                    return c;
+                    j++;
                 }
 
-                c = StationBytes(packA, ra).AsSpan().SequenceCompareTo(StationBytes(packB, rb));
-                if (c != 0)
+                if (j - i > 1)
                 {
-                    return c;
+                    Array.Sort(order, i, j - i, ties);
                 }
 
-                c = chainBytes[pa].AsSpan().SequenceCompareTo(chainBytes[pb]);
-                return c != 0 ? c : packA.Seq[ra].CompareTo(packB.Seq[rb]);
-            });
+                i = j;
+            }
+
             return new MonthRuns { Packs = packs, Order = order };
         }
+    }
 
-        /// <summary>The run conditions of <see cref="FactoryFilterSql"/>, asked of a pack's runs.</summary>
-        private static Func<int, bool> Wanted(RunPack pack, ReportQuery query)
+    /// <summary>Orders runs that ended at the same instant: by station (bytewise), station database (bytewise), seq.</summary>
+    private sealed class TieOrder(List<RunPack> packs) : IComparer<long>
+    {
+        private readonly byte[][] _chains = [.. packs.Select(p => p.Chain.ToByteArray(bigEndian: true))];
+        private readonly Dictionary<string, byte[]> _stations = new(StringComparer.Ordinal);
+
+        public int Compare(long a, long b)
         {
-            var from = query.FromUtc?.UtcTicks ?? long.MinValue;
-            var to = query.ToUtc?.UtcTicks ?? long.MaxValue;
-            int Number(string? text) => text is null ? -2 : Array.IndexOf(pack.Texts, text);
-            var station = Number(query.Station);
-            var lot = Number(query.Lot);
-            var sequence = Number(query.SequenceId);
-            return r =>
-                pack.EndedTicks[r] >= from && pack.EndedTicks[r] < to
-                && (query.Station is null || pack.Station[r] == station)
-                && (query.Slot is not int slot || pack.Slot[r] == slot)
-                && (query.Lot is null || pack.Lot[r] == lot)
-                && (query.SequenceId is null || pack.Sequence[r] == sequence)
-                && (query.SequenceRevision is not int revision || pack.Revision[r] == revision);
+            var (pa, ra) = ((int)(a >> 32), (int)a);
+            var (pb, rb) = ((int)(b >> 32), (int)b);
+            var c = Station(pa, ra).AsSpan().SequenceCompareTo(Station(pb, rb));
+            if (c != 0)
+            {
+                return c;
+            }
+
+            c = _chains[pa].AsSpan().SequenceCompareTo(_chains[pb]);
+            return c != 0 ? c : packs[pa].Seq[ra].CompareTo(packs[pb].Seq[rb]);
+        }
+
+        private byte[] Station(int pack, int run)
+        {
+            var text = packs[pack].Texts[packs[pack].Station[run]];
+            if (!_stations.TryGetValue(text, out var bytes))
+            {
+                bytes = Encoding.UTF8.GetBytes(text);
+                _stations.Add(text, bytes);
+            }
+
+            return bytes;
         }
     }
 
@@ -263,7 +305,7 @@ internal static class PackedReportLoader
     {
         private readonly bool _operators = query.GroupBy == ReportGrouping.Operator;
 
-        public void Place(MonthRuns month)
+            public void Place(MonthRuns month)
         {
             var runs = data.Runs;
             // Per pack and sequence (a pack mostly holds one), the series of each shape once asked for.

@@ -2,7 +2,6 @@ using System.Buffers.Binary;
 using System.Runtime.InteropServices;
 using System.Text;
 using LineTest.Core.Results;
-
 namespace LineTest.Factory.Reporting.Packs;
 
 /// <summary>
