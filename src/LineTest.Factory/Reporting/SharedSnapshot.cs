@@ -37,19 +37,20 @@ internal sealed class SharedSnapshot : IAsyncDisposable
         var connection = await dataSource.OpenConnectionAsync(ct).ConfigureAwait(false);
         try
         {
+            // Exported as the transaction's first statement, not inside a savepoint: PostgreSQL refuses to export a
+            // snapshot from a subtransaction. Where it refuses anyway (a hot standby during recovery), the transaction is
+            // aborted, so a new one is begun and only this connection is used.
             var transaction = await connection.BeginTransactionAsync(System.Data.IsolationLevel.RepeatableRead, ct).ConfigureAwait(false);
-            await transaction.SaveAsync("export", ct).ConfigureAwait(false);
             string? snapshot;
             try
             {
                 await using var export = new NpgsqlCommand("SELECT pg_export_snapshot();", connection, transaction);
                 snapshot = (string)(await export.ExecuteScalarAsync(ct).ConfigureAwait(false))!;
-                await transaction.ReleaseAsync("export", ct).ConfigureAwait(false);
             }
             catch (PostgresException)
             {
-                // E.g. a hot standby that cannot export a snapshot during recovery: one connection then.
-                await transaction.RollbackAsync("export", ct).ConfigureAwait(false);
+                await transaction.DisposeAsync().ConfigureAwait(false);
+                transaction = await connection.BeginTransactionAsync(System.Data.IsolationLevel.RepeatableRead, ct).ConfigureAwait(false);
                 snapshot = null;
             }
 

@@ -82,6 +82,59 @@ public sealed class RunTable
         return Append(null, endedUtc, Core.Results.Verdict.Pass, station, slot, lot, sequenceId, revision, null, null);
     }
 
+    /// <summary>
+    /// The table's number for <paramref name="text"/> (−1 for null), for <see cref="AddNumbered"/>: a source that holds
+    /// its texts numbered already asks once per distinct text instead of once per run.
+    /// </summary>
+    public int TextNumber(string? text) => _pool.Intern(text);
+
+    /// <summary>
+    /// Adds a run whose texts are given as this table's numbers (<see cref="TextNumber"/>; −1 for none) and whose
+    /// revision is <see cref="int.MinValue"/> for none; the same run as <see cref="Add"/> with those texts. Returns its index.
+    /// </summary>
+    public int AddNumbered(string serial, long endedTicks, Verdict verdict, int station, int slot, int lot, int sequence, int revision, int failure, int reason)
+    {
+        ArgumentException.ThrowIfNullOrWhiteSpace(serial);
+        if (!HasOutcomes)
+        {
+            throw new InvalidOperationException("This table holds runs without outcomes; a run with its outcome cannot join them.");
+        }
+
+        if (_pool.Text(station) is null)
+        {
+            throw new ArgumentOutOfRangeException(nameof(station), station, "A run needs a station.");
+        }
+
+        _serials.Add(serial);
+        _endedTicks.Add(endedTicks);
+        _verdicts.Add(verdict);
+        _slots.Add(slot);
+        _stations.Add(station);
+        _lots.Add(lot);
+        _sequences.Add(sequence);
+        _revisions.Add(revision);
+        _failures.Add(failure);
+        _reasons.Add(reason);
+        _operators.Add(-1);
+        return _serials.Count - 1;
+    }
+
+    /// <summary>Makes room for <paramref name="count"/> runs in all, so a source that knows how many is coming sizes the table once.</summary>
+    public void EnsureCapacity(int count)
+    {
+        _serials.EnsureCapacity(count);
+        _endedTicks.EnsureCapacity(count);
+        _verdicts.EnsureCapacity(count);
+        _slots.EnsureCapacity(count);
+        _stations.EnsureCapacity(count);
+        _lots.EnsureCapacity(count);
+        _sequences.EnsureCapacity(count);
+        _revisions.EnsureCapacity(count);
+        _failures.EnsureCapacity(count);
+        _reasons.EnsureCapacity(count);
+        _operators.EnsureCapacity(count);
+    }
+
     private int Append(
         string? serial,
         DateTimeOffset endedUtc,

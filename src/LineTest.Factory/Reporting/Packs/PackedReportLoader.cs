@@ -308,31 +308,42 @@ internal static class PackedReportLoader
             public void Place(MonthRuns month)
         {
             var runs = data.Runs;
-            // Per pack and sequence (a pack mostly holds one), the series of each shape once asked for.
+            runs.EnsureCapacity(runs.Count + month.Order.Length);
+
+            // Per pack: its texts as the table's numbers, which sequences' products are known, and per sequence (a pack
+            // mostly holds one) the series of each shape once asked for.
+            var numbers = month.Packs.Select(p => p.Texts.Select(runs.TextNumber).ToArray()).ToArray();
+            var productKnown = month.Packs.Select(p => new bool[p.Texts.Length]).ToArray();
             var series = month.Packs.Select(_ => new Dictionary<int, ReadingSeries?[]>()).ToArray();
             var wantsShape = month.Packs.Select(p => p.Shapes.Select(s => query.WantsReading(p.Texts[s.Name])).ToArray()).ToArray();
             foreach (var key in month.Order)
             {
                 var (p, r) = ((int)(key >> 32), (int)key);
                 var pack = month.Packs[p];
+                var number = numbers[p];
                 var sequence = pack.Texts[pack.Sequence[r]];
-                if (!data.Products.ContainsKey(sequence))
+                if (!productKnown[p][pack.Sequence[r]])
                 {
                     // The product of a sequence's first run, as the folder loader takes it.
-                    data.AddProduct(sequence, pack.Texts[pack.Product[r]]);
+                    if (!data.Products.ContainsKey(sequence))
+                    {
+                        data.AddProduct(sequence, pack.Texts[pack.Product[r]]);
+                    }
+
+                    productKnown[p][pack.Sequence[r]] = true;
                 }
 
-                var run = runs.Add(
+                var run = runs.AddNumbered(
                     pack.Serial[r],
-                    new DateTimeOffset(pack.EndedTicks[r], TimeSpan.Zero),
+                    pack.EndedTicks[r],
                     pack.Verdict[r],
-                    pack.Texts[pack.Station[r]],
+                    number[pack.Station[r]],
                     pack.Slot[r],
-                    pack.Text(pack.Lot[r]),
-                    sequence,
+                    pack.Lot[r] < 0 ? -1 : number[pack.Lot[r]],
+                    number[pack.Sequence[r]],
                     pack.Revision[r],
-                    pack.Text(pack.Failure[r]),
-                    pack.Text(pack.Reason[r]));
+                    pack.Failure[r] < 0 ? -1 : number[pack.Failure[r]],
+                    pack.Reason[r] < 0 ? -1 : number[pack.Reason[r]]);
                 if (_operators)
                 {
                     runs.SetOperator(run, pack.Text(pack.Operator[r]));
