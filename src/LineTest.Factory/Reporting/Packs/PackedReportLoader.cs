@@ -307,24 +307,29 @@ internal static class PackedReportLoader
 
             public void Place(MonthRuns month)
         {
+            // The runs go into the run table and the readings into their series at once: a reading's run is numbered
+            // by its place in the order (the runs before this month plus its position), which does not wait for the table.
+            var first = data.Runs.Count;
+            Parallel.Invoke(() => PlaceRuns(month), () => PlaceReadings(month, first));
+        }
+
+        private void PlaceRuns(MonthRuns month)
+        {
             var runs = data.Runs;
             runs.EnsureCapacity(runs.Count + month.Order.Length);
 
-            // Per pack: its texts as the table's numbers, which sequences' products are known, and per sequence (a pack
-            // mostly holds one) the series of each shape once asked for.
+            // Per pack: its texts as the table's numbers, and which sequences' products are known.
             var numbers = month.Packs.Select(p => p.Texts.Select(runs.TextNumber).ToArray()).ToArray();
             var productKnown = month.Packs.Select(p => new bool[p.Texts.Length]).ToArray();
-            var series = month.Packs.Select(_ => new Dictionary<int, ReadingSeries?[]>()).ToArray();
-            var wantsShape = month.Packs.Select(p => p.Shapes.Select(s => query.WantsReading(p.Texts[s.Name])).ToArray()).ToArray();
             foreach (var key in month.Order)
             {
                 var (p, r) = ((int)(key >> 32), (int)key);
                 var pack = month.Packs[p];
                 var number = numbers[p];
-                var sequence = pack.Texts[pack.Sequence[r]];
                 if (!productKnown[p][pack.Sequence[r]])
                 {
                     // The product of a sequence's first run, as the folder loader takes it.
+                    var sequence = pack.Texts[pack.Sequence[r]];
                     if (!data.Products.ContainsKey(sequence))
                     {
                         data.AddProduct(sequence, pack.Texts[pack.Product[r]]);
@@ -348,7 +353,20 @@ internal static class PackedReportLoader
                 {
                     runs.SetOperator(run, pack.Text(pack.Operator[r]));
                 }
+            }
+        }
 
+        private void PlaceReadings(MonthRuns month, int first)
+        {
+            // Per pack and sequence (a pack mostly holds one), the series of each shape once asked for.
+            var series = month.Packs.Select(_ => new Dictionary<int, ReadingSeries?[]>()).ToArray();
+            var wantsShape = month.Packs.Select(p => p.Shapes.Select(s => query.WantsReading(p.Texts[s.Name])).ToArray()).ToArray();
+            for (var position = 0; position < month.Order.Length; position++)
+            {
+                var key = month.Order[position];
+                var run = first + position;
+                var (p, r) = ((int)(key >> 32), (int)key);
+                var pack = month.Packs[p];
                 if (!series[p].TryGetValue(pack.Sequence[r], out var ofShape))
                 {
                     ofShape = new ReadingSeries?[pack.Shapes.Length];
@@ -364,7 +382,7 @@ internal static class PackedReportLoader
                     }
 
                     var shape = pack.Shapes[s];
-                    var into = ofShape[s] ??= data.Series(sequence, pack.Texts[shape.Name], pack.Texts[shape.Unit]);
+                    var into = ofShape[s] ??= data.Series(pack.Texts[pack.Sequence[r]], pack.Texts[shape.Name], pack.Texts[shape.Unit]);
                     var value = pack.ReadingValue[i];
                     into.Add(run, double.IsNaN(value) ? null : value, pack.Texts[shape.Unit], shape.Low, shape.High);
                 }
