@@ -25,17 +25,20 @@ public static class DoubleSort
             return;
         }
 
-        var keys = new ulong[n];
-        for (var i = 0; i < n; i++)
+        foreach (var value in values)
         {
-            var value = values[i];
             if (double.IsNaN(value))
             {
                 Array.Sort(values);
                 return;
             }
+        }
 
-            var bits = BitConverter.DoubleToUInt64Bits(value);
+        // The keys are written over the values themselves (the same 8 bytes each), so one buffer is all that is added.
+        var keys = System.Runtime.InteropServices.MemoryMarshal.Cast<double, ulong>(values.AsSpan());
+        for (var i = 0; i < n; i++)
+        {
+            var bits = keys[i];
             keys[i] = (bits & 0x8000_0000_0000_0000UL) != 0 ? ~bits : bits | 0x8000_0000_0000_0000UL;
         }
 
@@ -49,12 +52,14 @@ public static class DoubleSort
             }
         }
 
-        var from = keys;
-        var to = new ulong[n];
+        var buffer = new ulong[n];
+        var fromKeys = true;
         for (var p = 0; p < Passes; p++)
         {
             var offset = p * Buckets;
             var shift = p * Bits;
+            Span<ulong> from = fromKeys ? keys : buffer;
+            Span<ulong> to = fromKeys ? buffer : keys;
 
             // A pass whose digit is the same for every key moves nothing.
             if (counts[offset + (int)((from[0] >> shift) & (Buckets - 1))] == n)
@@ -75,14 +80,18 @@ public static class DoubleSort
                 to[counts[offset + (int)((key >> shift) & (Buckets - 1))]++] = key;
             }
 
-            (from, to) = (to, from);
+            fromKeys = !fromKeys;
+        }
+
+        if (!fromKeys)
+        {
+            buffer.AsSpan().CopyTo(keys);
         }
 
         for (var i = 0; i < n; i++)
         {
-            var key = from[i];
-            var bits = (key & 0x8000_0000_0000_0000UL) != 0 ? key & 0x7FFF_FFFF_FFFF_FFFFUL : ~key;
-            values[i] = BitConverter.UInt64BitsToDouble(bits);
+            var key = keys[i];
+            keys[i] = (key & 0x8000_0000_0000_0000UL) != 0 ? key & 0x7FFF_FFFF_FFFF_FFFFUL : ~key;
         }
     }
 }

@@ -21,6 +21,8 @@ public sealed class RunTable
     private readonly List<int> _reasons = [];
     private readonly List<int> _operators = [];
     private readonly StringPool _pool = new();
+    private readonly Dictionary<string, int> _unitIds = new(StringComparer.Ordinal);
+    private readonly List<int> _unitOfRun = [];
     private UnitNumbers? _units;
 
     /// <summary>Number of runs.</summary>
@@ -106,6 +108,7 @@ public sealed class RunTable
         }
 
         _serials.Add(serial);
+        NumberUnit(serial);
         _endedTicks.Add(endedTicks);
         _verdicts.Add(verdict);
         _slots.Add(slot);
@@ -117,6 +120,17 @@ public sealed class RunTable
         _reasons.Add(reason);
         _operators.Add(-1);
         return _serials.Count - 1;
+    }
+
+    private void NumberUnit(string serial)
+    {
+        if (!_unitIds.TryGetValue(serial, out var id))
+        {
+            id = _unitIds.Count;
+            _unitIds.Add(serial, id);
+        }
+
+        _unitOfRun.Add(id);
     }
 
     /// <summary>Makes room for <paramref name="count"/> runs in all, so a source that knows how many is coming sizes the table once.</summary>
@@ -133,6 +147,7 @@ public sealed class RunTable
         _failures.EnsureCapacity(count);
         _reasons.EnsureCapacity(count);
         _operators.EnsureCapacity(count);
+        _unitOfRun.EnsureCapacity(count);
     }
 
     private int Append(
@@ -149,6 +164,11 @@ public sealed class RunTable
     {
         ArgumentNullException.ThrowIfNull(station);
         _serials.Add(serial);
+        if (serial is not null)
+        {
+            NumberUnit(serial);
+        }
+
         _endedTicks.Add(endedUtc.UtcTicks);
         _verdicts.Add(verdict);
         _slots.Add(slot);
@@ -207,7 +227,8 @@ public sealed class RunTable
     /// <summary>
     /// Each run's unit as a number (0, 1, … in the order serials first appear) and the number of units: serials compared
     /// once, so yield over a million runs is counted with arrays instead of a dictionary of serials per count. Made on
-    /// first use after the last run was added; safe to ask from several threads once made.
+    /// first use after the last run was added (each run's unit is numbered as it is added, so a report does not wait for a
+    /// pass over a million serials); safe to ask from several threads once made.
     /// </summary>
     public (int[] UnitOf, int Units) Units()
     {
@@ -217,22 +238,9 @@ public sealed class RunTable
             return (made.UnitOf, made.Units);
         }
 
-        var ids = new Dictionary<string, int>(StringComparer.Ordinal);
-        var unitOf = new int[Count];
-        for (var r = 0; r < Count; r++)
-        {
-            var serial = _serials[r]!;
-            if (!ids.TryGetValue(serial, out var id))
-            {
-                id = ids.Count;
-                ids.Add(serial, id);
-            }
-
-            unitOf[r] = id;
-        }
-
-        _units = new UnitNumbers(unitOf, ids.Count);
-        return (unitOf, ids.Count);
+        var unitOf = _unitOfRun.ToArray();
+        _units = new UnitNumbers(unitOf, _unitIds.Count);
+        return (unitOf, _unitIds.Count);
     }
 
     /// <summary>
