@@ -88,7 +88,7 @@ public sealed class FactoryDatabaseSource : IResultsSource, IAsyncDisposable
         ArgumentNullException.ThrowIfNull(query);
         if (withReadings)
         {
-            return await Guard(() => FactoryReportLoader.LoadAsync(_dataSource, query, ct)).ConfigureAwait(false);
+            return await Guard(() => FactoryReportLoader.LoadPackedAsync(_dataSource, query, ct: ct)).ConfigureAwait(false);
         }
 
         // Yield needs the runs only: the report loader's run conditions in SQL, without the readings.

@@ -136,7 +136,13 @@ internal static class PackedReportLoader
             command.Parameters.AddWithValue("to", MonthOf(to.UtcTicks));
         }
 
-        command.CommandText = $"SELECT DISTINCT month FROM run_packs{(conditions.Count == 0 ? string.Empty : " WHERE " + string.Join(" AND ", conditions))} ORDER BY month;";
+        // Only months whose partition of runs is still attached: a month archived (detached, dropped) is no longer in a
+        // report from the rows, so its packs are left out too.
+        conditions.Add("""
+            EXISTS (SELECT 1 FROM pg_inherits i JOIN pg_class c ON c.oid = i.inhrelid
+                     WHERE i.inhparent = 'runs'::regclass AND c.relname = 'runs_' || to_char(month AT TIME ZONE 'UTC', 'YYYY"m"MM'))
+            """);
+        command.CommandText = $"SELECT DISTINCT month FROM run_packs WHERE {string.Join(" AND ", conditions)} ORDER BY month;";
         var months = new List<DateTime>();
         await using var reader = await command.ExecuteReaderAsync(ct).ConfigureAwait(false);
         while (await reader.ReadAsync(ct).ConfigureAwait(false))

@@ -107,6 +107,28 @@ public sealed class PackedReportLoaderTests
     }
 
     [PostgresFact]
+    public async Task LoadPackedAsync_AMonthArchived_ItsPacksLeftOutAsTheRowsLeaveItOut()
+    {
+        await using var database = await TestDatabase.CreateAsync();
+        await using var stations = await Stations.CreateAsync(2);
+        await stations.AddAndForwardAsync(Support.Factory.Forwarder(database), 25);
+        await FactoryReportLoader.BuildPacksAsync(database.DataSource);
+
+        // Retention as docs/factory.md describes it, without deleting the packs: April leaves as whole partitions.
+        await database.ExecuteAsync("""
+            ALTER TABLE runs DETACH PARTITION runs_2026m04; ALTER TABLE readings DETACH PARTITION readings_2026m04;
+            DROP TABLE runs_2026m04; DROP TABLE readings_2026m04;
+            """);
+        var times = new FactoryLoadTimes();
+        var packed = await FactoryReportLoader.LoadPackedAsync(database.DataSource, ReportQuery.All, times);
+        var rows = await FactoryReportLoader.LoadAsync(database.DataSource, ReportQuery.All);
+
+        Assert.True(times.FromPacks);
+        Assert.True(rows.Runs.Count is > 0 and < 50);
+        Assert.Equal(Json(rows, ReportQuery.All), Json(packed, ReportQuery.All));
+    }
+
+    [PostgresFact]
     public async Task LoadPackedAsync_PacksOfAnotherFormat_BuiltAgainNotMisread()
     {
         await using var database = await TestDatabase.CreateAsync();
