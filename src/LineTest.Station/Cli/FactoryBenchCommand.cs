@@ -78,6 +78,8 @@ public static class FactoryBenchCommand
 
                 var floor = floors.Order().ElementAt(1);
                 context.Output.WriteLine(string.Create(inv, $"floor (plain SQL aggregate: yield counts, per-reading count/mean/sd/min/max): {floor:F2} s, the median of {string.Join(" / ", floors.Select(f => f.ToString("F2", inv)))} s"));
+                var jitBefore = System.Runtime.JitInfo.GetCompilationTime();
+                var jitMethodsBefore = System.Runtime.JitInfo.GetCompiledMethodCount();
                 var watch = Stopwatch.StartNew();
                 var times = new FactoryLoadTimes();
                 var data = await FactoryReportLoader.LoadPackedAsync(dataSource, ReportQuery.All, times, ct).ConfigureAwait(false);
@@ -92,7 +94,7 @@ public static class FactoryBenchCommand
                     $"report --factory --json over {data.Runs.Count} runs: {watch.Elapsed.TotalSeconds:F2} s (load {loaded:F2} s, statistics {built - loaded:F2} s, JSON {watch.Elapsed.TotalSeconds - built:F2} s), {json.Length / 1024} KiB of JSON, peak working set {process.PeakWorkingSet64 / (1024 * 1024)} MB; {watch.Elapsed.TotalSeconds / floor:F1} x the floor"));
                 context.Output.WriteLine(string.Create(
                     inv,
-                    $"  garbage collections {GC.CollectionCount(0)}/{GC.CollectionCount(1)}/{GC.CollectionCount(2)} (gen 0/1/2), paused {GC.GetTotalPauseDuration().TotalSeconds:F2} s; processor time of this process {process.TotalProcessorTime.TotalSeconds:F2} s"));
+                    $"  garbage collections {GC.CollectionCount(0)}/{GC.CollectionCount(1)}/{GC.CollectionCount(2)} (gen 0/1/2), paused {GC.GetTotalPauseDuration().TotalSeconds:F2} s; processor time of this process {process.TotalProcessorTime.TotalSeconds:F2} s; while reporting, {System.Runtime.JitInfo.GetCompiledMethodCount() - jitMethodsBefore} methods compiled in {(System.Runtime.JitInfo.GetCompilationTime() - jitBefore).TotalSeconds:F2} s"));
                 context.Output.WriteLine(string.Create(
                     inv,
                     $"  load, from its start: packs of runs current {times.PacksBuilt.TotalSeconds:F2} s ({times.PacksWritten} written), read from {(times.FromPacks ? "the packs" : "the rows")}; {(times.FromPacks ? "packs read" : "runs read")} {times.RunsRead.TotalSeconds:F2} s, {(times.FromPacks ? "runs ordered" : "readings read")} {times.ReadingsRead.TotalSeconds:F2} s, placed in run order {times.ReadingsPlaced.TotalSeconds:F2} s, yield count received {times.YieldCounted.TotalSeconds:F2} s"));
