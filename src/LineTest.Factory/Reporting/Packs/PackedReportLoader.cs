@@ -1,3 +1,4 @@
+using System.Buffers;
 using System.Diagnostics;
 using System.Text;
 using LineTest.Reports.Loading;
@@ -168,15 +169,28 @@ internal static class PackedReportLoader
         while (await reader.ReadAsync(ct).ConfigureAwait(false))
         {
             var chain = reader.GetGuid(0);
-            var body = await reader.GetFieldValueAsync<byte[]>(1, ct).ConfigureAwait(false);
+
+            // Read into a pooled buffer: a hundred packs of a few megabytes each would otherwise be as many large arrays
+            // for the garbage collector, soon after being decoded.
+            var length = checked((int)reader.GetBytes(1, 0, null, 0, 0));
+            var body = ArrayPool<byte>.Shared.Rent(length);
             RunPack pack;
             try
             {
-                pack = RunPack.FromBytes(body);
+                await using (var stream = await reader.GetStreamAsync(1, ct).ConfigureAwait(false))
+                {
+                    await stream.ReadExactlyAsync(body.AsMemory(0, length), ct).ConfigureAwait(false);
+                }
+
+                pack = RunPack.FromBytes(body.AsSpan(0, length));
             }
             catch (InvalidDataException ex)
             {
                 throw new InvalidDataException($"The run pack of station database {chain:D} for {month:yyyy-MM} cannot be read: {ex.Message} Delete it (DELETE FROM run_packs WHERE chain_id = '{chain:D}'; DELETE FROM run_pack_marks WHERE chain_id = '{chain:D}';) and it is built again from the runs.", ex);
+            }
+            finally
+            {
+                ArrayPool<byte>.Shared.Return(body);
             }
 
             if (pack.Chain != chain)
