@@ -61,6 +61,7 @@ public static class ReportJsonWriter
         foreach (var reading in report.Readings)
         {
             WriteReading(json, reading);
+            Spill(json);
         }
 
         json.WriteEndArray();
@@ -103,11 +104,31 @@ public static class ReportJsonWriter
     }
 
     /// <summary>The report as a JSON string.</summary>
+    /// <summary>
+    /// Writes the report to <paramref name="writer"/> as it is produced, the same text as <see cref="ToJson"/>: a report
+    /// of millions of values is never held whole as bytes and again as a string.
+    /// </summary>
+    public static void Write(QualityReport report, TextWriter writer)
+    {
+        ArgumentNullException.ThrowIfNull(writer);
+        using var stream = new TextWriterStream(writer);
+        Write(report, stream);
+    }
+
     public static string ToJson(QualityReport report)
     {
         using var stream = new MemoryStream();
         Write(report, stream);
         return System.Text.Encoding.UTF8.GetString(stream.ToArray());
+    }
+
+    /// <summary>Passes what is written on to the stream every 64 KiB, so a large report is never buffered whole.</summary>
+    private static void Spill(Utf8JsonWriter json)
+    {
+        if (json.BytesPending >= 1 << 16)
+        {
+            json.Flush();
+        }
     }
 
     private static void WriteFilters(Utf8JsonWriter json, ReportQuery q)
@@ -217,6 +238,7 @@ public static class ReportJsonWriter
             json.WriteNumber("points", s.Points.Count);
             json.WriteString("description", s.Description);
             json.WriteEndObject();
+            Spill(json);
         }
 
         json.WriteEndArray();
@@ -371,5 +393,44 @@ public static class ReportJsonWriter
         {
             json.WriteString(name, value);
         }
+    }
+
+    /// <summary>A write-only stream that decodes the UTF-8 written to it into a text writer (a sequence split between two writes included).</summary>
+    private sealed class TextWriterStream(TextWriter writer) : Stream
+    {
+        private readonly System.Text.Decoder _decoder = new System.Text.UTF8Encoding(false, throwOnInvalidBytes: true).GetDecoder();
+        private char[] _chars = new char[4096];
+
+        public override bool CanRead => false;
+
+        public override bool CanSeek => false;
+
+        public override bool CanWrite => true;
+
+        public override long Length => throw new NotSupportedException();
+
+        public override long Position { get => throw new NotSupportedException(); set => throw new NotSupportedException(); }
+
+        public override void Write(byte[] buffer, int offset, int count) => Write(buffer.AsSpan(offset, count));
+
+        public override void Write(ReadOnlySpan<byte> buffer)
+        {
+            var needed = _decoder.GetCharCount(buffer, flush: false);
+            if (needed > _chars.Length)
+            {
+                _chars = new char[Math.Max(needed, _chars.Length * 2)];
+            }
+
+            var written = _decoder.GetChars(buffer, _chars, flush: false);
+            writer.Write(_chars, 0, written);
+        }
+
+        public override void Flush() => writer.Flush();
+
+        public override int Read(byte[] buffer, int offset, int count) => throw new NotSupportedException();
+
+        public override long Seek(long offset, SeekOrigin origin) => throw new NotSupportedException();
+
+        public override void SetLength(long value) => throw new NotSupportedException();
     }
 }

@@ -86,12 +86,14 @@ public static class FactoryBenchCommand
                 var loaded = watch.Elapsed.TotalSeconds;
                 var report = ReportBuilder.Build(data, ReportQuery.All, context.Clock);
                 var built = watch.Elapsed.TotalSeconds;
-                var json = ReportJsonWriter.ToJson(report);
+                // Written as report --json writes it: as it is produced, into a text writer (here one that counts).
+                var json = new CountingWriter();
+                ReportJsonWriter.Write(report, json);
                 watch.Stop();
                 using var process = Process.GetCurrentProcess();
                 context.Output.WriteLine(string.Create(
                     inv,
-                    $"report --factory --json over {data.Runs.Count} runs: {watch.Elapsed.TotalSeconds:F2} s (load {loaded:F2} s, statistics {built - loaded:F2} s, JSON {watch.Elapsed.TotalSeconds - built:F2} s), {json.Length / 1024} KiB of JSON, peak working set {process.PeakWorkingSet64 / (1024 * 1024)} MB; {watch.Elapsed.TotalSeconds / floor:F1} x the floor"));
+                    $"report --factory --json over {data.Runs.Count} runs: {watch.Elapsed.TotalSeconds:F2} s (load {loaded:F2} s, statistics {built - loaded:F2} s, JSON {watch.Elapsed.TotalSeconds - built:F2} s), {json.Count / 1024} KiB of JSON, peak working set {process.PeakWorkingSet64 / (1024 * 1024)} MB; {watch.Elapsed.TotalSeconds / floor:F1} x the floor"));
                 context.Output.WriteLine(string.Create(
                     inv,
                     $"  garbage collections {GC.CollectionCount(0)}/{GC.CollectionCount(1)}/{GC.CollectionCount(2)} (gen 0/1/2), paused {GC.GetTotalPauseDuration().TotalSeconds:F2} s; processor time of this process {process.TotalProcessorTime.TotalSeconds:F2} s; while reporting, {System.Runtime.JitInfo.GetCompiledMethodCount() - jitMethodsBefore} methods compiled in {(System.Runtime.JitInfo.GetCompilationTime() - jitBefore).TotalSeconds:F2} s"));
@@ -107,5 +109,20 @@ public static class FactoryBenchCommand
             }
         });
         return command;
+    }
+
+    /// <summary>A text writer that keeps nothing and counts the UTF-8 bytes of what is written.</summary>
+    private sealed class CountingWriter : TextWriter
+    {
+        public long Count { get; private set; }
+
+        public override System.Text.Encoding Encoding => System.Text.Encoding.UTF8;
+
+        public override void Write(char value) => Count++;
+
+        public override void Write(char[] buffer, int index, int count) => Write(buffer.AsSpan(index, count));
+
+        // Counted as the bytes standard output would encode, which costs what the encoding costs.
+        public override void Write(ReadOnlySpan<char> buffer) => Count += Encoding.GetByteCount(buffer);
     }
 }

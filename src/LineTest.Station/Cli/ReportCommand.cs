@@ -190,7 +190,8 @@ public static class ReportCommand
 
             if (parse.GetValue(json))
             {
-                context.Output.WriteLine(ReportJsonWriter.ToJson(report));
+                ReportJsonWriter.Write(report, context.Output);
+                context.Output.WriteLine();
             }
             else
             {

@@ -17,6 +17,32 @@ public sealed class ReportJsonWriterTests
         return JsonDocument.Parse(ReportJsonWriter.ToJson(report));
     }
 
+    [Fact]
+    public void Write_ToATextWriter_SameTextAsToJsonForAReportWrittenInManyPieces()
+    {
+        // 100,000 runs of a noisy reading (hundreds of run-rule signals) and texts of several bytes per character:
+        // the writer passes the JSON on in 64 KiB pieces, and the text writer must get exactly ToJson's text.
+        var data = new ReportData();
+        data.AddSource("Prüfstand Ω-7, Linie 3");
+        var series = data.Series("ctp40a-dac", "verify.Δ", "°C");
+        var start = new DateTimeOffset(2026, 3, 2, 6, 0, 0, TimeSpan.Zero);
+        var random = new Random(40);
+        for (var i = 0; i < 100_000; i++)
+        {
+            var run = data.Runs.Add($"CTP40-Ä{i:D5}", start.AddMinutes(i), Core.Results.Verdict.Pass, "ST-Ü1", 1 + (i % 4), "LOT-ß", "ctp40a-dac", 3, null, null);
+            series.Add(run, random.NextDouble() + random.NextDouble() + random.NextDouble() - 1.5, "°C", -2.5, 2.5);
+        }
+
+        var report = ReportBuilder.Build(data, ReportQuery.All, new FakeTimeProvider());
+        var expected = ReportJsonWriter.ToJson(report);
+        using var text = new StringWriter();
+
+        ReportJsonWriter.Write(report, text);
+
+        Assert.True(expected.Length > 2 << 16, $"{expected.Length} characters: not enough to be written in several pieces");
+        Assert.Equal(expected, text.ToString());
+    }
+
     private static string[] Keys(JsonElement element) => [.. element.EnumerateObject().Select(p => p.Name)];
 
     [Fact]
