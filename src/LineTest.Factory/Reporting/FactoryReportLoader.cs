@@ -59,33 +59,23 @@ public static class FactoryReportLoader
         ArgumentNullException.ThrowIfNull(dataSource);
         ArgumentNullException.ThrowIfNull(query);
         var started = Stopwatch.GetTimestamp();
+        // Read the packs if they are current; otherwise build what is missing and try again (stations may keep
+        // forwarding meanwhile), and after three tries, or where packs cannot be built, read the rows.
+        var canBuild = true;
         for (var attempt = 0; attempt < 3; attempt++)
         {
-            PackRefresh refresh;
+            ReportData? data;
             try
             {
-                refresh = await RunPackBuilder.RefreshAsync(dataSource, ct).ConfigureAwait(false);
+                data = await PackedReportLoader.TryLoadAsync(dataSource, query, times, started, ct).ConfigureAwait(false);
             }
-            catch (PostgresException ex) when (CannotBuildPacks(ex))
+            catch (PostgresException ex) when (ex.SqlState == PostgresErrorCodes.UndefinedTable)
             {
-                if (attempt == 0 && ex.SqlState == PostgresErrorCodes.UndefinedTable)
-                {
-                    // No run_packs (schema version 1) or no factory database at all: the rows say which.
-                    break;
-                }
-
-                // A read-only server: packs built elsewhere are used if they are current.
-                refresh = default;
-                attempt = 2;
+                // No run_packs (schema version 1) or no factory database at all: the rows say which.
+                break;
             }
 
-            if (times is not null)
-            {
-                times.PacksBuilt = Stopwatch.GetElapsedTime(started);
-                times.PacksWritten += refresh.Packs;
-            }
-
-            if (await PackedReportLoader.TryLoadAsync(dataSource, query, times, started, ct).ConfigureAwait(false) is { } data)
+            if (data is not null)
             {
                 if (times is not null)
                 {
@@ -93,6 +83,26 @@ public static class FactoryReportLoader
                 }
 
                 return data;
+            }
+
+            if (!canBuild)
+            {
+                break;
+            }
+
+            try
+            {
+                var refresh = await RunPackBuilder.RefreshAsync(dataSource, ct).ConfigureAwait(false);
+                if (times is not null)
+                {
+                    times.PacksBuilt = Stopwatch.GetElapsedTime(started);
+                    times.PacksWritten += refresh.Packs;
+                }
+            }
+            catch (PostgresException ex) when (CannotBuildPacks(ex))
+            {
+                // A read-only server: the packs built elsewhere are not current, so the rows are read.
+                canBuild = false;
             }
         }
 

@@ -23,9 +23,44 @@ internal static class PackedReportLoader
     public static async Task<ReportData?> TryLoadAsync(NpgsqlDataSource dataSource, ReportQuery query, FactoryLoadTimes? times, long started, CancellationToken ct)
     {
         await using var session = await SharedSnapshot.OpenAsync(dataSource, ct).ConfigureAwait(false);
+
+        // The other connections join the snapshot while this one asks what to read.
+        var joining = session.Shared
+            ? Enumerable.Range(1, Math.Max(2, Environment.ProcessorCount) - 1).Select(_ => session.JoinAsync(ct)).ToArray()
+            : [];
+        try
+        {
+            return await LoadAsync(session, joining, dataSource, query, times, started, ct).ConfigureAwait(false);
+        }
+        finally
+        {
+            // Every join is over before the session closes its connections.
+            await Task.WhenAll(joining.Select(j => j.ContinueWith(_ => { }, CancellationToken.None, TaskContinuationOptions.None, TaskScheduler.Default))).ConfigureAwait(false);
+        }
+    }
+
+    private static async Task<ReportData?> LoadAsync(
+        SharedSnapshot session,
+        Task<(NpgsqlConnection Connection, NpgsqlTransaction Transaction)>[] joining,
+        NpgsqlDataSource dataSource,
+        ReportQuery query,
+        FactoryLoadTimes? times,
+        long started,
+        CancellationToken ct)
+    {
         if ((await RunPackBuilder.StaleChainsAsync(session.Connection, session.Transaction, ct).ConfigureAwait(false)).Count > 0)
         {
             return null;
+        }
+
+        // Packs written by another version of LineTest (another format) are built again, never misread.
+        await using (var other = new NpgsqlCommand("SELECT EXISTS (SELECT 1 FROM run_packs WHERE format <> @f);", session.Connection, session.Transaction))
+        {
+            other.Parameters.AddWithValue("f", RunPack.Format);
+            if (await other.ExecuteScalarAsync(ct).ConfigureAwait(false) is true)
+            {
+                return null;
+            }
         }
 
         var marks = await MarksAsync(session, ct).ConfigureAwait(false);
@@ -38,11 +73,7 @@ internal static class PackedReportLoader
         }
 
         var connections = new List<(NpgsqlConnection Connection, NpgsqlTransaction Transaction)> { (session.Connection, session.Transaction) };
-        if (session.Shared)
-        {
-            connections.AddRange(await Task.WhenAll(Enumerable.Range(1, Math.Min(months.Count, Math.Max(2, Environment.ProcessorCount)) - 1)
-                .Select(_ => session.JoinAsync(ct))).ConfigureAwait(false));
-        }
+        connections.AddRange(await Task.WhenAll(joining).ConfigureAwait(false));
 
         // Each connection reads and orders its months in turn; the months are placed here in order as each is ready,
         // and let go once placed.
