@@ -34,7 +34,17 @@ public static class FactoryBenchCommand
         var command = new Command("bench-factory", "Factory database benchmarks: forwarding throughput, report against the SQL floor") { factory, mode, stations, runs, readings, existing };
         command.SetAction(async (parse, ct) =>
         {
-            await using var dataSource = FactoryConnection.Create(parse.GetValue(factory)!);
+            NpgsqlDataSource dataSource;
+            try
+            {
+                dataSource = FactoryConnection.Create(parse.GetValue(factory)!);
+            }
+            catch (ArgumentException ex)
+            {
+                return context.BadInput($"--factory is not a usable connection string: {ex.Message}");
+            }
+
+            await using var owned = dataSource;
             var inv = CultureInfo.InvariantCulture;
             try
             {
@@ -66,7 +76,6 @@ public static class FactoryBenchCommand
                     context.Output.WriteLine(string.Create(inv, $"filled {total} runs x 5 readings in {fill:F1} s"));
                 }
 
-                await FactoryMigrations.ApplyAsync(dataSource, ct).ConfigureAwait(false);
                 var (packs, packedRuns, packTime) = await FactoryReportLoader.BuildPacksAsync(dataSource, ct).ConfigureAwait(false);
                 context.Output.WriteLine(string.Create(inv, $"packs of runs built: {packs} packs ({packedRuns} runs) in {packTime.TotalSeconds:F1} s{(packs == 0 ? " (already current)" : string.Empty)}"));
                 // The floor is run three times and its median taken: its parallel workers make one run vary by a third.
@@ -102,10 +111,14 @@ public static class FactoryBenchCommand
                     $"  load, from its start: packs of runs current {times.PacksBuilt.TotalSeconds:F2} s ({times.PacksWritten} written), read from {(times.FromPacks ? "the packs" : "the rows")}; {(times.FromPacks ? "packs read" : "runs read")} {times.RunsRead.TotalSeconds:F2} s, {(times.FromPacks ? "runs ordered" : "readings read")} {times.ReadingsRead.TotalSeconds:F2} s, placed in run order {times.ReadingsPlaced.TotalSeconds:F2} s, yield count received {times.YieldCounted.TotalSeconds:F2} s"));
                 return ExitCodes.Done;
             }
-            catch (NpgsqlException ex)
+            catch (Exception ex) when (ex is NpgsqlException or FactorySchemaException)
             {
                 context.Error.WriteLine($"linetest: {FactoryConnection.Describe(dataSource)}: {ex.Message}");
                 return ExitCodes.RuntimeFailure;
+            }
+            catch (InvalidDataException ex)
+            {
+                return context.BadInput($"{FactoryConnection.Describe(dataSource)}: {ex.Message}");
             }
         });
         return command;
