@@ -221,45 +221,12 @@ public static class FactoryReportLoader
             : [.. months.Select(m => ((DateTime, DateTime)?)m)];
         // Each connection reads its months in turn; the months are appended here in order as soon as each is read, so
         // only the months in flight are held, not all the runs twice.
-        var ready = runMonths.Select(_ => new TaskCompletionSource<List<RunRow>>(TaskCreationOptions.RunContinuationsAsynchronously)).ToArray();
-        using var stop = CancellationTokenSource.CreateLinkedTokenSource(ct);
-        var readers = connections.Select((c, k) => Task.Run(async () =>
-        {
-            for (var m = k; m < runMonths.Count; m += connections.Count)
-            {
-                try
-                {
-                    ready[m].SetResult(await ReadRunsAsync(c.Connection, query, countYield, runMonths[m], stop.Token).ConfigureAwait(false));
-                }
-                catch (Exception ex)
-                {
-                    ready[m].SetException(ex);
-                    for (var later = m + connections.Count; later < runMonths.Count; later += connections.Count)
-                    {
-                        ready[later].SetCanceled(stop.Token);
-                    }
-
-                    return;
-                }
-            }
-        })).ToList();
-
-        try
-        {
-            for (var m = 0; m < ready.Length; m++)
-            {
-                Append(await ready[m].Task.ConfigureAwait(false), data, index, query, countYield);
-            }
-        }
-        catch
-        {
-            // The other readers stop before their connections are closed with the session.
-            await stop.CancelAsync().ConfigureAwait(false);
-            await Task.WhenAll(readers.Select(r => r.ContinueWith(_ => { }, CancellationToken.None, TaskContinuationOptions.None, TaskScheduler.Default))).ConfigureAwait(false);
-            throw;
-        }
-
-        await Task.WhenAll(readers).ConfigureAwait(false);
+        await InOrderReads.RunAsync(
+            connections,
+            runMonths.Count,
+            (c, m, token) => ReadRunsAsync(c.Connection, query, countYield, runMonths[m], token),
+            rows => Append(rows, data, index, query, countYield),
+            ct).ConfigureAwait(false);
         return (index, months);
     }
 

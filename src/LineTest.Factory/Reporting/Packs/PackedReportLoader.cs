@@ -78,63 +78,32 @@ internal static class PackedReportLoader
         // Each connection reads and orders its months in turn; the months are placed here in order as each is ready,
         // and let go once placed.
         var readTimes = new ReadTimes();
-        var ready = months.Select(_ => new TaskCompletionSource<MonthRuns>(TaskCreationOptions.RunContinuationsAsynchronously)).ToArray();
-        using var stop = CancellationTokenSource.CreateLinkedTokenSource(ct);
-        var readers = connections.Select((c, k) => Task.Run(async () =>
-        {
-            for (var m = k; m < months.Count; m += connections.Count)
+        var placer = new Placer(data, query);
+        await InOrderReads.RunAsync(
+            connections,
+            months.Count,
+            async (c, m, token) =>
             {
-                try
+                var packs = await ReadMonthAsync(c.Connection, c.Transaction, months[m], token).ConfigureAwait(false);
+                var read = Stopwatch.GetElapsedTime(started);
+                var selected = MonthRuns.Select(packs, query, marks);
+                lock (readTimes)
                 {
-                    var packs = await ReadMonthAsync(c.Connection, c.Transaction, months[m], stop.Token).ConfigureAwait(false);
-                    var read = Stopwatch.GetElapsedTime(started);
-                    var selected = MonthRuns.Select(packs, query, marks);
-                    lock (readTimes)
-                    {
-                        readTimes.Read = read > readTimes.Read ? read : readTimes.Read;
-                        readTimes.Ordered = Stopwatch.GetElapsedTime(started);
-                    }
-
-                    ready[m].SetResult(selected);
+                    readTimes.Read = read > readTimes.Read ? read : readTimes.Read;
+                    readTimes.Ordered = Stopwatch.GetElapsedTime(started);
                 }
-                catch (Exception ex)
-                {
-                    ready[m].SetException(ex);
-                    for (var later = m + connections.Count; later < months.Count; later += connections.Count)
-                    {
-                        ready[later].SetCanceled(stop.Token);
-                    }
 
-                    return;
-                }
-            }
-        })).ToList();
-
-        try
+                return selected;
+            },
+            placer.Place,
+            ct).ConfigureAwait(false);
+        if (times is not null)
         {
-            var placer = new Placer(data, query);
-            for (var m = 0; m < ready.Length; m++)
-            {
-                var month = await ready[m].Task.ConfigureAwait(false);
-                placer.Place(month);
-                ready[m] = null!;
-            }
-
-            if (times is not null)
-            {
-                times.RunsRead = readTimes.Read;
-                times.ReadingsRead = readTimes.Ordered;
-                times.ReadingsPlaced = Stopwatch.GetElapsedTime(started);
-            }
-        }
-        catch
-        {
-            await stop.CancelAsync().ConfigureAwait(false);
-            await Task.WhenAll(readers.Select(r => r.ContinueWith(_ => { }, CancellationToken.None, TaskContinuationOptions.None, TaskScheduler.Default))).ConfigureAwait(false);
-            throw;
+            times.RunsRead = readTimes.Read;
+            times.ReadingsRead = readTimes.Ordered;
+            times.ReadingsPlaced = Stopwatch.GetElapsedTime(started);
         }
 
-        await Task.WhenAll(readers).ConfigureAwait(false);
         return data;
     }
 
