@@ -88,7 +88,9 @@ public sealed class FactoryDatabaseSource : IResultsSource, IAsyncDisposable
         ArgumentNullException.ThrowIfNull(query);
         if (withReadings)
         {
-            return await Guard(() => FactoryReportLoader.LoadPackedAsync(_dataSource, query, ct: ct)).ConfigureAwait(false);
+            // The rows, not the packs of runs: the page asks again every few seconds for a shift or a day while stations
+            // forward, and each time the packs would first be built again for the current month.
+            return await Guard(() => FactoryReportLoader.LoadAsync(_dataSource, query, ct)).ConfigureAwait(false);
         }
 
         // Yield needs the runs only: the report loader's run conditions in SQL, without the readings.
