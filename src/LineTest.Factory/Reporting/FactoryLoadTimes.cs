@@ -1,7 +1,8 @@
 namespace LineTest.Factory.Reporting;
 
 /// <summary>
-/// Where a factory report's load spent its time (wall time, each from the start of the load), for the benchmark: runs
+/// Where a factory report's load spent its time (wall time, each from the start of the load), for the benchmark. From
+/// the packs: packs built, the last month's packs read and its runs ordered, everything placed. From the rows: runs
 /// streamed, readings streamed and placed, and the yield count (which runs on its own connection meanwhile) received.
 /// </summary>
 public sealed class FactoryLoadTimes

@@ -8,8 +8,8 @@ namespace LineTest.Factory.Reporting.Packs;
 /// The runs of one station database (chain) that ended in one UTC month, with their readings, in the compact form a
 /// report reads (<c>run_packs.body</c>): one column per run field (texts as numbers into one list of distinct texts),
 /// and per reading only its value and the number of its shape (name, unit, limits), readings grouped by run in
-/// ordinal order. A million runs of five readings are about 130 MB, read in a few hundred milliseconds, against
-/// five million rows on the wire.
+/// ordinal order. A million runs of five readings are about 140 MB, which the server sends in a quarter of a second,
+/// against six million rows on the wire.
 /// </summary>
 /// <remarks>
 /// The byte layout (little-endian, version <see cref="Format"/>): "LTPK", int32 format, 16 bytes chain id, int32
