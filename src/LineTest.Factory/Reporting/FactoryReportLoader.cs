@@ -54,7 +54,14 @@ public static class FactoryReportLoader
     /// </summary>
     /// <exception cref="NpgsqlException">The database cannot be reached or read.</exception>
     /// <exception cref="InvalidDataException">A stored pack is damaged (the message says how to have it built again).</exception>
-    public static async Task<ReportData> LoadPackedAsync(NpgsqlDataSource dataSource, ReportQuery query, FactoryLoadTimes? times = null, CancellationToken ct = default)
+    /// <param name="dataSource">The factory database.</param>
+    /// <param name="query">The report's conditions.</param>
+    /// <param name="times">Where the load spent its time (for the benchmark), or null.</param>
+    /// <param name="building">Told, before packs are built, about how many runs were forwarded since the last build (so
+    /// a command can say why the first report after many runs takes longer), or null.</param>
+    /// <param name="ct">Cancels the load.</param>
+    public static async Task<ReportData> LoadPackedAsync(
+        NpgsqlDataSource dataSource, ReportQuery query, FactoryLoadTimes? times = null, Action<long>? building = null, CancellationToken ct = default)
     {
         ArgumentNullException.ThrowIfNull(dataSource);
         ArgumentNullException.ThrowIfNull(query);
@@ -92,7 +99,7 @@ public static class FactoryReportLoader
 
             try
             {
-                var refresh = await RunPackBuilder.RefreshAsync(dataSource, ct).ConfigureAwait(false);
+                var refresh = await RunPackBuilder.RefreshAsync(dataSource, ct, building).ConfigureAwait(false);
                 if (times is not null)
                 {
                     times.PacksBuilt = Stopwatch.GetElapsedTime(started);

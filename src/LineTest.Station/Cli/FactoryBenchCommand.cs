@@ -91,7 +91,7 @@ public static class FactoryBenchCommand
                 var jitMethodsBefore = System.Runtime.JitInfo.GetCompiledMethodCount();
                 var watch = Stopwatch.StartNew();
                 var times = new FactoryLoadTimes();
-                var data = await FactoryReportLoader.LoadPackedAsync(dataSource, ReportQuery.All, times, ct).ConfigureAwait(false);
+                var data = await FactoryReportLoader.LoadPackedAsync(dataSource, ReportQuery.All, times, ct: ct).ConfigureAwait(false);
                 var loaded = watch.Elapsed.TotalSeconds;
                 var report = ReportBuilder.Build(data, ReportQuery.All, context.Clock);
                 var built = watch.Elapsed.TotalSeconds;

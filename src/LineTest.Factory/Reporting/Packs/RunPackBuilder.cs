@@ -19,7 +19,10 @@ internal static class RunPackBuilder
 
     /// <summary>Builds what is missing; returns how many packs were written and how many runs they hold.</summary>
     /// <exception cref="PostgresException">The server refused (e.g. a read-only replica, or no <c>run_packs</c> table).</exception>
-    public static async Task<PackRefresh> RefreshAsync(NpgsqlDataSource dataSource, CancellationToken ct)
+    /// <param name="dataSource">The factory database.</param>
+    /// <param name="ct">Cancels the build (nothing is written then).</param>
+    /// <param name="building">Told, before a build starts, about how many runs were forwarded since the last one.</param>
+    public static async Task<PackRefresh> RefreshAsync(NpgsqlDataSource dataSource, CancellationToken ct, Action<long>? building = null)
     {
         ArgumentNullException.ThrowIfNull(dataSource);
         var started = Stopwatch.GetTimestamp();
@@ -39,6 +42,9 @@ internal static class RunPackBuilder
             await transaction.CommitAsync(ct).ConfigureAwait(false);
             return new PackRefresh(0, 0, Stopwatch.GetElapsedTime(started));
         }
+
+        // Seqs number a station's runs, so the distance from the mark is about the runs to add.
+        building?.Invoke(stale.Sum(c => c.Last - Math.Max(0, c.Packed ?? 0)));
 
         // Each stale chain's mark is its last run now; runs above it may arrive meanwhile and wait for the next build.
         var marks = new Dictionary<Guid, long>();

@@ -26,13 +26,17 @@ public sealed class PackedReportLoaderTests
         var forwarder = Support.Factory.Forwarder(database);
         await stations.AddAndForwardAsync(forwarder, 40);
         var first = new FactoryLoadTimes();
-        await FactoryReportLoader.LoadPackedAsync(database.DataSource, ReportQuery.All, first);
+        var told = new List<long>();
+        await FactoryReportLoader.LoadPackedAsync(database.DataSource, ReportQuery.All, first, told.Add);
 
         // 5 more runs per station, all in May: only May's pack of each station is written again.
         await stations.AddAndForwardAsync(forwarder, 5);
         var second = new FactoryLoadTimes();
-        var packed = await FactoryReportLoader.LoadPackedAsync(database.DataSource, ReportQuery.All, second);
+        var packed = await FactoryReportLoader.LoadPackedAsync(database.DataSource, ReportQuery.All, second, told.Add);
+        await FactoryReportLoader.LoadPackedAsync(database.DataSource, ReportQuery.All, building: told.Add);
 
+        // Told before each build how many runs came since (3 stations × 40, then 3 × 5), and not when nothing came.
+        Assert.Equal([120L, 15L], told);
         Assert.True(first.FromPacks);
         Assert.Equal(6, first.PacksWritten);
         Assert.True(second.FromPacks);
