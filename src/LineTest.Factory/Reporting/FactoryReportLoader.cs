@@ -34,17 +34,6 @@ public static class FactoryReportLoader
         LoadAsync(dataSource, query, countYield: true, times: null, ct);
 
     /// <summary>
-    /// As <see cref="LoadCountedAsync(NpgsqlDataSource, ReportQuery, CancellationToken)"/>, noting in
-    /// <paramref name="times"/> when each part of the load was done (for the benchmark).
-    /// </summary>
-    /// <exception cref="NpgsqlException">The database cannot be reached or read.</exception>
-    public static Task<ReportData> LoadCountedAsync(NpgsqlDataSource dataSource, ReportQuery query, FactoryLoadTimes times, CancellationToken ct = default)
-    {
-        ArgumentNullException.ThrowIfNull(times);
-        return LoadAsync(dataSource, query, countYield: true, times, ct);
-    }
-
-    /// <summary>
     /// Loads the data for a report from the packs of runs (<c>run_packs</c>), first building the packs of runs forwarded
     /// since they were last built: a report over a million runs reads about a hundred packs instead of six million rows.
     /// The runs come with their outcomes and the yield is counted from them, as for station folders, so the report is the
@@ -99,7 +88,7 @@ public static class FactoryReportLoader
 
             try
             {
-                var refresh = await RunPackBuilder.RefreshAsync(dataSource, ct, building).ConfigureAwait(false);
+                var refresh = await RunPackBuilder.RefreshAsync(dataSource, building, ct).ConfigureAwait(false);
                 if (times is not null)
                 {
                     times.PacksBuilt = Stopwatch.GetElapsedTime(started);
@@ -123,7 +112,7 @@ public static class FactoryReportLoader
     /// <exception cref="NpgsqlException">The database cannot be reached, read or written.</exception>
     public static async Task<(int Packs, long Runs, TimeSpan Elapsed)> BuildPacksAsync(NpgsqlDataSource dataSource, CancellationToken ct = default)
     {
-        var refresh = await RunPackBuilder.RefreshAsync(dataSource, ct).ConfigureAwait(false);
+        var refresh = await RunPackBuilder.RefreshAsync(dataSource, building: null, ct).ConfigureAwait(false);
         return (refresh.Packs, refresh.Runs, refresh.Elapsed);
     }
 

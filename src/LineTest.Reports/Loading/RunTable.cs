@@ -1,13 +1,14 @@
 using System.Globalization;
 using LineTest.Core.Results;
 using LineTest.Core.Statistics;
+
 namespace LineTest.Reports.Loading;
 
 /// <summary>
 /// The runs of a report, one column per field (primitive lists and interned strings), so a million runs cost
 /// tens of megabytes rather than a million objects. Runs are numbered in the order they were added.
 /// </summary>
-public sealed class RunTable
+public sealed partial class RunTable
 {
     private readonly List<string?> _serials = [];
     private readonly List<long> _endedTicks = [];
@@ -107,30 +108,7 @@ public sealed class RunTable
             throw new ArgumentOutOfRangeException(nameof(station), station, "A run needs a station.");
         }
 
-        _serials.Add(serial);
-        NumberUnit(serial);
-        _endedTicks.Add(endedTicks);
-        _verdicts.Add(verdict);
-        _slots.Add(slot);
-        _stations.Add(station);
-        _lots.Add(lot);
-        _sequences.Add(sequence);
-        _revisions.Add(revision);
-        _failures.Add(failure);
-        _reasons.Add(reason);
-        _operators.Add(-1);
-        return _serials.Count - 1;
-    }
-
-    private void NumberUnit(string serial)
-    {
-        if (!_unitIds.TryGetValue(serial, out var id))
-        {
-            id = _unitIds.Count;
-            _unitIds.Add(serial, id);
-        }
-
-        _unitOfRun.Add(id);
+        return AppendNumbered(serial, endedTicks, verdict, station, slot, lot, sequence, revision, failure, reason);
     }
 
     /// <summary>Makes room for <paramref name="count"/> runs in all, so a source that knows how many is coming sizes the table once.</summary>
@@ -163,21 +141,36 @@ public sealed class RunTable
         string? reason)
     {
         ArgumentNullException.ThrowIfNull(station);
+        return AppendNumbered(
+            serial,
+            endedUtc.UtcTicks,
+            verdict,
+            _pool.Intern(station),
+            slot,
+            _pool.Intern(lot),
+            _pool.Intern(sequenceId),
+            revision ?? int.MinValue,
+            _pool.Intern(failureName),
+            _pool.Intern(reason));
+    }
+
+    private int AppendNumbered(string? serial, long endedTicks, Verdict verdict, int station, int slot, int lot, int sequence, int revision, int failure, int reason)
+    {
         _serials.Add(serial);
         if (serial is not null)
         {
             NumberUnit(serial);
         }
 
-        _endedTicks.Add(endedUtc.UtcTicks);
+        _endedTicks.Add(endedTicks);
         _verdicts.Add(verdict);
         _slots.Add(slot);
-        _stations.Add(_pool.Intern(station));
-        _lots.Add(_pool.Intern(lot));
-        _sequences.Add(_pool.Intern(sequenceId));
-        _revisions.Add(revision ?? int.MinValue);
-        _failures.Add(_pool.Intern(failureName));
-        _reasons.Add(_pool.Intern(reason));
+        _stations.Add(station);
+        _lots.Add(lot);
+        _sequences.Add(sequence);
+        _revisions.Add(revision);
+        _failures.Add(failure);
+        _reasons.Add(reason);
         _operators.Add(-1);
         return _serials.Count - 1;
     }
@@ -196,139 +189,6 @@ public sealed class RunTable
 
     /// <summary>Sequence revision of run <paramref name="run"/>, or null.</summary>
     public int? Revision(int run) => _revisions[run] == int.MinValue ? null : _revisions[run];
-
-    /// <summary>
-    /// For each run, true when it is its unit's first run: the earliest end time of its serial, equal times in the
-    /// order added (the rule <see cref="YieldAnalysis"/> uses for first-pass yield).
-    /// </summary>
-    public bool[] FirstRuns()
-    {
-        var (unitOf, units) = Units();
-        var first = new int[units];
-        Array.Fill(first, -1);
-        for (var r = 0; r < Count; r++)
-        {
-            var f = first[unitOf[r]];
-            if (f < 0 || _endedTicks[r] < _endedTicks[f])
-            {
-                first[unitOf[r]] = r;
-            }
-        }
-
-        var flags = new bool[Count];
-        foreach (var r in first)
-        {
-            flags[r] = true;
-        }
-
-        return flags;
-    }
-
-    /// <summary>
-    /// Each run's unit as a number (0, 1, … in the order serials first appear) and the number of units: serials compared
-    /// once, so yield over a million runs is counted with arrays instead of a dictionary of serials per count. Made on
-    /// first use after the last run was added (each run's unit is numbered as it is added, so a report does not wait for a
-    /// pass over a million serials); safe to ask from several threads once made.
-    /// </summary>
-    public (int[] UnitOf, int Units) Units()
-    {
-        RequireOutcomes();
-        if (_units is { } made && made.UnitOf.Length == Count)
-        {
-            return (made.UnitOf, made.Units);
-        }
-
-        var unitOf = _unitOfRun.ToArray();
-        _units = new UnitNumbers(unitOf, _unitIds.Count);
-        return (unitOf, _unitIds.Count);
-    }
-
-    /// <summary>
-    /// The yield counts of the runs <paramref name="runs"/> (in increasing order; null: all), by the rule of
-    /// <see cref="YieldAnalysis.Summarize(IReadOnlyList{RunOutcome})"/>: a unit's first run is its earliest end (equal ends:
-    /// the first given), its last run its latest (equal ends: the last given). The same counts, without an outcome
-    /// object or a serial lookup per run.
-    /// </summary>
-    public YieldCounts CountYield(IReadOnlyList<int>? runs = null)
-    {
-        var (unitOf, units) = Units();
-        var first = new Dictionary<int, (int First, int Last)>();
-        var counts = new YieldCounts();
-        var all = runs is null;
-        var count = all ? Count : runs!.Count;
-        var firstOf = all ? new int[units] : null;
-        var lastOf = all ? new int[units] : null;
-        if (all)
-        {
-            Array.Fill(firstOf!, -1);
-        }
-
-        for (var i = 0; i < count; i++)
-        {
-            var r = all ? i : runs![i];
-            var verdict = _verdicts[r];
-            counts.AddRuns(
-                verdict,
-                verdict == Core.Results.Verdict.Fail ? _pool.Text(_failures[r]) : verdict == Core.Results.Verdict.Error ? _pool.Text(_reasons[r]) : null);
-            var unit = unitOf[r];
-            if (all)
-            {
-                if (firstOf![unit] < 0)
-                {
-                    firstOf[unit] = r;
-                    lastOf![unit] = r;
-                    continue;
-                }
-
-                if (_endedTicks[r] < _endedTicks[firstOf[unit]])
-                {
-                    firstOf[unit] = r;
-                }
-
-                if (_endedTicks[r] >= _endedTicks[lastOf![unit]])
-                {
-                    lastOf[unit] = r;
-                }
-            }
-            else if (first.TryGetValue(unit, out var span))
-            {
-                first[unit] = (_endedTicks[r] < _endedTicks[span.First] ? r : span.First, _endedTicks[r] >= _endedTicks[span.Last] ? r : span.Last);
-            }
-            else
-            {
-                first.Add(unit, (r, r));
-            }
-        }
-
-        int seen = 0, firstPassed = 0, lastPassed = 0;
-        void Unit(int f, int l)
-        {
-            seen++;
-            firstPassed += _verdicts[f] == Core.Results.Verdict.Pass ? 1 : 0;
-            lastPassed += _verdicts[l] == Core.Results.Verdict.Pass ? 1 : 0;
-        }
-
-        if (all)
-        {
-            for (var u = 0; u < units; u++)
-            {
-                if (firstOf![u] >= 0)
-                {
-                    Unit(firstOf[u], lastOf![u]);
-                }
-            }
-        }
-        else
-        {
-            foreach (var (f, l) in first.Values)
-            {
-                Unit(f, l);
-            }
-        }
-
-        counts.AddUnits(seen, firstPassed, lastPassed);
-        return counts;
-    }
 
     /// <summary>Serial of run <paramref name="run"/>.</summary>
     public string Serial(int run) => _serials[run] ?? throw NoOutcomes();
@@ -455,7 +315,4 @@ public sealed class RunTable
 
         System.Collections.IEnumerator System.Collections.IEnumerable.GetEnumerator() => GetEnumerator();
     }
-
-    /// <summary>Each run's unit number and the number of units (one object, so a reader on another thread sees both or neither).</summary>
-    private sealed record UnitNumbers(int[] UnitOf, int Units);
 }

@@ -54,13 +54,9 @@ internal static class PackedReportLoader
         }
 
         // Packs written by another version of LineTest (another format) are built again, never misread.
-        await using (var other = new NpgsqlCommand("SELECT EXISTS (SELECT 1 FROM run_packs WHERE format <> @f);", session.Connection, session.Transaction))
+        if ((await RunPackBuilder.PacksOfAnotherFormatAsync(session.Connection, session.Transaction, ct).ConfigureAwait(false)).Count > 0)
         {
-            other.Parameters.AddWithValue("f", RunPack.Format);
-            if (await other.ExecuteScalarAsync(ct).ConfigureAwait(false) is true)
-            {
-                return null;
-            }
+            return null;
         }
 
         var marks = await MarksAsync(session, ct).ConfigureAwait(false);

@@ -20,9 +20,9 @@ internal static class RunPackBuilder
     /// <summary>Builds what is missing; returns how many packs were written and how many runs they hold.</summary>
     /// <exception cref="PostgresException">The server refused (e.g. a read-only replica, or no <c>run_packs</c> table).</exception>
     /// <param name="dataSource">The factory database.</param>
+    /// <param name="building">Told, before a build starts, about how many runs were forwarded since the last one; or null.</param>
     /// <param name="ct">Cancels the build (nothing is written then).</param>
-    /// <param name="building">Told, before a build starts, about how many runs were forwarded since the last one.</param>
-    public static async Task<PackRefresh> RefreshAsync(NpgsqlDataSource dataSource, CancellationToken ct, Action<long>? building = null)
+    public static async Task<PackRefresh> RefreshAsync(NpgsqlDataSource dataSource, Action<long>? building, CancellationToken ct)
     {
         ArgumentNullException.ThrowIfNull(dataSource);
         var started = Stopwatch.GetTimestamp();
@@ -144,7 +144,8 @@ internal static class RunPackBuilder
         return stale;
     }
 
-    private static async Task<List<(Guid Chain, DateTime Month)>> PacksOfAnotherFormatAsync(NpgsqlConnection connection, NpgsqlTransaction transaction, CancellationToken ct)
+    /// <summary>The packs written in another format than <see cref="RunPack.Format"/> (by another version of LineTest).</summary>
+    internal static async Task<List<(Guid Chain, DateTime Month)>> PacksOfAnotherFormatAsync(NpgsqlConnection connection, NpgsqlTransaction transaction, CancellationToken ct)
     {
         await using var command = new NpgsqlCommand("SELECT chain_id, month FROM run_packs WHERE format <> @f;", connection, transaction);
         command.Parameters.AddWithValue("f", RunPack.Format);
