@@ -5,8 +5,6 @@ public static class NormalDistribution
 {
     private const double InverseSqrtTwoPi = 0.39894228040143267794;
 
-    private const double InverseSqrtTwo = 0.70710678118654752440;
-
     // Acklam's rational approximation to the normal quantile (relative error below 1.2e-9), refined below
     // by one Halley step against the CDF so the result is good to about 1e-15.
     private static readonly double[] A =
@@ -54,8 +52,17 @@ public static class NormalDistribution
 
     /// <summary>
     /// Φ(−|z|), the probability of the tail on z's side of the mean (at most ½); the other side is 1 minus it
-    /// without loss. Φ(−|z|) = ½·erfc(|z|/√2).
+    /// without loss.
     /// </summary>
+    /// <remarks>
+    /// W. J. Cody's rational Chebyshev approximations for the normal integral (the ANORM routine of Cody, "Algorithm
+    /// 715", ACM Transactions on Mathematical Software 19 (1993), after Cody, Mathematics of Computation 23 (1969)),
+    /// good to about 1e-16 relative in each of its three ranges: |z| ≤ 0.66291, to √32, and beyond (an asymptotic
+    /// form in 1/z²). exp(−z²/2) is taken as the product of two exponentials split at z rounded to 1/16, so the
+    /// rounding of z² does not cost relative precision far in the tail. About a tenth of the time of ½·erfc(|z|/√2)
+    /// by the incomplete gamma function Q(½, z²/2), which was used before; the normality test calls it once per
+    /// value.
+    /// </remarks>
     internal static double SmallerTail(double z)
     {
         if (double.IsNaN(z))
@@ -63,7 +70,68 @@ public static class NormalDistribution
             throw new ArgumentOutOfRangeException(nameof(z), z, "Φ(z) needs a number.");
         }
 
-        return 0.5 * SpecialFunctions.ErfcNonNegative(Math.Abs(z) * InverseSqrtTwo);
+        var y = Math.Abs(z);
+        if (y <= 0.66291)
+        {
+            var ysq = y > 1.11e-16 ? y * y : 0;
+            var xnum = 0.065682337918207449113 * ysq;
+            var xden = ysq;
+            xnum = (xnum + 2.2352520354606839287) * ysq;
+            xden = (xden + 47.20258190468824187) * ysq;
+            xnum = (xnum + 161.02823106855587881) * ysq;
+            xden = (xden + 976.09855173777669322) * ysq;
+            xnum = (xnum + 1067.6894854603709582) * ysq;
+            xden = (xden + 10260.932208618978205) * ysq;
+            return 0.5 - (y * (xnum + 18154.981253343561249) / (xden + 45507.789335026729956));
+        }
+
+        double ratio;
+        if (y <= 5.656854249492380195206754896838)
+        {
+            var xnum = 1.0765576773720192317e-8 * y;
+            var xden = y;
+            xnum = (xnum + 0.39894151208813466764) * y;
+            xden = (xden + 22.266688044328115691) * y;
+            xnum = (xnum + 8.8831497943883759412) * y;
+            xden = (xden + 235.38790178262499861) * y;
+            xnum = (xnum + 93.506656132177855979) * y;
+            xden = (xden + 1519.377599407554805) * y;
+            xnum = (xnum + 597.27027639480026226) * y;
+            xden = (xden + 6485.558298266760755) * y;
+            xnum = (xnum + 2494.5375852903726711) * y;
+            xden = (xden + 18615.571640885098091) * y;
+            xnum = (xnum + 6848.1904505362823326) * y;
+            xden = (xden + 34900.952721145977266) * y;
+            xnum = (xnum + 11602.651437647350124) * y;
+            xden = (xden + 38912.003286093271411) * y;
+            ratio = (xnum + 9842.7148383839780218) / (xden + 19685.429676859990727);
+        }
+        else
+        {
+            if (double.IsPositiveInfinity(y))
+            {
+                return 0;
+            }
+
+            var inv = 1 / (y * y);
+            var xnum = 0.02307344176494017303 * inv;
+            var xden = inv;
+            xnum = (xnum + 0.21589853405795699) * inv;
+            xden = (xden + 1.28426009614491121) * inv;
+            xnum = (xnum + 0.1274011611602473639) * inv;
+            xden = (xden + 0.468238212480865118) * inv;
+            xnum = (xnum + 0.022235277870649807) * inv;
+            xden = (xden + 0.0659881378689285515) * inv;
+            xnum = (xnum + 0.001421619193227893466) * inv;
+            xden = (xden + 0.00378239633202758244) * inv;
+            var term = inv * (xnum + 2.9112874951168792e-5) / (xden + 7.29751555083966205e-5);
+            ratio = (InverseSqrtTwoPi - term) / y;
+        }
+
+        // exp(−y²/2) = exp(−r²/2)·exp(−(y − r)(y + r)/2) with r = y rounded down to 1/16 (r² is exact).
+        var rounded = Math.Truncate(y * 16) / 16;
+        var del = (y - rounded) * (y + rounded);
+        return Math.Exp(-rounded * rounded * 0.5) * Math.Exp(-del * 0.5) * ratio;
     }
 
     /// <summary>The quantile z with Φ(z) = p, for 0 &lt; p &lt; 1.</summary>

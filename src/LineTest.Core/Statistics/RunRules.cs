@@ -43,75 +43,120 @@ public static class RunRules
             z[i] = (values[i] - centre) / sigma;
         }
 
-        var signals = new List<RunRuleSignal>();
+        // Rules that look at the same points share one pass: Western Electric 1–3 are Nelson 1, 5 and 6, and the two
+        // same-side rules differ only in length; trend and alternation read the same steps, and the two banded rules
+        // the same zone. Each signal is still made per rule, and the list comes out by family, rule and index.
         const RunRuleFamily we = RunRuleFamily.WesternElectric;
         const RunRuleFamily ne = RunRuleFamily.Nelson;
+        var beyond3 = new List<RunRuleSignal>();
+        BeyondLimit(z, beyond3);
+        var twoOfThree = new List<RunRuleSignal>();
+        KOfM(z, 2, 3, 2.0, "2 of 3 points beyond 2σ on the same side", twoOfThree);
+        var fourOfFive = new List<RunRuleSignal>();
+        KOfM(z, 4, 5, 1.0, "4 of 5 points beyond 1σ on the same side", fourOfFive);
+        var (eightSameSide, nineSameSide) = (new List<RunRuleSignal>(), new List<RunRuleSignal>());
+        SameSide(z, eightSameSide, nineSameSide);
+        var (trend, alternating) = (new List<RunRuleSignal>(), new List<RunRuleSignal>());
+        Steps(z, trend, alternating);
+        var (within, outside) = (new List<RunRuleSignal>(), new List<RunRuleSignal>());
+        Banded(z, within, outside);
 
-        BeyondLimit(z, we, 1, signals);
-        KOfM(z, 2, 3, 2.0, we, 2, "2 of 3 points beyond 2σ on the same side", signals);
-        KOfM(z, 4, 5, 1.0, we, 3, "4 of 5 points beyond 1σ on the same side", signals);
-        SameSide(z, 8, we, 4, "8 points in a row on one side of the centre line", signals);
-
-        BeyondLimit(z, ne, 1, signals);
-        SameSide(z, 9, ne, 2, "9 points in a row on one side of the centre line", signals);
-        Trend(z, 6, ne, 3, "6 points in a row steadily rising or falling", signals);
-        Alternating(z, 14, ne, 4, "14 points in a row alternating up and down", signals);
-        KOfM(z, 2, 3, 2.0, ne, 5, "2 of 3 points beyond 2σ on the same side", signals);
-        KOfM(z, 4, 5, 1.0, ne, 6, "4 of 5 points beyond 1σ on the same side", signals);
-        Banded(z, 15, inside: true, ne, 7, "15 points in a row within 1σ of the centre line", signals);
-        Banded(z, 8, inside: false, ne, 8, "8 points in a row beyond 1σ, either side", signals);
+        var signals = new List<RunRuleSignal>(
+            (2 * (beyond3.Count + twoOfThree.Count + fourOfFive.Count)) + eightSameSide.Count + nineSameSide.Count
+            + trend.Count + alternating.Count + within.Count + outside.Count);
+        Add(signals, beyond3, we, 1);
+        Add(signals, twoOfThree, we, 2);
+        Add(signals, fourOfFive, we, 3);
+        Add(signals, eightSameSide, we, 4);
+        Add(signals, beyond3, ne, 1);
+        Add(signals, nineSameSide, ne, 2);
+        Add(signals, trend, ne, 3);
+        Add(signals, alternating, ne, 4);
+        Add(signals, twoOfThree, ne, 5);
+        Add(signals, fourOfFive, ne, 6);
+        Add(signals, within, ne, 7);
+        Add(signals, outside, ne, 8);
         return signals;
     }
 
-    private static void BeyondLimit(double[] z, RunRuleFamily family, int rule, List<RunRuleSignal> signals)
+    /// <summary>Adds the signals found by a pass as the given rule's (their points are shared: nothing changes them).</summary>
+    private static void Add(List<RunRuleSignal> signals, List<RunRuleSignal> found, RunRuleFamily family, int rule)
+    {
+        foreach (var signal in found)
+        {
+            signals.Add(signal with { Family = family, Rule = rule });
+        }
+    }
+
+    private static void BeyondLimit(double[] z, List<RunRuleSignal> signals)
     {
         for (var i = 0; i < z.Length; i++)
         {
             if (Math.Abs(z[i]) > 3)
             {
-                signals.Add(new RunRuleSignal(family, rule, i, [i], "1 point beyond 3σ"));
+                signals.Add(new RunRuleSignal(default, 0, i, [i], "1 point beyond 3σ"));
             }
         }
     }
 
-    private static void KOfM(double[] z, int k, int m, double zone, RunRuleFamily family, int rule, string text, List<RunRuleSignal> signals)
+    /// <summary>
+    /// k of the last m points (the point itself among them) beyond the zone on its side; the points beyond on either
+    /// side are counted as the window slides, and only a point that completes k is looked at again.
+    /// </summary>
+    private static void KOfM(double[] z, int k, int m, double zone, string text, List<RunRuleSignal> signals)
     {
+        var (above, below) = (0, 0);
         for (var i = 0; i < z.Length; i++)
         {
+            if (z[i] > zone)
+            {
+                above++;
+            }
+            else if (z[i] < -zone)
+            {
+                below++;
+            }
+
+            if (i >= m)
+            {
+                var leaving = z[i - m];
+                if (leaving > zone)
+                {
+                    above--;
+                }
+                else if (leaving < -zone)
+                {
+                    below--;
+                }
+            }
+
             var side = z[i] > zone ? 1 : z[i] < -zone ? -1 : 0;
-            if (side == 0)
+            var count = side > 0 ? above : side < 0 ? below : 0;
+            if (side == 0 || count < k)
             {
                 continue;
             }
 
             var first = Math.Max(0, i - m + 1);
-            var count = 0;
+            var points = new int[count];
+            var n = 0;
             for (var j = first; j <= i; j++)
             {
                 if (side * z[j] > zone)
                 {
-                    count++;
+                    points[n++] = j;
                 }
             }
 
-            if (count >= k)
-            {
-                var points = new List<int>(count);
-                for (var j = first; j <= i; j++)
-                {
-                    if (side * z[j] > zone)
-                    {
-                        points.Add(j);
-                    }
-                }
-
-                signals.Add(new RunRuleSignal(family, rule, i, points, text));
-            }
+            signals.Add(new RunRuleSignal(default, 0, i, points, text));
         }
     }
 
-    private static void SameSide(double[] z, int length, RunRuleFamily family, int rule, string text, List<RunRuleSignal> signals)
+    /// <summary>Maximal runs of points on one side of the centre line: 8 or more, and 9 or more.</summary>
+    private static void SameSide(double[] z, List<RunRuleSignal> eight, List<RunRuleSignal> nine)
     {
+        const string eightText = "8 points in a row on one side of the centre line";
+        const string nineText = "9 points in a row on one side of the centre line";
         var start = 0;
         for (var i = 0; i <= z.Length; i++)
         {
@@ -123,73 +168,78 @@ public static class RunRules
 
             if (i > start && Sign(z[start]) != 0)
             {
-                Emit(start, i - 1, length, family, rule, text, signals);
+                var points = Emit(start, i - 1, 8, eightText, eight);
+                Emit(start, i - 1, 9, nineText, nine, points);
             }
 
             start = i;
         }
     }
 
-    private static void Trend(double[] z, int length, RunRuleFamily family, int rule, string text, List<RunRuleSignal> signals)
+    /// <summary>
+    /// Both rules on the steps between points: maximal runs of steps of one non-zero sign (6 or more points steadily
+    /// rising or falling) and of steps alternating in sign (14 or more points).
+    /// </summary>
+    private static void Steps(double[] z, List<RunRuleSignal> trend, List<RunRuleSignal> alternating)
     {
-        // A run of points start…i in which every step has the same non-zero sign.
-        var start = 0;
-        var direction = 0;
+        const string trendText = "6 points in a row steadily rising or falling";
+        const string alternatingText = "14 points in a row alternating up and down";
+        var (trendStart, direction) = (0, 0);
+        var (alternatingStart, previous) = (0, 0);
         for (var i = 1; i <= z.Length; i++)
         {
             var step = i < z.Length ? Sign(z[i] - z[i - 1]) : 0;
             if (step != 0 && (direction == 0 || step == direction))
             {
                 direction = step;
-                continue;
+            }
+            else
+            {
+                Emit(trendStart, i - 1, 6, trendText, trend);
+                trendStart = step == 0 ? i : i - 1;
+                direction = step;
             }
 
-            Emit(start, i - 1, length, family, rule, text, signals);
-            start = step == 0 ? i : i - 1;
-            direction = step;
-        }
-    }
-
-    private static void Alternating(double[] z, int length, RunRuleFamily family, int rule, string text, List<RunRuleSignal> signals)
-    {
-        // A run of points start…i whose successive steps are non-zero and change sign every time.
-        var start = 0;
-        var previous = 0;
-        for (var i = 1; i <= z.Length; i++)
-        {
-            var step = i < z.Length ? Sign(z[i] - z[i - 1]) : 0;
             if (step != 0 && (previous == 0 || step == -previous))
             {
                 previous = step;
-                continue;
             }
-
-            Emit(start, i - 1, length, family, rule, text, signals);
-            start = step == 0 ? i : i - 1;
-            previous = step;
+            else
+            {
+                Emit(alternatingStart, i - 1, 14, alternatingText, alternating);
+                alternatingStart = step == 0 ? i : i - 1;
+                previous = step;
+            }
         }
     }
 
-    private static void Banded(double[] z, int length, bool inside, RunRuleFamily family, int rule, string text, List<RunRuleSignal> signals)
+    /// <summary>Maximal runs of points within 1σ of the centre line (15 or more), and beyond 1σ either side (8 or more).</summary>
+    private static void Banded(double[] z, List<RunRuleSignal> within, List<RunRuleSignal> outside)
     {
-        var start = -1;
+        const string withinText = "15 points in a row within 1σ of the centre line";
+        const string outsideText = "8 points in a row beyond 1σ, either side";
+        var (withinStart, outsideStart) = (-1, -1);
         for (var i = 0; i <= z.Length; i++)
         {
-            var member = i < z.Length && (inside ? Math.Abs(z[i]) < 1 : Math.Abs(z[i]) > 1);
-            if (member)
+            var a = i < z.Length ? Math.Abs(z[i]) : double.NaN;
+            if (a < 1)
             {
-                if (start < 0)
-                {
-                    start = i;
-                }
-
-                continue;
+                withinStart = withinStart < 0 ? i : withinStart;
+            }
+            else if (withinStart >= 0)
+            {
+                Emit(withinStart, i - 1, 15, withinText, within);
+                withinStart = -1;
             }
 
-            if (start >= 0)
+            if (a > 1)
             {
-                Emit(start, i - 1, length, family, rule, text, signals);
-                start = -1;
+                outsideStart = outsideStart < 0 ? i : outsideStart;
+            }
+            else if (outsideStart >= 0)
+            {
+                Emit(outsideStart, i - 1, 8, outsideText, outside);
+                outsideStart = -1;
             }
         }
     }
@@ -198,20 +248,29 @@ public static class RunRules
     [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveInlining)]
     private static int Sign(double x) => x > 0 ? 1 : x < 0 ? -1 : 0;
 
-    private static void Emit(int first, int last, int length, RunRuleFamily family, int rule, string text, List<RunRuleSignal> signals)
+    /// <summary>
+    /// A signal for the maximal run first…last when it has at least <paramref name="length"/> points; its points are
+    /// <paramref name="points"/> when given (the same run, found for another rule). Returns the run's points, or null
+    /// when the run is too short.
+    /// </summary>
+    private static int[]? Emit(int first, int last, int length, string text, List<RunRuleSignal> signals, int[]? points = null)
     {
         var count = last - first + 1;
         if (count < length)
         {
-            return;
+            return null;
         }
 
-        var points = new int[count];
-        for (var j = 0; j < count; j++)
+        if (points is null)
         {
-            points[j] = first + j;
+            points = new int[count];
+            for (var j = 0; j < count; j++)
+            {
+                points[j] = first + j;
+            }
         }
 
-        signals.Add(new RunRuleSignal(family, rule, first + length - 1, points, text));
+        signals.Add(new RunRuleSignal(default, 0, first + length - 1, points, text));
+        return points;
     }
 }

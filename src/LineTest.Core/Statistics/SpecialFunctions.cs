@@ -33,8 +33,6 @@ public static class SpecialFunctions
 
     private const double HalfLogTwoPi = 0.91893853320467274178;
 
-    private const double LogSqrtPi = 0.57236494292470008707;
-
     /// <summary>ln Γ(x) for x &gt; 0.</summary>
     public static double LogGamma(double x)
     {
@@ -127,26 +125,6 @@ public static class SpecialFunctions
         return x < (a + 1.0) / (a + b + 2.0)
             ? front * BetaContinuedFraction(a, b, x) / a
             : 1.0 - (front * BetaContinuedFraction(b, a, 1.0 - x) / b);
-    }
-
-    /// <summary>
-    /// Complementary error function erfc(u) for u ≥ 0, as Q(½, u²) with ln Γ(½) = ln √π taken as a constant
-    /// (the normal CDF calls this millions of times in a normality test).
-    /// </summary>
-    internal static double ErfcNonNegative(double u)
-    {
-        var x = u * u;
-        if (x == 0)
-        {
-            return 1;
-        }
-
-        if (double.IsPositiveInfinity(x))
-        {
-            return 0;
-        }
-
-        return x < 1.5 ? 1.0 - GammaSeries(0.5, x, LogSqrtPi) : GammaContinuedFraction(0.5, x, LogSqrtPi);
     }
 
     private static void CheckGammaArguments(double a, double x)

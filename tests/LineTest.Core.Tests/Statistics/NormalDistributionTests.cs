@@ -19,6 +19,63 @@ public sealed class NormalDistributionTests
     }
 
     [Fact]
+    public void SmallerTail_DenseGridAcrossEveryRangeBreak_MatchesMathNetToRelative1e14AndTheReferenceRounding()
+    {
+        // MathNet.Numerics SpecialFunctions.Erfc as independent reference: Φ(−|z|) = ½·erfc(|z|/√2). The grid steps by
+        // 1/1024 from 0 to 40 and adds points either side of the approximation's breaks (0.66291 and √32).
+        var points = new List<double>();
+        for (var i = 0; i <= 40 * 1024; i++)
+        {
+            points.Add(i / 1024.0);
+        }
+
+        foreach (var b in new[] { 0.66291, Math.Sqrt(32) })
+        {
+            points.Add(Math.BitDecrement(b));
+            points.Add(b);
+            points.Add(Math.BitIncrement(b));
+        }
+
+        var worst = 0.0;
+        foreach (var y in points)
+        {
+            var expected = 0.5 * MathNet.Numerics.SpecialFunctions.Erfc(y / Math.Sqrt(2));
+            if (expected < 1e-300)
+            {
+                // Subnormal or zero: only a few bits are left, so only the size is compared.
+                Assert.True(NormalDistribution.SmallerTail(y) < 1e-300, $"Φ(−{y}) = {NormalDistribution.SmallerTail(y)}");
+                continue;
+            }
+
+            foreach (var z in new[] { y, -y })
+            {
+                // The reference's own argument y/√2 is rounded (relative 1.1e-16), which moves erfc by about y² times
+                // that in relative terms: the tolerance grows with y² accordingly.
+                var relative = Math.Abs(NormalDistribution.SmallerTail(z) - expected) / expected;
+                worst = Math.Max(worst, relative);
+                Assert.True(relative <= 1e-14 + (4e-16 * y * y), $"Φ(−|{z}|) = {NormalDistribution.SmallerTail(z):R}, MathNet {expected:R}, relative {relative:E2}");
+            }
+        }
+
+        Assert.True(worst > 0, "the grid compared nothing");
+    }
+
+    [Fact]
+    public void SmallerTail_PublishedTailAreas_Match()
+    {
+        // Tail areas of the standard normal [from memory: Φ(−1) = 0.158655253931457, Φ(−2) = 0.0227501319481792,
+        // Φ(−3) = 0.00134989803163010, Φ(−6) = 9.86587645037698e-10, Q(10) = 7.61985302416047e-24].
+        Assert.Equal(1, NormalDistribution.SmallerTail(1) / 0.158655253931457, 1e-13);
+        Assert.Equal(1, NormalDistribution.SmallerTail(-2) / 0.0227501319481792, 1e-13);
+        Assert.Equal(1, NormalDistribution.SmallerTail(3) / 0.00134989803163010, 1e-13);
+        Assert.Equal(1, NormalDistribution.SmallerTail(-6) / 9.86587645037698e-10, 1e-13);
+        Assert.Equal(1, NormalDistribution.SmallerTail(10) / 7.61985302416047e-24, 1e-13);
+        Assert.Equal(0.5, NormalDistribution.SmallerTail(0));
+        Assert.Equal(0, NormalDistribution.SmallerTail(double.NegativeInfinity));
+        Assert.Throws<ArgumentOutOfRangeException>(() => NormalDistribution.SmallerTail(double.NaN));
+    }
+
+    [Fact]
     public void Cdf_KnownPoints_MatchTables()
     {
         // Standard normal table values [published, any statistics handbook].

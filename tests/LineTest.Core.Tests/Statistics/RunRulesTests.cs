@@ -1,3 +1,4 @@
+using CsCheck;
 using LineTest.Core.Statistics;
 
 namespace LineTest.Core.Tests.Statistics;
@@ -171,5 +172,51 @@ public sealed class RunRulesTests
     {
         var ex = Assert.Throws<ArgumentException>(() => RunRules.Evaluate(CleanWith((4, double.NaN)), 0, 1));
         Assert.Contains("values[4]", ex.Message, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Evaluate_AnySeries_SameSignalsAsEachRuleOnItsOwn()
+    {
+        // The rules share passes (Western Electric 1–3 are Nelson 1, 5 and 6; trend and alternation read the same
+        // steps); PlainRunRules reads each rule on its own. Values are drawn on a grid of quarter σ from −4 to 4, so
+        // zone edges (exactly 1, 2, 3σ), the centre line and equal neighbours all come up, and series are long
+        // enough for every rule to fire.
+        var grid = Gen.Int[-16, 16].Select(q => q / 4.0);
+        Gen.OneOf(grid.Array[0, 40], grid.Array[200, 600], Gen.Double[-4, 4].Array[50, 400]).Sample(values =>
+        {
+            var expected = PlainRunRules.Evaluate(values, 0, 1);
+            var actual = RunRules.Evaluate(values, 0, 1);
+            Assert.Equal(expected.Count, actual.Count);
+            for (var i = 0; i < expected.Count; i++)
+            {
+                Assert.Equal((expected[i].Family, expected[i].Rule, expected[i].Index, expected[i].Description), (actual[i].Family, actual[i].Rule, actual[i].Index, actual[i].Description));
+                Assert.Equal(expected[i].Points, actual[i].Points);
+            }
+        });
+    }
+
+    [Fact]
+    public void Evaluate_LongSeries_EveryRuleFiresAndAgreesWithEachRuleOnItsOwn()
+    {
+        // A long series on a quarter grid (fixed seed) breaks all twelve rules, so the comparison above cannot pass
+        // by both sides finding nothing.
+        // Blocks of 50 points, each wandering (strong positive correlation), see-sawing (strong negative) or quiet.
+        var random = new Random(1984);
+        var values = new List<double>();
+        var x = 0.0;
+        for (var block = 0; block < 400; block++)
+        {
+            var (phi, size) = (block % 3) switch { 0 => (0.9, 1.0), 1 => (-0.9, 1.0), _ => (0.0, 0.3) };
+            for (var i = 0; i < 50; i++)
+            {
+                x = (phi * x) + (size * ((random.NextDouble() * 2) - 1));
+                values.Add(Math.Round(x * 4) / 4);
+            }
+        }
+
+        var actual = RunRules.Evaluate(values.ToArray(), 0, 1);
+        Assert.Equal(12, actual.Select(s => (s.Family, s.Rule)).Distinct().Count());
+        var expected = PlainRunRules.Evaluate(values.ToArray(), 0, 1);
+        Assert.Equal(expected.Select(s => (s.Family, s.Rule, s.Index, string.Join(',', s.Points))), actual.Select(s => (s.Family, s.Rule, s.Index, string.Join(',', s.Points))));
     }
 }
