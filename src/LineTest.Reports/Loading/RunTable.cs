@@ -111,9 +111,19 @@ public sealed partial class RunTable
         return AppendNumbered(serial, endedTicks, verdict, station, slot, lot, sequence, revision, failure, reason);
     }
 
-    /// <summary>Makes room for <paramref name="count"/> runs in all, so a source that knows how many is coming sizes the table once.</summary>
+    /// <summary>
+    /// Makes room for <paramref name="count"/> runs in all, so a source that knows how many is coming sizes the table
+    /// (and its table of units by serial) once instead of growing it step by step.
+    /// </summary>
     public void EnsureCapacity(int count)
     {
+        // The units' table is grown at least twofold, as adding would grow it: a source that asks for a little more
+        // room at a time does not have it rebuilt at every step.
+        if (count > _unitIds.Capacity)
+        {
+            _unitIds.EnsureCapacity(Math.Max(count, 2 * _unitIds.Capacity));
+        }
+
         _serials.EnsureCapacity(count);
         _endedTicks.EnsureCapacity(count);
         _verdicts.EnsureCapacity(count);

@@ -74,13 +74,23 @@ internal static class PackedReportLoader
         // Each connection reads and orders its months in turn; the months are placed here in order as each is ready,
         // and let go once placed.
         var readTimes = new ReadTimes();
+        // Without conditions on the runs themselves, the months' runs are all kept (the time window only trims the
+        // first and last month), so the table is sized once for them instead of growing month by month.
+        // The count is only a hint (a pack is read whole whatever it says): one out of any reason is not used.
+        var packed = months.Sum(m => m.Runs);
+        if (query.Station is null && query.Lot is null && query.SequenceId is null && query.Slot is null && query.SequenceRevision is null
+            && packed is > 0 and <= int.MaxValue / 16)
+        {
+            data.Runs.EnsureCapacity((int)packed);
+        }
+
         var placer = new Placer(data, query);
         await InOrderReads.RunAsync(
             connections,
             months.Count,
             async (c, m, token) =>
             {
-                var packs = await ReadMonthAsync(c.Connection, c.Transaction, months[m], token).ConfigureAwait(false);
+                var packs = await ReadMonthAsync(c.Connection, c.Transaction, months[m].Month, token).ConfigureAwait(false);
                 var read = Stopwatch.GetElapsedTime(started);
                 var selected = MonthRuns.Select(packs, query, marks);
                 lock (readTimes)
@@ -116,8 +126,8 @@ internal static class PackedReportLoader
         return marks;
     }
 
-    /// <summary>The months of packs that can hold runs in the report's time window, in order.</summary>
-    private static async Task<List<DateTime>> MonthsAsync(SharedSnapshot session, ReportQuery query, CancellationToken ct)
+    /// <summary>The months of packs that can hold runs in the report's time window, in order, with how many runs their packs hold.</summary>
+    private static async Task<List<(DateTime Month, long Runs)>> MonthsAsync(SharedSnapshot session, ReportQuery query, CancellationToken ct)
     {
         await using var command = new NpgsqlCommand(string.Empty, session.Connection, session.Transaction);
         var conditions = new List<string>();
@@ -139,12 +149,12 @@ internal static class PackedReportLoader
             EXISTS (SELECT 1 FROM pg_inherits i JOIN pg_class c ON c.oid = i.inhrelid
                      WHERE i.inhparent = 'runs'::regclass AND c.relname = 'runs_' || to_char(month AT TIME ZONE 'UTC', 'YYYY"m"MM'))
             """);
-        command.CommandText = $"SELECT DISTINCT month FROM run_packs WHERE {string.Join(" AND ", conditions)} ORDER BY month;";
-        var months = new List<DateTime>();
+        command.CommandText = $"SELECT month, sum(runs) FROM run_packs WHERE {string.Join(" AND ", conditions)} GROUP BY month ORDER BY month;";
+        var months = new List<(DateTime Month, long Runs)>();
         await using var reader = await command.ExecuteReaderAsync(ct).ConfigureAwait(false);
         while (await reader.ReadAsync(ct).ConfigureAwait(false))
         {
-            months.Add(DateTime.SpecifyKind(reader.GetDateTime(0), DateTimeKind.Utc));
+            months.Add((DateTime.SpecifyKind(reader.GetDateTime(0), DateTimeKind.Utc), reader.GetInt64(1)));
         }
 
         return months;
