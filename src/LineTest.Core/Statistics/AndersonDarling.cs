@@ -1,3 +1,5 @@
+using System.Runtime.CompilerServices;
+
 namespace LineTest.Core.Statistics;
 
 /// <summary>
@@ -31,6 +33,7 @@ public static class AndersonDarling
     /// <param name="values">The values, in any order (the order of the report: run order).</param>
     /// <param name="sorted">The same values in ascending order.</param>
     /// <exception cref="ArgumentException">The two spans differ in length, or <paramref name="sorted"/> is not ascending.</exception>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static StatisticOutcome<AndersonDarlingResult> Test(ReadOnlySpan<double> values, ReadOnlySpan<double> sorted)
     {
         var n = values.Length;

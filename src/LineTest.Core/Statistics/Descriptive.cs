@@ -1,3 +1,5 @@
+using System.Runtime.CompilerServices;
+
 namespace LineTest.Core.Statistics;
 
 /// <summary>
@@ -8,6 +10,7 @@ namespace LineTest.Core.Statistics;
 public static class Descriptive
 {
     /// <summary>Arithmetic mean. Throws on an empty span or a non-finite value (naming its index).</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static double Mean(ReadOnlySpan<double> values)
     {
         if (values.IsEmpty)
@@ -61,6 +64,7 @@ public static class Descriptive
     /// Average moving range of span 2, |x[i] − x[i−1]| averaged over i = 1…n−1, in the given (run) order.
     /// Needs at least two values.
     /// </summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static double AverageMovingRange(ReadOnlySpan<double> values)
     {
         if (values.Length < 2)
@@ -95,6 +99,7 @@ public static class Descriptive
         return 2 * scaled;
     }
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     internal static double StandardDeviation(ReadOnlySpan<double> values, double mean)
     {
         double sum = 0;

@@ -1,3 +1,5 @@
+using System.Runtime.CompilerServices;
+
 namespace LineTest.Core.Statistics;
 
 /// <summary>
@@ -43,6 +45,7 @@ public static class PercentileCapability
     /// and the normality test).
     /// </summary>
     /// <exception cref="ArgumentException">A value is not finite, or <paramref name="sorted"/> is not ascending.</exception>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public static StatisticOutcome<PercentileCapabilityResult> AnalyzeSorted(ReadOnlySpan<double> sorted, SpecLimits limits)
     {
         if (!limits.Lower.HasValue && !limits.Upper.HasValue)

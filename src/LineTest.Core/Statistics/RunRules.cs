@@ -1,3 +1,6 @@
+using System.Buffers;
+using System.Runtime.CompilerServices;
+
 namespace LineTest.Core.Statistics;
 
 /// <summary>
@@ -32,7 +35,21 @@ public static class RunRules
             throw new ArgumentOutOfRangeException(nameof(sigma), sigma, "Run rules need a finite σ > 0 for the zones.");
         }
 
-        var z = new double[values.Length];
+        // The points in σ from the centre line, in a pooled buffer: only the rules read them.
+        var buffer = ArrayPool<double>.Shared.Rent(values.Length);
+        try
+        {
+            return Evaluate(values, centre, sigma, buffer.AsSpan(0, values.Length));
+        }
+        finally
+        {
+            ArrayPool<double>.Shared.Return(buffer);
+        }
+    }
+
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private static List<RunRuleSignal> Evaluate(ReadOnlySpan<double> values, double centre, double sigma, Span<double> z)
+    {
         for (var i = 0; i < values.Length; i++)
         {
             if (!double.IsFinite(values[i]))
@@ -43,23 +60,18 @@ public static class RunRules
             z[i] = (values[i] - centre) / sigma;
         }
 
-        // Rules that look at the same points share one pass: Western Electric 1–3 are Nelson 1, 5 and 6, and the two
-        // same-side rules differ only in length; trend and alternation read the same steps, and the two banded rules
-        // the same zone. Each signal is still made per rule, and the list comes out by family, rule and index.
+        // One pass finds every pattern: Western Electric 1–3 are Nelson 1, 5 and 6 and are found once, and the two
+        // same-side rules differ only in length. Each signal is then made per rule, and the list comes out by family,
+        // rule and index.
         const RunRuleFamily we = RunRuleFamily.WesternElectric;
         const RunRuleFamily ne = RunRuleFamily.Nelson;
         var beyond3 = new List<RunRuleSignal>();
-        BeyondLimit(z, beyond3);
         var twoOfThree = new List<RunRuleSignal>();
-        KOfM(z, 2, 3, 2.0, "2 of 3 points beyond 2σ on the same side", twoOfThree);
         var fourOfFive = new List<RunRuleSignal>();
-        KOfM(z, 4, 5, 1.0, "4 of 5 points beyond 1σ on the same side", fourOfFive);
         var (eightSameSide, nineSameSide) = (new List<RunRuleSignal>(), new List<RunRuleSignal>());
-        SameSide(z, eightSameSide, nineSameSide);
         var (trend, alternating) = (new List<RunRuleSignal>(), new List<RunRuleSignal>());
-        Steps(z, trend, alternating);
         var (within, outside) = (new List<RunRuleSignal>(), new List<RunRuleSignal>());
-        Banded(z, within, outside);
+        Scan(z, new Found(beyond3, twoOfThree, fourOfFive, eightSameSide, nineSameSide, trend, alternating, within, outside));
 
         var signals = new List<RunRuleSignal>(
             (2 * (beyond3.Count + twoOfThree.Count + fourOfFive.Count)) + eightSameSide.Count + nineSameSide.Count
@@ -88,160 +100,188 @@ public static class RunRules
         }
     }
 
-    private static void BeyondLimit(double[] z, List<RunRuleSignal> signals)
-    {
-        for (var i = 0; i < z.Length; i++)
-        {
-            if (Math.Abs(z[i]) > 3)
-            {
-                signals.Add(new RunRuleSignal(default, 0, i, [i], "1 point beyond 3σ"));
-            }
-        }
-    }
+    /// <summary>The patterns found, per pass result (the family and rule are set when they are added to the list).</summary>
+    private sealed record Found(
+        List<RunRuleSignal> Beyond3,
+        List<RunRuleSignal> TwoOfThree,
+        List<RunRuleSignal> FourOfFive,
+        List<RunRuleSignal> EightSameSide,
+        List<RunRuleSignal> NineSameSide,
+        List<RunRuleSignal> Trend,
+        List<RunRuleSignal> Alternating,
+        List<RunRuleSignal> Within,
+        List<RunRuleSignal> Outside);
+
+    private const string Beyond3Text = "1 point beyond 3σ";
+    private const string TwoOfThreeText = "2 of 3 points beyond 2σ on the same side";
+    private const string FourOfFiveText = "4 of 5 points beyond 1σ on the same side";
+    private const string EightText = "8 points in a row on one side of the centre line";
+    private const string NineText = "9 points in a row on one side of the centre line";
+    private const string TrendText = "6 points in a row steadily rising or falling";
+    private const string AlternatingText = "14 points in a row alternating up and down";
+    private const string WithinText = "15 points in a row within 1σ of the centre line";
+    private const string OutsideText = "8 points in a row beyond 1σ, either side";
 
     /// <summary>
-    /// k of the last m points (the point itself among them) beyond the zone on its side; the points beyond on either
-    /// side are counted as the window slides, and only a point that completes k is looked at again.
+    /// Every rule in one pass over the points. The rules on consecutive points each follow a class per point (or per
+    /// step between points) and end a maximal run where the class changes: the side of the centre line; within 1σ,
+    /// beyond 1σ or exactly on it; the sign of the step (a trend); and the sign of the step times (−1)^i, which stays
+    /// the same while the steps alternate. "k of m" rules count the points beyond the zone on either side as the window
+    /// slides. The per-point work has no branch that depends on the data except where a signal is made, which is rare:
+    /// on in-control data the other branches would be mispredicted about half the time.
     /// </summary>
-    private static void KOfM(double[] z, int k, int m, double zone, string text, List<RunRuleSignal> signals)
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private static void Scan(ReadOnlySpan<double> z, Found found)
     {
-        var (above, below) = (0, 0);
-        for (var i = 0; i < z.Length; i++)
+        var n = z.Length;
+        var (sideStart, sidePrevious) = (0, 0);
+        var (bandStart, bandPrevious) = (0, 0);
+        var (trendStart, trendPrevious) = (1, 0);
+        var (alternatingStart, alternatingPrevious) = (1, 0);
+        var (above2, below2, above1, below1) = (0, 0, 0, 0);
+        for (var i = 0; i < n; i++)
         {
-            if (z[i] > zone)
+            var v = z[i];
+            if (Math.Abs(v) > 3)
             {
-                above++;
-            }
-            else if (z[i] < -zone)
-            {
-                below++;
+                found.Beyond3.Add(new RunRuleSignal(default, 0, i, [i], Beyond3Text));
             }
 
-            if (i >= m)
+            // k of m: the points beyond 2σ in the last 3, and beyond 1σ in the last 5, on each side.
+            above2 += Flag(v > 2);
+            below2 += Flag(v < -2);
+            above1 += Flag(v > 1);
+            below1 += Flag(v < -1);
+            if (i >= 3)
             {
-                var leaving = z[i - m];
-                if (leaving > zone)
+                var leaving = z[i - 3];
+                above2 -= Flag(leaving > 2);
+                below2 -= Flag(leaving < -2);
+            }
+
+            if (i >= 5)
+            {
+                var leaving = z[i - 5];
+                above1 -= Flag(leaving > 1);
+                below1 -= Flag(leaving < -1);
+            }
+
+            if ((v > 2 & above2 >= 2) | (v < -2 & below2 >= 2))
+            {
+                KOfMSignal(z, i, 3, 2.0, v > 0 ? above2 : below2, TwoOfThreeText, found.TwoOfThree);
+            }
+
+            if ((v > 1 & above1 >= 4) | (v < -1 & below1 >= 4))
+            {
+                KOfMSignal(z, i, 5, 1.0, v > 0 ? above1 : below1, FourOfFiveText, found.FourOfFive);
+            }
+
+            // Runs of points: the side of the centre line (0 on it), and the band (1 within 1σ, 2 beyond, 0 on 1σ).
+            var side = Sign(v);
+            if ((side != sidePrevious) & (sidePrevious != 0) & (i - sideStart >= 8))
+            {
+                var points = Emit(sideStart, i - 1, 8, EightText, found.EightSameSide);
+                Emit(sideStart, i - 1, 9, NineText, found.NineSameSide, points);
+            }
+
+            sideStart = Choose(side != sidePrevious, i, sideStart);
+            sidePrevious = side;
+
+            var a = Math.Abs(v);
+            var band = Flag(a < 1) + (2 * Flag(a > 1));
+            if ((band != bandPrevious) & (bandPrevious != 0) & (i - bandStart >= 8))
+            {
+                EmitBand(bandStart, i - 1, bandPrevious, found);
+            }
+
+            bandStart = Choose(band != bandPrevious, i, bandStart);
+            bandPrevious = band;
+
+            // Runs of steps: step i is from point i − 1 to point i; steps j…k are points j − 1…k.
+            if (i > 0)
+            {
+                var step = Sign(v - z[i - 1]);
+                if ((step != trendPrevious) & (trendPrevious != 0) & (i - trendStart >= 5))
                 {
-                    above--;
+                    Emit(trendStart - 1, i - 1, 6, TrendText, found.Trend);
                 }
-                else if (leaving < -zone)
+
+                trendStart = Choose(step != trendPrevious, i, trendStart);
+                trendPrevious = step;
+
+                var alternation = step * (1 - (2 * (i & 1)));
+                if ((alternation != alternatingPrevious) & (alternatingPrevious != 0) & (i - alternatingStart >= 13))
                 {
-                    below--;
+                    Emit(alternatingStart - 1, i - 1, 14, AlternatingText, found.Alternating);
                 }
-            }
 
-            var side = z[i] > zone ? 1 : z[i] < -zone ? -1 : 0;
-            var count = side > 0 ? above : side < 0 ? below : 0;
-            if (side == 0 || count < k)
-            {
-                continue;
+                alternatingStart = Choose(alternation != alternatingPrevious, i, alternatingStart);
+                alternatingPrevious = alternation;
             }
+        }
 
-            var first = Math.Max(0, i - m + 1);
-            var points = new int[count];
-            var n = 0;
-            for (var j = first; j <= i; j++)
-            {
-                if (side * z[j] > zone)
-                {
-                    points[n++] = j;
-                }
-            }
+        // The runs still open at the last point.
+        if (sidePrevious != 0)
+        {
+            var points = Emit(sideStart, n - 1, 8, EightText, found.EightSameSide);
+            Emit(sideStart, n - 1, 9, NineText, found.NineSameSide, points);
+        }
 
-            signals.Add(new RunRuleSignal(default, 0, i, points, text));
+        if (bandPrevious != 0)
+        {
+            EmitBand(bandStart, n - 1, bandPrevious, found);
+        }
+
+        if (trendPrevious != 0)
+        {
+            Emit(trendStart - 1, n - 1, 6, TrendText, found.Trend);
+        }
+
+        if (alternatingPrevious != 0)
+        {
+            Emit(alternatingStart - 1, n - 1, 14, AlternatingText, found.Alternating);
         }
     }
 
-    /// <summary>Maximal runs of points on one side of the centre line: 8 or more, and 9 or more.</summary>
-    private static void SameSide(double[] z, List<RunRuleSignal> eight, List<RunRuleSignal> nine)
+    private static void EmitBand(int first, int last, int band, Found found)
     {
-        const string eightText = "8 points in a row on one side of the centre line";
-        const string nineText = "9 points in a row on one side of the centre line";
-        var start = 0;
-        for (var i = 0; i <= z.Length; i++)
+        if (band == 1)
         {
-            var continues = i < z.Length && i > start && Sign(z[i]) != 0 && Sign(z[i]) == Sign(z[start]);
-            if (continues)
-            {
-                continue;
-            }
-
-            if (i > start && Sign(z[start]) != 0)
-            {
-                var points = Emit(start, i - 1, 8, eightText, eight);
-                Emit(start, i - 1, 9, nineText, nine, points);
-            }
-
-            start = i;
+            Emit(first, last, 15, WithinText, found.Within);
+        }
+        else
+        {
+            Emit(first, last, 8, OutsideText, found.Outside);
         }
     }
 
-    /// <summary>
-    /// Both rules on the steps between points: maximal runs of steps of one non-zero sign (6 or more points steadily
-    /// rising or falling) and of steps alternating in sign (14 or more points).
-    /// </summary>
-    private static void Steps(double[] z, List<RunRuleSignal> trend, List<RunRuleSignal> alternating)
+    /// <summary>The signal of point i, which completes <paramref name="count"/> of the last m points beyond the zone on its side.</summary>
+    private static void KOfMSignal(ReadOnlySpan<double> z, int i, int m, double zone, int count, string text, List<RunRuleSignal> signals)
     {
-        const string trendText = "6 points in a row steadily rising or falling";
-        const string alternatingText = "14 points in a row alternating up and down";
-        var (trendStart, direction) = (0, 0);
-        var (alternatingStart, previous) = (0, 0);
-        for (var i = 1; i <= z.Length; i++)
+        var side = z[i] > 0 ? 1 : -1;
+        var points = new int[count];
+        var n = 0;
+        for (var j = Math.Max(0, i - m + 1); j <= i; j++)
         {
-            var step = i < z.Length ? Sign(z[i] - z[i - 1]) : 0;
-            if (step != 0 && (direction == 0 || step == direction))
+            if (side * z[j] > zone)
             {
-                direction = step;
-            }
-            else
-            {
-                Emit(trendStart, i - 1, 6, trendText, trend);
-                trendStart = step == 0 ? i : i - 1;
-                direction = step;
-            }
-
-            if (step != 0 && (previous == 0 || step == -previous))
-            {
-                previous = step;
-            }
-            else
-            {
-                Emit(alternatingStart, i - 1, 14, alternatingText, alternating);
-                alternatingStart = step == 0 ? i : i - 1;
-                previous = step;
+                points[n++] = j;
             }
         }
+
+        signals.Add(new RunRuleSignal(default, 0, i, points, text));
     }
 
-    /// <summary>Maximal runs of points within 1σ of the centre line (15 or more), and beyond 1σ either side (8 or more).</summary>
-    private static void Banded(double[] z, List<RunRuleSignal> within, List<RunRuleSignal> outside)
-    {
-        const string withinText = "15 points in a row within 1σ of the centre line";
-        const string outsideText = "8 points in a row beyond 1σ, either side";
-        var (withinStart, outsideStart) = (-1, -1);
-        for (var i = 0; i <= z.Length; i++)
-        {
-            var a = i < z.Length ? Math.Abs(z[i]) : double.NaN;
-            if (a < 1)
-            {
-                withinStart = withinStart < 0 ? i : withinStart;
-            }
-            else if (withinStart >= 0)
-            {
-                Emit(withinStart, i - 1, 15, withinText, within);
-                withinStart = -1;
-            }
+    /// <summary>1 for true, 0 for false, without a branch.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
+    private static int Flag(bool value) => Unsafe.As<bool, byte>(ref value);
 
-            if (a > 1)
-            {
-                outsideStart = outsideStart < 0 ? i : outsideStart;
-            }
-            else if (outsideStart >= 0)
-            {
-                Emit(outsideStart, i - 1, 8, outsideText, outside);
-                outsideStart = -1;
-            }
-        }
+    /// <summary><paramref name="whenTrue"/> or <paramref name="otherwise"/>, without a branch.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
+    private static int Choose(bool condition, int whenTrue, int otherwise)
+    {
+        var mask = -Flag(condition);
+        return (whenTrue & mask) | (otherwise & ~mask);
     }
 
     /// <summary>The sign of a finite number (the points are checked finite first), without Math.Sign's NaN check.</summary>

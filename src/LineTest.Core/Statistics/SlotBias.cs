@@ -1,3 +1,5 @@
+using System.Runtime.CompilerServices;
+
 namespace LineTest.Core.Statistics;
 
 /// <summary>Slot-bias check: one-way ANOVA of values grouped by slot, p-value from the F upper tail.</summary>
@@ -53,6 +55,7 @@ public static class SlotBias
     /// <summary>Above this magnitude values are scaled before squaring.</summary>
     private const double LargeValue = 1e100;
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static StatisticOutcome<SlotBiasResult> AnalyzeUnscaled(ReadOnlySpan<int> slots, ReadOnlySpan<double> values)
     {
 

@@ -1,3 +1,4 @@
+using System.Buffers;
 using System.Globalization;
 using System.Runtime.InteropServices;
 using LineTest.Core.Statistics;
@@ -100,10 +101,21 @@ public static class ReportBuilder
             () =>
             {
                 capability = Capability.Analyze(values, limits);
-                var sorted = (double[])values.Clone();
-                DoubleSort.Ascending(sorted);
-                normality = AndersonDarling.Test(values, sorted);
-                percentile = PercentileCapability.AnalyzeSorted(sorted, limits);
+
+                // The sorted copy is only needed here: a pooled buffer, not a new large array per series.
+                var buffer = ArrayPool<double>.Shared.Rent(values.Length);
+                try
+                {
+                    var sorted = buffer.AsSpan(0, values.Length);
+                    values.CopyTo(sorted);
+                    DoubleSort.Ascending(sorted);
+                    normality = AndersonDarling.Test(values, sorted);
+                    percentile = PercentileCapability.AnalyzeSorted(sorted, limits);
+                }
+                finally
+                {
+                    ArrayPool<double>.Shared.Return(buffer);
+                }
             });
         return new ReadingStatistics
         {
@@ -186,13 +198,23 @@ public static class ReportBuilder
 
     private static SlotBiasEntry SlotBiasOf(ReadingSeries series, double[] values, ReadOnlySpan<int> runs, RunTable table)
     {
-        var slotOf = new int[runs.Length];
-        for (var i = 0; i < slotOf.Length; i++)
+        var buffer = ArrayPool<int>.Shared.Rent(runs.Length);
+        StatisticOutcome<SlotBiasResult> outcome;
+        try
         {
-            slotOf[i] = table.Slot(runs[i]);
+            var slotOf = buffer.AsSpan(0, runs.Length);
+            for (var i = 0; i < slotOf.Length; i++)
+            {
+                slotOf[i] = table.Slot(runs[i]);
+            }
+
+            outcome = SlotBias.Analyze(slotOf, values);
+        }
+        finally
+        {
+            ArrayPool<int>.Shared.Return(buffer);
         }
 
-        var outcome = SlotBias.Analyze(slotOf, values);
         return new SlotBiasEntry(series.Name, series.Unit, outcome.Value, outcome.Reason) { SequenceId = series.SequenceId };
     }
 
@@ -251,9 +273,18 @@ public static class ReportBuilder
         return (keys, groupOfRun);
     }
 
-    /// <summary>Each run's group for yield: the group of its unit's first run, so every unit is in exactly one group.</summary>
-    private static int[] UnitGroups(RunTable runs, int[] groupOfRun)
+    /// <summary>
+    /// Each group's yield, every unit counted in the group of its first run (so every unit is in exactly one group, and
+    /// all its runs count there): from the runs in one pass, or from the source's counts when it counted them.
+    /// </summary>
+    private static YieldCounts[] GroupCounts(RunTable runs, int[] groupOfRun, List<string> keys, IReadOnlyDictionary<string, YieldCounts>? counted)
     {
+        if (counted is not null)
+        {
+            // A group that none of its units started in has no counts: the summary of no runs.
+            return [.. keys.Select(k => counted.TryGetValue(k, out var c) ? c : new YieldCounts())];
+        }
+
         var first = runs.FirstRuns();
         var (unitOf, units) = runs.Units();
         var groupOfUnit = new int[units];
@@ -265,35 +296,13 @@ public static class ReportBuilder
             }
         }
 
-        var unitGroup = new int[runs.Count];
-        for (var r = 0; r < runs.Count; r++)
-        {
-            unitGroup[r] = groupOfUnit[unitOf[r]];
-        }
-
-        return unitGroup;
-    }
-
-    private static List<int>[] RunsByGroup(int groupCount, int[] groupOfRun)
-    {
-        var runsOf = new List<int>[groupCount];
-        for (var g = 0; g < groupCount; g++)
-        {
-            runsOf[g] = [];
-        }
-
-        for (var r = 0; r < groupOfRun.Length; r++)
-        {
-            runsOf[groupOfRun[r]].Add(r);
-        }
-
-        return runsOf;
+        return runs.CountYieldByUnitGroup(groupOfUnit, keys.Count);
     }
 
     private static List<GroupReport> Groups(ReportData data, ReportQuery query, bool[]? firstRuns)
     {
         var (keys, groupOfRun) = Partition(data.Runs, query.GroupBy, query.Shifts);
-        var runsOf = data.Tally is null ? RunsByGroup(keys.Count, UnitGroups(data.Runs, groupOfRun)) : null;
+        var counts = GroupCounts(data.Runs, groupOfRun, keys, data.Tally?.Groups);
 
         // Per group and reading, the values in run order: one pass over each series.
         var perGroup = new List<GroupReadingStatistics>[keys.Count];
@@ -333,35 +342,21 @@ public static class ReportBuilder
         for (var g = 0; g < keys.Count; g++)
         {
             // A group whose units all started in another group has no runs of its own for yield.
-            groups.Add(new GroupReport(keys[g], GroupYield(data.Runs, runsOf, g, data.Tally?.Groups, keys[g]), perGroup[g]));
+            groups.Add(new GroupReport(keys[g], YieldAnalysis.Summarize(counts[g]), perGroup[g]));
         }
 
         groups.Sort((a, b) => RunTable.CompareGroupKeys(query.GroupBy, a.Key, b.Key));
         return groups;
     }
 
-    /// <summary>
-    /// Yield of group <paramref name="g"/>: from its runs' outcomes, or from the source's counts when it counted them
-    /// (a group that none of its units started in has no counts: the summary of no runs).
-    /// </summary>
-    private static YieldSummary GroupYield(RunTable runs, List<int>[]? runsOf, int g, IReadOnlyDictionary<string, YieldCounts>? counted, string key)
-    {
-        if (runsOf is not null)
-        {
-            return YieldAnalysis.Summarize(runs.CountYield(runsOf[g]));
-        }
-
-        return YieldAnalysis.Summarize(counted!.TryGetValue(key, out var counts) ? counts : new YieldCounts());
-    }
-
     private static List<DailyYield> Daily(RunTable runs, YieldTally? tally)
     {
         var (keys, groupOfRun) = Partition(runs, ReportGrouping.Day, null);
-        var runsOf = tally is null ? RunsByGroup(keys.Count, UnitGroups(runs, groupOfRun)) : null;
+        var counts = GroupCounts(runs, groupOfRun, keys, tally?.Days);
         var days = new List<DailyYield>(keys.Count);
         for (var g = 0; g < keys.Count; g++)
         {
-            var y = GroupYield(runs, runsOf, g, tally?.Days, keys[g]);
+            var y = YieldAnalysis.Summarize(counts[g]);
             days.Add(new DailyYield(keys[g], y.Runs, y.FirstPassYield, y.FinalYield));
         }
 

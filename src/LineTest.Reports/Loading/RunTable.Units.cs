@@ -53,6 +53,77 @@ public sealed partial class RunTable
     }
 
     /// <summary>
+    /// The yield counts of each of <paramref name="groups"/> groups, in one pass over the runs, where every run counts in
+    /// the group of its unit (<paramref name="groupOfUnit"/>[unit], numbered as <see cref="Units"/> numbers them): a
+    /// unit's first and last runs are then those of all its runs, by the rule of <see cref="CountYield"/>. The same counts
+    /// as <see cref="CountYield"/> of each group's runs, without a table of units per group.
+    /// </summary>
+    public YieldCounts[] CountYieldByUnitGroup(int[] groupOfUnit, int groups)
+    {
+        ArgumentNullException.ThrowIfNull(groupOfUnit);
+        var (unitOf, units) = Units();
+        if (groupOfUnit.Length != units)
+        {
+            throw new ArgumentException($"groupOfUnit has {groupOfUnit.Length} entries for {units} units.", nameof(groupOfUnit));
+        }
+
+        var counts = new YieldCounts[groups];
+        for (var g = 0; g < groups; g++)
+        {
+            counts[g] = new YieldCounts();
+        }
+
+        var firstOf = new int[units];
+        var lastOf = new int[units];
+        Array.Fill(firstOf, -1);
+        for (var r = 0; r < Count; r++)
+        {
+            var verdict = _verdicts[r];
+            var unit = unitOf[r];
+            counts[groupOfUnit[unit]].AddRuns(
+                verdict,
+                verdict == Core.Results.Verdict.Fail ? _pool.Text(_failures[r]) : verdict == Core.Results.Verdict.Error ? _pool.Text(_reasons[r]) : null);
+            if (firstOf[unit] < 0)
+            {
+                firstOf[unit] = r;
+                lastOf[unit] = r;
+                continue;
+            }
+
+            if (_endedTicks[r] < _endedTicks[firstOf[unit]])
+            {
+                firstOf[unit] = r;
+            }
+
+            if (_endedTicks[r] >= _endedTicks[lastOf[unit]])
+            {
+                lastOf[unit] = r;
+            }
+        }
+
+        var seen = new int[groups];
+        var firstPassed = new int[groups];
+        var lastPassed = new int[groups];
+        for (var u = 0; u < units; u++)
+        {
+            if (firstOf[u] >= 0)
+            {
+                var g = groupOfUnit[u];
+                seen[g]++;
+                firstPassed[g] += _verdicts[firstOf[u]] == Core.Results.Verdict.Pass ? 1 : 0;
+                lastPassed[g] += _verdicts[lastOf[u]] == Core.Results.Verdict.Pass ? 1 : 0;
+            }
+        }
+
+        for (var g = 0; g < groups; g++)
+        {
+            counts[g].AddUnits(seen[g], firstPassed[g], lastPassed[g]);
+        }
+
+        return counts;
+    }
+
+    /// <summary>
     /// The yield counts of the runs <paramref name="runs"/> (in increasing order; null: all), by the rule of
     /// <see cref="YieldAnalysis.Summarize(IReadOnlyList{RunOutcome})"/>: a unit's first run is its earliest end (equal ends:
     /// the first given), its last run its latest (equal ends: the last given). The same counts, without an outcome
@@ -60,46 +131,23 @@ public sealed partial class RunTable
     /// </summary>
     public YieldCounts CountYield(IReadOnlyList<int>? runs = null)
     {
-        var (unitOf, units) = Units();
-        var spans = new Dictionary<int, (int First, int Last)>();
-        var counts = new YieldCounts();
-        var all = runs is null;
-        var count = all ? Count : runs!.Count;
-        var firstOf = all ? new int[units] : null;
-        var lastOf = all ? new int[units] : null;
-        if (all)
+        if (runs is null)
         {
-            Array.Fill(firstOf!, -1);
+            return CountYieldByUnitGroup(new int[Units().Units], 1)[0];
         }
 
-        for (var i = 0; i < count; i++)
+        var (unitOf, _) = Units();
+        var spans = new Dictionary<int, (int First, int Last)>();
+        var counts = new YieldCounts();
+        for (var i = 0; i < runs.Count; i++)
         {
-            var r = all ? i : runs![i];
+            var r = runs[i];
             var verdict = _verdicts[r];
             counts.AddRuns(
                 verdict,
                 verdict == Core.Results.Verdict.Fail ? _pool.Text(_failures[r]) : verdict == Core.Results.Verdict.Error ? _pool.Text(_reasons[r]) : null);
             var unit = unitOf[r];
-            if (all)
-            {
-                if (firstOf![unit] < 0)
-                {
-                    firstOf[unit] = r;
-                    lastOf![unit] = r;
-                    continue;
-                }
-
-                if (_endedTicks[r] < _endedTicks[firstOf[unit]])
-                {
-                    firstOf[unit] = r;
-                }
-
-                if (_endedTicks[r] >= _endedTicks[lastOf![unit]])
-                {
-                    lastOf[unit] = r;
-                }
-            }
-            else if (spans.TryGetValue(unit, out var span))
+            if (spans.TryGetValue(unit, out var span))
             {
                 spans[unit] = (_endedTicks[r] < _endedTicks[span.First] ? r : span.First, _endedTicks[r] >= _endedTicks[span.Last] ? r : span.Last);
             }
@@ -110,29 +158,11 @@ public sealed partial class RunTable
         }
 
         int seen = 0, firstPassed = 0, lastPassed = 0;
-        void Unit(int f, int l)
+        foreach (var (f, l) in spans.Values)
         {
             seen++;
             firstPassed += _verdicts[f] == Core.Results.Verdict.Pass ? 1 : 0;
             lastPassed += _verdicts[l] == Core.Results.Verdict.Pass ? 1 : 0;
-        }
-
-        if (all)
-        {
-            for (var u = 0; u < units; u++)
-            {
-                if (firstOf![u] >= 0)
-                {
-                    Unit(firstOf[u], lastOf![u]);
-                }
-            }
-        }
-        else
-        {
-            foreach (var (f, l) in spans.Values)
-            {
-                Unit(f, l);
-            }
         }
 
         counts.AddUnits(seen, firstPassed, lastPassed);

@@ -52,6 +52,39 @@ public sealed class RunTableTests
         });
     }
 
+    /// <summary>
+    /// Counting every group in one pass (each unit's runs all in its unit's group) must give, group by group, what
+    /// <see cref="YieldAnalysis.Summarize(IReadOnlyList{RunOutcome})"/> gives for that group's runs (the rule of record).
+    /// </summary>
+    [Fact]
+    public void CountYieldByUnitGroup_AnyRunsAndGroupsOfUnits_EachGroupAsTheOutcomeRuleOnItsRuns()
+    {
+        var run = Gen.Select(Gen.Int[0, 8], Gen.Int[0, 4], Gen.Int[0, 2], Gen.Int[0, 3]);
+        Gen.Select(run.List[0, 50], Gen.Int[1, 4], Gen.Int[0, 1000]).Sample(sample =>
+        {
+            var (runs, groups, seed) = sample;
+            var table = new RunTable();
+            foreach (var (unit, minute, verdict, name) in runs)
+            {
+                var why = name switch { 0 => null, 1 => "  ", 2 => " verify.error ", _ => "reference lost" };
+                table.Add($"U-{unit}", T0.AddMinutes(minute), (Verdict)verdict, "ST-01", 1, null, null, null, why, why);
+            }
+
+            var random = new Random(seed);
+            var (unitOf, units) = table.Units();
+            var groupOfUnit = Enumerable.Range(0, units).Select(_ => random.Next(groups)).ToArray();
+
+            var counted = table.CountYieldByUnitGroup(groupOfUnit, groups);
+
+            Assert.Equal(groups, counted.Length);
+            for (var g = 0; g < groups; g++)
+            {
+                var ofGroup = Enumerable.Range(0, table.Count).Where(r => groupOfUnit[unitOf[r]] == g).ToList();
+                Assert.Equal(Describe(YieldAnalysis.Summarize(table.Outcomes(ofGroup))), Describe(YieldAnalysis.Summarize(counted[g])));
+            }
+        });
+    }
+
     [Fact]
     public void FirstRuns_EqualEndTimes_TheFirstAddedIsTheFirstRun()
     {
