@@ -84,7 +84,7 @@ internal static class PackedReportLoader
             data.Runs.EnsureCapacity((int)packed);
         }
 
-        var placer = new Placer(data, query);
+        var placer = new Placer(data, query, [.. months.Select(m => m.Runs)]);
         await InOrderReads.RunAsync(
             connections,
             months.Count,
@@ -327,9 +327,13 @@ internal static class PackedReportLoader
     }
 
     /// <summary>Adds months of runs, in order, to the report's runs and series.</summary>
-    private sealed class Placer(ReportData data, ReportQuery query)
+    /// <param name="data">Where the runs and series go.</param>
+    /// <param name="query">Which readings are asked for, and whether operators are.</param>
+    /// <param name="monthRuns">How many runs each month's packs hold, in the order the months are placed.</param>
+    private sealed class Placer(ReportData data, ReportQuery query, long[] monthRuns)
     {
         private readonly bool _operators = query.GroupBy == ReportGrouping.Operator;
+        private int _month;
 
             public void Place(MonthRuns month)
         {
@@ -337,6 +341,7 @@ internal static class PackedReportLoader
             // by its place in the order (the runs before this month plus its position), which does not wait for the table.
             var first = data.Runs.Count;
             Parallel.Invoke(() => PlaceRuns(month), () => PlaceReadings(month, first));
+            _month++;
         }
 
         private void PlaceRuns(MonthRuns month)
@@ -386,6 +391,7 @@ internal static class PackedReportLoader
         {
             // Per pack and sequence (a pack mostly holds one), the series of each shape once asked for.
             var series = month.Packs.Select(_ => new Dictionary<int, ReadingSeries?[]>()).ToArray();
+            var before = data.Readings.ToDictionary(s => s, s => s.Count);
             var wantsShape = month.Packs.Select(p => p.Shapes.Select(s => query.WantsReading(p.Texts[s.Name])).ToArray()).ToArray();
             for (var position = 0; position < month.Order.Length; position++)
             {
@@ -411,6 +417,39 @@ internal static class PackedReportLoader
                     var into = ofShape[s] ??= data.Series(pack.Texts[pack.Sequence[r]], pack.Texts[shape.Name], pack.Texts[shape.Unit]);
                     var value = pack.ReadingValue[i];
                     into.Add(run, double.IsNaN(value) ? null : value, pack.Texts[shape.Unit], shape.Low, shape.High);
+                }
+            }
+
+            ReserveForLaterMonths(before);
+        }
+
+        /// <summary>
+        /// Makes room in each series for the months still to come, as many values per packed run as this month gave it:
+        /// a series of a million values is then allocated about once instead of doubling its way there (each doubling a
+        /// new large array to fill and the old one to copy). Over all series this is about as many values as the months
+        /// hold, so a series that stops early costs little room; one that grows later grows as before.
+        /// </summary>
+        private void ReserveForLaterMonths(Dictionary<ReadingSeries, int> before)
+        {
+            var thisMonth = monthRuns[_month];
+            long later = 0;
+            for (var m = _month + 1; m < monthRuns.Length; m++)
+            {
+                later += monthRuns[m];
+            }
+
+            if (thisMonth <= 0 || later <= 0)
+            {
+                return;
+            }
+
+            foreach (var s in data.Readings)
+            {
+                var added = s.Count - before.GetValueOrDefault(s);
+                var wanted = s.Count + (long)Math.Ceiling(added * (double)later / thisMonth);
+                if (added > 0 && wanted <= int.MaxValue / 16)
+                {
+                    s.EnsureCapacity((int)wanted);
                 }
             }
         }
