@@ -149,6 +149,29 @@ public sealed class PackedReportLoaderTests
         Assert.Equal(await stations.FolderJsonAsync(ReportQuery.All), Json(data, ReportQuery.All));
     }
 
+    [PostgresTheory]
+    [InlineData(0)]
+    [InlineData(-5)]
+    [InlineData(1)]
+    [InlineData(int.MaxValue)]
+    public async Task LoadPackedAsync_RunCountOfThePacksWrong_OnlyAHintSoTheReportIsTheFolders(int runs)
+    {
+        // run_packs.runs sizes the run table; edited on the server to nothing, less than nothing, too few or far too many,
+        // the packs are still read whole and the report is the folders'.
+        await using var database = await TestDatabase.CreateAsync();
+        await using var stations = await Stations.CreateAsync(2);
+        await stations.AddAndForwardAsync(Support.Factory.Forwarder(database), 12);
+        await FactoryReportLoader.BuildPacksAsync(database.DataSource);
+        await database.ExecuteAsync($"UPDATE run_packs SET runs = {runs};");
+
+        var times = new FactoryLoadTimes();
+        var data = await FactoryReportLoader.LoadPackedAsync(database.DataSource, ReportQuery.All, times);
+
+        Assert.True(times.FromPacks);
+        Assert.Equal(0, times.PacksWritten);
+        Assert.Equal(await stations.FolderJsonAsync(ReportQuery.All), Json(data, ReportQuery.All));
+    }
+
     [PostgresFact]
     public async Task LoadPackedAsync_PackDamagedOnTheServer_ErrorNamesThePackAndHowToRebuildIt()
     {
