@@ -285,7 +285,7 @@ public static class RunRules
     }
 
     /// <summary>The sign of a finite number (the points are checked finite first), without Math.Sign's NaN check.</summary>
-    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveInlining)]
+    [MethodImpl(MethodImplOptions.AggressiveInlining)]
     private static int Sign(double x) => x > 0 ? 1 : x < 0 ? -1 : 0;
 
     /// <summary>

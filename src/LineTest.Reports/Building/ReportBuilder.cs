@@ -285,18 +285,7 @@ public static class ReportBuilder
             return [.. keys.Select(k => counted.TryGetValue(k, out var c) ? c : new YieldCounts())];
         }
 
-        var first = runs.FirstRuns();
-        var (unitOf, units) = runs.Units();
-        var groupOfUnit = new int[units];
-        for (var r = 0; r < runs.Count; r++)
-        {
-            if (first[r])
-            {
-                groupOfUnit[unitOf[r]] = groupOfRun[r];
-            }
-        }
-
-        return runs.CountYieldByUnitGroup(groupOfUnit, keys.Count);
+        return runs.CountYieldByFirstRunGroup(groupOfRun, keys.Count);
     }
 
     private static List<GroupReport> Groups(ReportData data, ReportQuery query, bool[]? firstRuns)

@@ -12,20 +12,8 @@ public sealed partial class RunTable
     /// </summary>
     public bool[] FirstRuns()
     {
-        var (unitOf, units) = Units();
-        var first = new int[units];
-        Array.Fill(first, -1);
-        for (var r = 0; r < Count; r++)
-        {
-            var f = first[unitOf[r]];
-            if (f < 0 || _endedTicks[r] < _endedTicks[f])
-            {
-                first[unitOf[r]] = r;
-            }
-        }
-
         var flags = new bool[Count];
-        foreach (var r in first)
+        foreach (var r in FirstAndLastRuns().FirstOf)
         {
             flags[r] = true;
         }
@@ -53,36 +41,58 @@ public sealed partial class RunTable
     }
 
     /// <summary>
-    /// The yield counts of each of <paramref name="groups"/> groups, in one pass over the runs, where every run counts in
-    /// the group of its unit (<paramref name="groupOfUnit"/>[unit], numbered as <see cref="Units"/> numbers them): a
-    /// unit's first and last runs are then those of all its runs, by the rule of <see cref="CountYield"/>. The same counts
-    /// as <see cref="CountYield"/> of each group's runs, without a table of units per group.
+    /// The yield counts of each of <paramref name="groups"/> groups, where every run counts in the group of its unit
+    /// (<paramref name="groupOfUnit"/>[unit], numbered as <see cref="Units"/> numbers them): a unit's first and last runs
+    /// are then those of all its runs, by the rule of <see cref="CountYield"/>. The same counts as <see cref="CountYield"/>
+    /// of each group's runs, without a table of units per group.
     /// </summary>
     public YieldCounts[] CountYieldByUnitGroup(int[] groupOfUnit, int groups)
     {
         ArgumentNullException.ThrowIfNull(groupOfUnit);
-        var (unitOf, units) = Units();
+        var units = Units().Units;
         if (groupOfUnit.Length != units)
         {
             throw new ArgumentException($"groupOfUnit has {groupOfUnit.Length} entries for {units} units.", nameof(groupOfUnit));
         }
 
-        var counts = new YieldCounts[groups];
-        for (var g = 0; g < groups; g++)
+        return CountByUnitGroup(groupOfUnit, groups, FirstAndLastRuns());
+    }
+
+    /// <summary>
+    /// As <see cref="CountYieldByUnitGroup"/>, each unit in the group of its first run (<paramref name="groupOfRun"/> of
+    /// that run): every unit is in exactly one group, and the groups' runs and units add up to the whole table.
+    /// </summary>
+    public YieldCounts[] CountYieldByFirstRunGroup(int[] groupOfRun, int groups)
+    {
+        ArgumentNullException.ThrowIfNull(groupOfRun);
+        if (groupOfRun.Length != Count)
         {
-            counts[g] = new YieldCounts();
+            throw new ArgumentException($"groupOfRun has {groupOfRun.Length} entries for {Count} runs.", nameof(groupOfRun));
         }
 
+        var spans = FirstAndLastRuns();
+        var groupOfUnit = new int[spans.FirstOf.Length];
+        for (var u = 0; u < groupOfUnit.Length; u++)
+        {
+            groupOfUnit[u] = groupOfRun[spans.FirstOf[u]];
+        }
+
+        return CountByUnitGroup(groupOfUnit, groups, spans);
+    }
+
+    /// <summary>
+    /// Each unit's first run (earliest end, equal ends: the first added) and last run (latest end, equal ends: the last
+    /// added), in one pass over the runs; every numbered unit has at least one run.
+    /// </summary>
+    private (int[] FirstOf, int[] LastOf) FirstAndLastRuns()
+    {
+        var (unitOf, units) = Units();
         var firstOf = new int[units];
         var lastOf = new int[units];
         Array.Fill(firstOf, -1);
         for (var r = 0; r < Count; r++)
         {
-            var verdict = _verdicts[r];
             var unit = unitOf[r];
-            counts[groupOfUnit[unit]].AddRuns(
-                verdict,
-                verdict == Core.Results.Verdict.Fail ? _pool.Text(_failures[r]) : verdict == Core.Results.Verdict.Error ? _pool.Text(_reasons[r]) : null);
             if (firstOf[unit] < 0)
             {
                 firstOf[unit] = r;
@@ -101,18 +111,35 @@ public sealed partial class RunTable
             }
         }
 
+        return (firstOf, lastOf);
+    }
+
+    private YieldCounts[] CountByUnitGroup(int[] groupOfUnit, int groups, (int[] FirstOf, int[] LastOf) spans)
+    {
+        var unitOf = Units().UnitOf;
+        var counts = new YieldCounts[groups];
+        for (var g = 0; g < groups; g++)
+        {
+            counts[g] = new YieldCounts();
+        }
+
+        for (var r = 0; r < Count; r++)
+        {
+            var verdict = _verdicts[r];
+            counts[groupOfUnit[unitOf[r]]].AddRuns(
+                verdict,
+                verdict == Core.Results.Verdict.Fail ? _pool.Text(_failures[r]) : verdict == Core.Results.Verdict.Error ? _pool.Text(_reasons[r]) : null);
+        }
+
         var seen = new int[groups];
         var firstPassed = new int[groups];
         var lastPassed = new int[groups];
-        for (var u = 0; u < units; u++)
+        for (var u = 0; u < groupOfUnit.Length; u++)
         {
-            if (firstOf[u] >= 0)
-            {
-                var g = groupOfUnit[u];
-                seen[g]++;
-                firstPassed[g] += _verdicts[firstOf[u]] == Core.Results.Verdict.Pass ? 1 : 0;
-                lastPassed[g] += _verdicts[lastOf[u]] == Core.Results.Verdict.Pass ? 1 : 0;
-            }
+            var g = groupOfUnit[u];
+            seen[g]++;
+            firstPassed[g] += _verdicts[spans.FirstOf[u]] == Core.Results.Verdict.Pass ? 1 : 0;
+            lastPassed[g] += _verdicts[spans.LastOf[u]] == Core.Results.Verdict.Pass ? 1 : 0;
         }
 
         for (var g = 0; g < groups; g++)
